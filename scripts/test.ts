@@ -1,0 +1,59 @@
+/**
+ * `npm test` after scripts/test.sh has made sure of node modules, PostgreSQL and Chromium:
+ * a throw-away test cluster (never the demo data; fsync off), migrations into a template database,
+ * a mail catcher on test ports, the client build, then vitest with any arguments passed on
+ * (`npm test -- tests/api/auth.test.ts`). Each test file gets its own copy of the template database.
+ */
+import { spawn } from 'node:child_process';
+import pg from 'pg';
+import { buildClient } from './lib/build-client';
+import { ensureDatabase, startCluster, stopCluster } from './lib/cluster';
+import { projectDir } from './lib/dev-database';
+import { startMailCatcher } from './lib/mail-catcher';
+import { ports } from './lib/ports';
+import { migrate } from './lib/prepare-database';
+import { loadLocalSecrets } from './lib/secrets';
+
+const t0 = Date.now();
+const secrets = loadLocalSecrets(projectDir, 'test');
+const cluster = await startCluster({ projectDir, name: 'test', port: ports.testPg, durable: false });
+let exitCode = 1;
+try {
+  const templateUrl = await ensureDatabase(cluster, {
+    name: 'broodcast_test', user: 'broodcast', password: secrets.databasePassword, fresh: true,
+  });
+  const admin = new pg.Client(cluster.adminConfig);
+  await admin.connect();
+  const stale = await admin.query("SELECT datname FROM pg_database WHERE datname LIKE 'broodcast_test\\_%'");
+  for (const row of stale.rows) await admin.query(`DROP DATABASE IF EXISTS "${row.datname}" WITH (FORCE)`);
+  await admin.end();
+  await migrate(templateUrl);
+
+  const maildev = await startMailCatcher(ports.testSmtp, ports.testMailWeb);
+  try {
+    await buildClient();
+    console.log(`› test set-up took ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+    exitCode = await new Promise<number>((resolve) => {
+      const child = spawn(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)], {
+        cwd: projectDir,
+        stdio: 'inherit',
+        env: {
+          ...process.env,
+          NODE_ENV: 'test',
+          TEST_TEMPLATE_DATABASE_URL: templateUrl,
+          TEST_SMTP_PORT: String(ports.testSmtp),
+          TEST_MAIL_WEB_PORT: String(ports.testMailWeb),
+        },
+      });
+      child.once('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0)));
+    });
+  } finally {
+    await maildev.stop();
+  }
+} catch (err) {
+  console.error(err);
+} finally {
+  stopCluster(cluster);
+}
+console.log(`› npm test finished in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
+process.exit(exitCode);

@@ -1,0 +1,73 @@
+import 'reflect-metadata';
+import cookieParser from 'cookie-parser';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import type { AppContext } from './app-context';
+import { authRoutes } from './auth/auth.routes';
+import { AuthService } from './auth/auth.service';
+import { sessionMiddleware } from './auth/session.middleware';
+import { districtsRoutes } from './districts/districts.routes';
+import { healthRoutes } from './health/health.routes';
+import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { mountRoutes, type RouteDef } from './http/route';
+import { usersRoutes } from './users/users.routes';
+
+export interface BroodcastApp extends Express {
+  locals: Express['locals'] & { routes: RouteDef[] };
+}
+
+/** Build the Express app (no listening): main.ts starts it, tests load it in-process with supertest. */
+export function createApp(ctx: AppContext): BroodcastApp {
+  const app = express() as BroodcastApp;
+  app.disable('x-powered-by');
+  if (ctx.config.TRUST_PROXY) app.set('trust proxy', 1);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'"],
+          'font-src': ["'self'"],
+          'img-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          'object-src': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'upgrade-insecure-requests': ctx.config.COOKIE_SECURE ? [] : null,
+        },
+      },
+    }),
+  );
+
+  const auth = new AuthService(ctx);
+  const routes: RouteDef[] = [
+    ...healthRoutes(ctx),
+    ...authRoutes(ctx, auth),
+    ...usersRoutes(ctx),
+    ...districtsRoutes(ctx),
+  ];
+  app.locals.routes = routes;
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb', strict: true }));
+  api.use(cookieParser());
+  api.use(sessionMiddleware(auth));
+  mountRoutes(api, routes);
+  api.use(apiNotFound);
+  api.use(errorMiddleware(ctx.logger));
+  app.use('/api', api);
+
+  // The built client, with the single-page fallback for its routes.
+  const dist = path.resolve(ctx.config.CLIENT_DIST);
+  const index = path.join(dist, 'index.html');
+  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  app.use((req, res, next) => {
+    if (req.method !== 'GET' || !req.accepts('html')) return next();
+    if (!existsSync(index)) return res.status(503).type('text').send('The client is not built yet: run npm start.');
+    res.sendFile(index);
+  });
+  return app;
+}

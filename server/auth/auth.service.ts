@@ -1,0 +1,117 @@
+import jwt from 'jsonwebtoken';
+import type { SignInBody } from '../../shared/api/auth.schema';
+import type { AppContext } from '../app-context';
+import { recordAudit } from '../audit/audit.repository';
+import { badRequest, unauthorized } from '../http/errors';
+import { UserEntity } from '../users/user.entity';
+import { UsersRepository } from '../users/users.repository';
+import { checkNewPassword, hashPassword, verifyAgainstDummy, verifyPassword } from './passwords';
+import type { Principal } from './principal';
+import { SessionsRepository } from './sessions.repository';
+import { consumeToken, issueToken } from './tokens.repository';
+import type { TokenPurpose } from './one-time-token.entity';
+import { passwordResetMail } from './auth.mails';
+
+const JWT_ISSUER = 'broodcast';
+const RESET_TTL_HOURS = 1;
+
+interface SessionClaims {
+  sid: string;
+  sub: string;
+}
+
+export class AuthService {
+  private readonly sessions: SessionsRepository;
+  private readonly users: UsersRepository;
+
+  constructor(private readonly ctx: AppContext) {
+    this.sessions = new SessionsRepository(ctx.ds);
+    this.users = new UsersRepository(ctx.ds);
+  }
+
+  /** Check the e-mail and password; a failure never says which part was wrong. */
+  async signIn(body: SignInBody): Promise<{ token: string; expiresAt: Date; userId: string }> {
+    const user = await this.users.findByEmail(body.email);
+    if (!user || !user.active || !user.passwordHash) {
+      await verifyAgainstDummy(body.password, this.ctx.config.BCRYPT_COST);
+      throw unauthorized('The e-mail or password is not right.');
+    }
+    if (!(await verifyPassword(body.password, user.passwordHash))) throw unauthorized('The e-mail or password is not right.');
+    const expiresAt = new Date(Date.now() + this.ctx.config.SESSION_TTL_HOURS * 3_600_000);
+    const session = await this.sessions.create(user.id, expiresAt);
+    const token = jwt.sign({ sid: session.id }, this.ctx.config.JWT_SECRET, {
+      subject: user.id,
+      issuer: JWT_ISSUER,
+      algorithm: 'HS256',
+      expiresIn: Math.floor(this.ctx.config.SESSION_TTL_HOURS * 3600),
+    });
+    return { token, expiresAt, userId: user.id };
+  }
+
+  async signOut(token: string | undefined): Promise<void> {
+    const claims = token ? this.verify(token) : null;
+    if (claims) await this.sessions.revoke(claims.sid);
+  }
+
+  /** The principal behind a session cookie, or null (bad signature, expired, revoked, deactivated). */
+  async principalFromToken(token: string): Promise<Principal | null> {
+    const claims = this.verify(token);
+    if (!claims) return null;
+    return this.sessions.findPrincipal(claims.sid, claims.sub);
+  }
+
+  private verify(token: string): SessionClaims | null {
+    try {
+      const claims = jwt.verify(token, this.ctx.config.JWT_SECRET, { issuer: JWT_ISSUER, algorithms: ['HS256'] });
+      if (typeof claims === 'string' || typeof claims.sid !== 'string' || typeof claims.sub !== 'string') return null;
+      return { sid: claims.sid, sub: claims.sub };
+    } catch {
+      return null;
+    }
+  }
+
+  /** Always answers the same way, whether or not the account exists. */
+  async requestPasswordReset(email: string): Promise<void> {
+    const user = await this.users.findByEmail(email);
+    if (!user || !user.active || !user.passwordHash) return;
+    const token = await issueToken(this.ctx.ds.manager, user.id, 'password-reset', RESET_TTL_HOURS);
+    const link = new URL(`/reset-password?token=${token}`, this.ctx.config.APP_URL).toString();
+    await this.sendQuietly(user.email, passwordResetMail(user.displayName, link, RESET_TTL_HOURS));
+  }
+
+  confirmPasswordReset(token: string, password: string) {
+    return this.setPasswordWithToken(token, password, 'password-reset');
+  }
+
+  acceptInvite(token: string, password: string) {
+    return this.setPasswordWithToken(token, password, 'invite');
+  }
+
+  private async setPasswordWithToken(token: string, password: string, purpose: TokenPurpose): Promise<void> {
+    checkNewPassword(password, this.ctx.config.NODE_ENV);
+    const hash = await hashPassword(password, this.ctx.config.BCRYPT_COST);
+    await this.ctx.ds.transaction(async (manager) => {
+      const row = await consumeToken(manager, token, purpose);
+      if (!row) throw badRequest('token_invalid', 'This link has expired or was already used. Ask for a new one.', [
+        { path: 'token', message: 'has expired or was already used' },
+      ]);
+      await manager.update(UserEntity, { id: row.userId }, { passwordHash: hash });
+      await this.sessions.revokeAllOf(manager, row.userId);
+      await recordAudit(manager, {
+        actorId: row.userId,
+        action: purpose === 'invite' ? 'user.invite-accepted' : 'user.password-reset',
+        entity: 'user',
+        entityId: row.userId,
+      });
+    });
+  }
+
+  /** Mail that must not turn a request into an error (the account's existence stays private). */
+  private async sendQuietly(to: string, mail: { subject: string; text: string; html: string }) {
+    try {
+      await this.ctx.mailer.send({ to, ...mail });
+    } catch (err) {
+      this.ctx.logger.warn({ err: (err as Error).message }, 'password reset mail could not be sent');
+    }
+  }
+}

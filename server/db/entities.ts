@@ -1,0 +1,18 @@
+import { AuditEventEntity } from '../audit/audit-event.entity';
+import { OneTimeTokenEntity } from '../auth/one-time-token.entity';
+import { SessionEntity } from '../auth/session.entity';
+import { DistrictPopulationEntity } from '../districts/district-population.entity';
+import { DistrictEntity } from '../districts/district.entity';
+import { UserDistrictEntity } from '../users/user-district.entity';
+import { UserEntity } from '../users/user.entity';
+
+/** Every entity, listed by hand so the DataSource works the same under tsx, vitest and the CLI. */
+export const entities = [
+  UserEntity,
+  UserDistrictEntity,
+  DistrictEntity,
+  DistrictPopulationEntity,
+  SessionEntity,
+  OneTimeTokenEntity,
+  AuditEventEntity,
+];

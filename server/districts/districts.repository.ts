@@ -1,0 +1,48 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import { In } from 'typeorm';
+import { DistrictPopulationEntity } from './district-population.entity';
+import { DistrictEntity } from './district.entity';
+
+export interface DistrictWithPopulations {
+  district: DistrictEntity;
+  populations: { year: number; population: number }[];
+}
+
+export class DistrictsRepository {
+  constructor(private readonly ds: DataSource) {}
+
+  /** Districts with their populations in two queries (never one per district). */
+  async list(ids?: string[], manager: EntityManager = this.ds.manager): Promise<DistrictWithPopulations[]> {
+    const districts = await manager.find(DistrictEntity, {
+      where: ids ? { id: In(ids) } : {},
+      order: { code: 'ASC' },
+      select: { id: true, code: true, name: true, isDemo: true, centroidLat: true, centroidLon: true, createdAt: true },
+    });
+    const hasBoundary: { id: string }[] = districts.length
+      ? await manager.query('SELECT id FROM districts WHERE boundary IS NOT NULL AND id = ANY($1)', [districts.map((d) => d.id)])
+      : [];
+    const withBoundary = new Set(hasBoundary.map((r) => r.id));
+    const pops = districts.length
+      ? await manager.find(DistrictPopulationEntity, { where: { districtId: In(districts.map((d) => d.id)) }, order: { year: 'ASC' } })
+      : [];
+    return districts.map((district) => {
+      district.boundary = withBoundary.has(district.id) ? ({} as DistrictEntity['boundary']) : null;
+      return {
+        district,
+        populations: pops.filter((p) => p.districtId === district.id).map(({ year, population }) => ({ year, population })),
+      };
+    });
+  }
+
+  async find(id: string, manager: EntityManager = this.ds.manager) {
+    return (await this.list([id], manager))[0] ?? null;
+  }
+
+  boundaries(ids?: string[]) {
+    return this.ds.getRepository(DistrictEntity).find({
+      where: ids ? { id: In(ids) } : {},
+      select: { id: true, code: true, name: true, boundary: true },
+      order: { code: 'ASC' },
+    });
+  }
+}

@@ -1,0 +1,36 @@
+import { idParams } from '../../shared/api/common.schema';
+import { boundaryBody, districtCreateBody, districtUpdateBody, populationBody } from '../../shared/api/districts.schema';
+import type { AppContext } from '../app-context';
+import { defineRoute } from '../http/route';
+import { DistrictsService } from './districts.service';
+
+export function districtsRoutes(ctx: AppContext) {
+  const service = new DistrictsService(ctx);
+  return [
+    defineRoute({ method: 'get', path: '/districts', access: 'signed-in', handler: ({ principal }) => service.list(principal) }),
+    defineRoute({
+      method: 'get', path: '/districts/boundaries', access: 'signed-in',
+      handler: ({ principal }) => service.boundaries(principal),
+    }),
+    defineRoute({
+      method: 'get', path: '/districts/:id', access: 'signed-in', params: idParams,
+      handler: ({ principal, params }) => service.get(principal, params.id),
+    }),
+    defineRoute({
+      method: 'post', path: '/districts', access: ['admin'], body: districtCreateBody, status: 201,
+      handler: ({ principal, body }) => service.create(principal, body),
+    }),
+    defineRoute({
+      method: 'patch', path: '/districts/:id', access: ['admin'], params: idParams, body: districtUpdateBody,
+      handler: ({ principal, params, body }) => service.update(principal, params.id, body),
+    }),
+    defineRoute({
+      method: 'put', path: '/districts/:id/populations', access: ['admin'], params: idParams, body: populationBody,
+      handler: ({ principal, params, body }) => service.setPopulation(principal, params.id, body),
+    }),
+    defineRoute({
+      method: 'put', path: '/districts/:id/boundary', access: ['admin'], params: idParams, body: boundaryBody,
+      handler: ({ principal, params, body }) => service.setBoundary(principal, params.id, body),
+    }),
+  ];
+}

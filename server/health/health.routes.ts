@@ -1,0 +1,21 @@
+import type { AppContext } from '../app-context';
+import { defineRoute } from '../http/route';
+
+export function healthRoutes(ctx: AppContext) {
+  return [
+    defineRoute({
+      method: 'get',
+      path: '/health',
+      access: 'public',
+      handler: async (_input, _req, res) => {
+        try {
+          await ctx.ds.query('SELECT 1');
+          return { status: 'ok', database: 'up' };
+        } catch {
+          res.status(503).json({ status: 'degraded', database: 'down' });
+          return;
+        }
+      },
+    }),
+  ];
+}

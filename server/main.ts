@@ -1,0 +1,38 @@
+import 'reflect-metadata';
+import { createApp } from './app';
+import { ConfigError, parseConfig } from './config';
+import { createDataSource } from './db/data-source';
+import { createLogger } from './logger';
+import { createMailer } from './mail/mailer';
+
+let config;
+try {
+  config = parseConfig();
+} catch (err) {
+  if (err instanceof ConfigError) {
+    console.error(err.message);
+    process.exit(78);
+  }
+  throw err;
+}
+const logger = createLogger(config);
+const ds = createDataSource(config.DATABASE_URL, config.DATABASE_POOL_SIZE);
+await ds.initialize();
+const mailer = createMailer(config);
+const app = createApp({ config, ds, mailer, logger });
+const server = app.listen(config.PORT, config.HOST, () => {
+  logger.info({ port: config.PORT, host: config.HOST }, 'Broodcast API listening');
+});
+
+let stopping = false;
+async function shutdown(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  logger.info({ signal }, 'shutting down');
+  server.close();
+  mailer.close();
+  await ds.destroy().catch(() => undefined);
+  process.exit(0);
+}
+process.on('SIGINT', () => void shutdown('SIGINT'));
+process.on('SIGTERM', () => void shutdown('SIGTERM'));

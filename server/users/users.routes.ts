@@ -1,0 +1,20 @@
+import { idParams } from '../../shared/api/common.schema';
+import { userInviteBody, userUpdateBody } from '../../shared/api/users.schema';
+import type { AppContext } from '../app-context';
+import { defineRoute } from '../http/route';
+import { UsersService } from './users.service';
+
+export function usersRoutes(ctx: AppContext) {
+  const service = new UsersService(ctx);
+  return [
+    defineRoute({ method: 'get', path: '/users', access: ['admin'], handler: () => service.list() }),
+    defineRoute({
+      method: 'post', path: '/users', access: ['admin'], body: userInviteBody, status: 201,
+      handler: ({ principal, body }) => service.invite(principal, body),
+    }),
+    defineRoute({
+      method: 'patch', path: '/users/:id', access: ['admin'], params: idParams, body: userUpdateBody,
+      handler: ({ principal, params, body }) => service.update(principal, params.id, body),
+    }),
+  ];
+}

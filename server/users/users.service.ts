@@ -1,0 +1,100 @@
+import { ROLE_LABELS } from '../../shared/roles';
+import type { UserInviteBody, UserUpdateBody } from '../../shared/api/users.schema';
+import type { AppContext } from '../app-context';
+import { recordAudit } from '../audit/audit.repository';
+import { inviteMail } from '../auth/auth.mails';
+import type { Principal } from '../auth/principal';
+import { SessionsRepository } from '../auth/sessions.repository';
+import { issueToken } from '../auth/tokens.repository';
+import { badRequest, conflict, notFound } from '../http/errors';
+import { presentUser } from './user.presenter';
+import { UserEntity } from './user.entity';
+import { UsersRepository } from './users.repository';
+
+const INVITE_TTL_HOURS = 72;
+
+export class UsersService {
+  private readonly users: UsersRepository;
+  private readonly sessions: SessionsRepository;
+
+  constructor(private readonly ctx: AppContext) {
+    this.users = new UsersRepository(ctx.ds);
+    this.sessions = new SessionsRepository(ctx.ds);
+  }
+
+  async list() {
+    return { users: (await this.users.listWithDistricts()).map(presentUser) };
+  }
+
+  /** Create the account without a password and mail a one-time link to choose one. */
+  async invite(actor: Principal, body: UserInviteBody) {
+    const { user, token } = await this.ctx.ds.transaction(async (manager) => {
+      if (await manager.existsBy(UserEntity, { email: body.email }))
+        throw conflict('email_taken', 'A user with this e-mail already exists.');
+      await this.checkDistricts(manager, body.districtIds);
+      const user = await manager.save(UserEntity, manager.create(UserEntity, {
+        email: body.email,
+        displayName: body.displayName,
+        role: body.role,
+        passwordHash: null,
+        active: true,
+      }));
+      await this.users.setDistricts(manager, user.id, body.districtIds);
+      const token = await issueToken(manager, user.id, 'invite', INVITE_TTL_HOURS);
+      await recordAudit(manager, {
+        actorId: actor.userId, action: 'user.invited', entity: 'user', entityId: user.id,
+        after: { email: user.email, role: user.role, districtIds: body.districtIds },
+      });
+      return { user: await this.users.findWithDistricts(user.id, manager), token };
+    });
+    const link = new URL(`/invite/accept?token=${token}`, this.ctx.config.APP_URL).toString();
+    try {
+      await this.ctx.mailer.send({ to: body.email, ...inviteMail(body.displayName, ROLE_LABELS[body.role], link, INVITE_TTL_HOURS) });
+    } catch (err) {
+      this.ctx.logger.warn({ err: (err as Error).message }, 'invite mail could not be sent');
+    }
+    return presentUser(user!);
+  }
+
+  async update(actor: Principal, id: string, body: UserUpdateBody) {
+    const updated = await this.ctx.ds.transaction(async (manager) => {
+      const current = await this.users.findWithDistricts(id, manager);
+      if (!current) throw notFound('The user');
+      if (actor.userId === id && (body.role !== undefined && body.role !== current.user.role || body.active === false))
+        throw badRequest('own_account', 'You cannot change your own role or deactivate yourself.', [
+          { path: body.active === false ? 'active' : 'role', message: 'cannot be changed on your own account' },
+        ]);
+      const before = { displayName: current.user.displayName, role: current.user.role, active: current.user.active,
+        districtIds: current.districts.map((d) => d.id) };
+      const patch: Partial<UserEntity> = {};
+      if (body.displayName !== undefined) patch.displayName = body.displayName;
+      if (body.role !== undefined) patch.role = body.role;
+      if (body.active !== undefined) patch.active = body.active;
+      if (Object.keys(patch).length) await manager.update(UserEntity, { id }, patch);
+      if (body.districtIds) {
+        await this.checkDistricts(manager, body.districtIds);
+        await this.users.setDistricts(manager, id, body.districtIds);
+      }
+      // A change of privilege ends the user's sessions: they sign in again with the new rights.
+      const privilegeChanged = (body.role && body.role !== before.role) || body.active === false ||
+        (body.districtIds && body.districtIds.join() !== before.districtIds.join());
+      if (privilegeChanged) await this.sessions.revokeAllOf(manager, id);
+      const after = await this.users.findWithDistricts(id, manager);
+      await recordAudit(manager, {
+        actorId: actor.userId, action: 'user.updated', entity: 'user', entityId: id, before,
+        after: { displayName: after!.user.displayName, role: after!.user.role, active: after!.user.active,
+          districtIds: after!.districts.map((d) => d.id) },
+      });
+      return after!;
+    });
+    return presentUser(updated);
+  }
+
+  private async checkDistricts(manager: Parameters<UsersRepository['countExistingDistricts']>[0], ids: string[]) {
+    const unique = [...new Set(ids)];
+    if ((await this.users.countExistingDistricts(manager, unique)) !== unique.length)
+      throw badRequest('unknown_district', 'One of the districts does not exist.', [
+        { path: 'districtIds', message: 'contains a district that does not exist' },
+      ]);
+  }
+}

@@ -1,0 +1,37 @@
+import { z } from 'zod';
+import { ROLES } from '../roles';
+import { districtRef } from './auth.schema';
+import { email, uuid } from './common.schema';
+
+const displayName = z.string().trim().min(1, { message: 'is required' }).max(120, { message: 'is too long' });
+
+export const userInviteBody = z.strictObject({
+  email,
+  displayName,
+  role: z.enum(ROLES, { message: 'must be one of: ' + ROLES.join(', ') }),
+  districtIds: z.array(uuid).max(500).default([]),
+});
+export type UserInviteBody = z.infer<typeof userInviteBody>;
+
+export const userUpdateBody = z
+  .strictObject({
+    displayName: displayName.optional(),
+    role: z.enum(ROLES, { message: 'must be one of: ' + ROLES.join(', ') }).optional(),
+    districtIds: z.array(uuid).max(500).optional(),
+    active: z.boolean().optional(),
+  })
+  .refine((b) => Object.keys(b).length > 0, { message: 'nothing to change' });
+export type UserUpdateBody = z.infer<typeof userUpdateBody>;
+
+export const userDto = z.object({
+  id: uuid,
+  email: z.string(),
+  displayName: z.string(),
+  role: z.enum(ROLES),
+  active: z.boolean(),
+  invitePending: z.boolean(),
+  districts: z.array(districtRef),
+  createdAt: z.string(),
+});
+export type UserDto = z.infer<typeof userDto>;
+export const usersResponse = z.object({ users: z.array(userDto) });

@@ -1,0 +1,457 @@
+import type { Profile } from './profile.schema';
+import { compileProfile, type CompiledProfile } from './traits';
+import { degreeDaysFast } from './degree-days';
+import { dayLengthFast } from './day-length';
+import { dateParts, dayNumber, formatIsoDate, isLeapYear, parseIsoDate } from './dates';
+import { saturationVapourPressure } from './humidity';
+
+/**
+ * The season computation (vector clock per day), in two shapes:
+ * - `computeSeasonColumns`: typed arrays in, preallocated typed arrays out, no per-day objects — the
+ *   batch path (nightly run, benchmark). Missing values are NaN.
+ * - `computeSeason`: one object per day in and out (nulls for missing values); it wraps the columns.
+ *
+ * Per day i (see docs/model.md for sources):
+ *  - degree-days by the profile's method and cutoff; the double methods take day i+1's Tmin and, on the
+ *    last day or before a gap, today's Tmin (`nextTminFallback`);
+ *  - cumulative degree-days from the biofix; a gap adds nothing and sets `complete` to 0 from that day;
+ *  - generations completed = floor(cumulative / K) and days to the next one at the trailing mean of the
+ *    daily degree-days (over the known days of the profile's recent window);
+ *  - the traits (gonotrophic cycle, biting rate, survival p, EIP n, pⁿ, relative vectorial capacity,
+ *    share of the EIP completed within the expected life 1/(−ln p)) at the trailing mean of the daily
+ *    mean temperature (Tmin + Tmax)/2 over the recent window;
+ *  - the season window (diapause profiles) from day length and the trailing mean temperature with
+ *    hysteresis; while it is closed the relative vectorial capacity is 0 (diapausing females do not
+ *    seek hosts); the thermal traits are still reported.
+ */
+
+export interface SeasonOptions {
+  /** Latitude, degrees north (−90…90). */
+  lat: number;
+  /** Biofix date YYYY-MM-DD; default: the profile's month-day in the year of the first day. */
+  biofix?: string;
+  /** Compute day length even when the profile has no season window (default false in columns, true in objects). */
+  dayLength?: boolean;
+}
+
+export interface SeasonColumnsInput {
+  /** Date of index 0, YYYY-MM-DD; the days are consecutive. */
+  startDate: string;
+  tmin: Float64Array;
+  tmax: Float64Array;
+  /** Relative humidity %, NaN where unknown. */
+  rh?: Float64Array | null;
+  /** 1 where the intake filled the day. */
+  filled?: Uint8Array | null;
+  /** Number of days to compute (default tmin.length). */
+  length?: number;
+}
+
+const FLOAT_COLUMNS = [
+  'degreeDays',
+  'cumulativeDegreeDays',
+  'generations',
+  'generationsLow',
+  'generationsHigh',
+  'daysToNextGeneration',
+  'daysToNextGenerationLow',
+  'daysToNextGenerationHigh',
+  'meanTemperature',
+  'gonotrophicCycleDays',
+  'gonotrophicCycleDaysLow',
+  'gonotrophicCycleDaysHigh',
+  'bitingRate',
+  'survival',
+  'eipDays',
+  'eipDaysLow',
+  'eipDaysHigh',
+  'survivalThroughEip',
+  'survivalThroughEipLow',
+  'survivalThroughEipHigh',
+  'relativeVectorialCapacity',
+  'relativeVectorialCapacityLow',
+  'relativeVectorialCapacityHigh',
+  'eipShareInLifetime',
+  'eipShareInLifetimeLow',
+  'eipShareInLifetimeHigh',
+  'dayLengthHours',
+  'vapourPressureDeficit',
+] as const;
+const BYTE_COLUMNS = ['complete', 'sinceBiofix', 'nextTminFallback', 'seasonOpen', 'filled'] as const;
+
+export type SeasonColumns = { length: number; capacity: number } & Record<(typeof FLOAT_COLUMNS)[number], Float64Array> &
+  Record<(typeof BYTE_COLUMNS)[number], Uint8Array>;
+
+/**
+ * Preallocate output columns for up to `capacity` days (one buffer, views per column). The Low / High
+ * columns are the smaller and larger of the two results from the slow and fast ends of the profile's
+ * ranged parameters (so xLow ≤ xHigh always; a long-EIP end gives the high eipDays and the low
+ * relative vectorial capacity). Without ranges they equal the central column.
+ */
+export function createSeasonColumns(capacity: number): SeasonColumns {
+  const buf = new ArrayBuffer(capacity * (8 * FLOAT_COLUMNS.length + BYTE_COLUMNS.length));
+  const out: Record<string, unknown> = { length: 0, capacity };
+  let off = 0;
+  for (const k of FLOAT_COLUMNS) {
+    out[k] = new Float64Array(buf, off, capacity);
+    off += 8 * capacity;
+  }
+  for (const k of BYTE_COLUMNS) {
+    out[k] = new Uint8Array(buf, off, capacity);
+    off += capacity;
+  }
+  return out as SeasonColumns;
+}
+
+/** Default biofix of a profile in a given year, YYYY-MM-DD (29 February falls back to 28 in common years). */
+export function defaultBiofix(profile: Profile, year: number): string {
+  const [m, d] = profile.biofix.monthDay.split('-').map(Number);
+  const day = m === 2 && d === 29 && !isLeapYear(year) ? 28 : d;
+  return formatIsoDate(dayNumber(year, m, day));
+}
+
+/**
+ * Season computation over typed arrays. Writes into `out` (allocated when not given) and returns it.
+ * No allocation per day.
+ */
+export function computeSeasonColumns(
+  profileOrCompiled: Profile | CompiledProfile,
+  options: SeasonOptions,
+  input: SeasonColumnsInput,
+  out?: SeasonColumns,
+): SeasonColumns {
+  const cp: CompiledProfile = 'optimum' in profileOrCompiled ? profileOrCompiled : compileProfile(profileOrCompiled);
+  const n = input.length ?? input.tmin.length;
+  if (input.tmax.length < n || input.tmin.length < n) throw new RangeError('tmin and tmax must hold `length` days');
+  const lat = options.lat;
+  if (!Number.isFinite(lat) || lat < -90 || lat > 90) throw new RangeError('latitude must be within −90…90');
+  const o = out ?? createSeasonColumns(n);
+  if (o.capacity < n) throw new RangeError(`output columns hold ${o.capacity} days, ${n} needed`);
+  o.length = n;
+
+  const startDay = parseIsoDate(input.startDate);
+  const biofixDay = options.biofix === undefined ? parseIsoDate(defaultBiofix(cp.profile, dateParts(startDay).year)) : parseIsoDate(options.biofix);
+  const biofixIndex = biofixDay - startDay;
+
+  const { tmin, tmax } = input;
+  const rh = input.rh ?? null;
+  const filled = input.filled ?? null;
+  const method = cp.methodCode;
+  const cutoff = cp.cutoffCode;
+  const lower = cp.lower;
+  const upper = cp.upper;
+  const isDouble = cp.isDouble;
+  const k0 = cp.degreeDaysPerGeneration[0];
+  const k1 = cp.degreeDaysPerGeneration[1];
+  const k2 = cp.degreeDaysPerGeneration[2];
+  const ranges = cp.hasRanges;
+  const win = cp.window;
+  const wantDayLength = win !== null || options.dayLength === true;
+  const W = cp.recentWindowDays;
+  const vcOpt = cp.optimum.value;
+
+  // Day-of-year walker for day length.
+  let { year } = dateParts(startDay);
+  let doy = startDay - dayNumber(year, 1, 1) + 1;
+  let yearLen = isLeapYear(year) ? 366 : 365;
+
+  const ddCol = o.degreeDays;
+  const tmCol = o.meanTemperature;
+  let sumT = 0;
+  let cntT = 0;
+  let sumDD = 0;
+  let cntDD = 0;
+  let cum = 0;
+  let complete = 1;
+  let warm = false;
+
+  for (let i = 0; i < n; i++) {
+    const lo = tmin[i];
+    const hi = tmax[i];
+    const tmean = (lo + hi) / 2; // NaN on a gap
+    const nextTmin = i + 1 < n ? tmin[i + 1] : Number.NaN;
+    const dd = degreeDaysFast(method, cutoff, lower, upper, lo, hi, nextTmin);
+    ddCol[i] = dd;
+    o.nextTminFallback[i] = isDouble && dd === dd && nextTmin !== nextTmin ? 1 : 0;
+    o.filled[i] = filled !== null && filled[i] ? 1 : 0;
+    o.vapourPressureDeficit[i] = rh !== null && tmean === tmean ? saturationVapourPressure(tmean) * (1 - rh[i] / 100) : Number.NaN;
+
+    // Trailing windows (known days only).
+    if (tmean === tmean) {
+      sumT += tmean;
+      cntT++;
+    }
+    if (dd === dd) {
+      sumDD += dd;
+      cntDD++;
+    }
+    // The day leaving the window: its mean is recomputed from the inputs (no extra buffer).
+    if (i >= W) {
+      const j = i - W;
+      const m = (tmin[j] + tmax[j]) / 2;
+      if (m === m) {
+        sumT -= m;
+        cntT--;
+      }
+      const dj = ddCol[j];
+      if (dj === dj) {
+        sumDD -= dj;
+        cntDD--;
+      }
+    }
+    const tbar = cntT > 0 ? sumT / cntT : Number.NaN;
+    const ddbar = cntDD > 0 ? sumDD / cntDD : Number.NaN;
+    tmCol[i] = tbar;
+
+    // Accumulation from the biofix.
+    const since = i >= biofixIndex;
+    o.sinceBiofix[i] = since ? 1 : 0;
+    if (since) {
+      if (dd === dd) cum += dd;
+      else complete = 0;
+    }
+    o.cumulativeDegreeDays[i] = since ? cum : 0;
+    o.complete[i] = complete;
+
+    // Generations.
+    const g1 = Math.floor(cum / k1);
+    o.generations[i] = g1;
+    o.daysToNextGeneration[i] = ddbar > 0 ? (k1 * (g1 + 1) - cum) / ddbar : Number.NaN;
+    if (ranges) {
+      const g0 = Math.floor(cum / k0);
+      const g2 = Math.floor(cum / k2);
+      o.generationsLow[i] = g0 < g2 ? g0 : g2;
+      o.generationsHigh[i] = g0 < g2 ? g2 : g0;
+      const d0 = ddbar > 0 ? (k0 * (g0 + 1) - cum) / ddbar : Number.NaN;
+      const d2 = ddbar > 0 ? (k2 * (g2 + 1) - cum) / ddbar : Number.NaN;
+      o.daysToNextGenerationLow[i] = Math.min(d0, d2);
+      o.daysToNextGenerationHigh[i] = Math.max(d0, d2);
+    } else {
+      o.generationsLow[i] = g1;
+      o.generationsHigh[i] = g1;
+      o.daysToNextGenerationLow[i] = o.daysToNextGeneration[i];
+      o.daysToNextGenerationHigh[i] = o.daysToNextGeneration[i];
+    }
+
+    // Day length and season window.
+    let open = 1;
+    if (wantDayLength) {
+      const dl = dayLengthFast(lat, doy, win !== null ? win.definitionDeg : 0.8333, 0.39795);
+      o.dayLengthHours[i] = dl;
+      if (win !== null) {
+        if (tbar === tbar) {
+          if (warm) {
+            if (tbar < win.closeMeanTemperature) warm = false;
+          } else if (tbar >= win.openMeanTemperature) warm = true;
+        }
+        open = warm && dl >= win.criticalPhotoperiod ? 1 : 0;
+      }
+    } else {
+      o.dayLengthHours[i] = Number.NaN;
+    }
+    o.seasonOpen[i] = open;
+    if (++doy > yearLen) {
+      doy = 1;
+      year++;
+      yearLen = isLeapYear(year) ? 366 : 365;
+    }
+
+    // Traits at the trailing mean temperature.
+    if (tbar === tbar) {
+      const l = cp.lifespanDays(tbar);
+      o.survival[i] = l > 0 ? Math.exp(-1 / l) : 0;
+      o.bitingRate[i] = cp.bitingRate(tbar, 1);
+      const u1 = cp.gonotrophicCycleDays(tbar, 1);
+      o.gonotrophicCycleDays[i] = u1 < Infinity ? u1 : Number.NaN;
+      traitVariant(cp, tbar, l, 1, open, vcOpt, S1);
+      o.eipDays[i] = S1[0];
+      o.survivalThroughEip[i] = S1[1];
+      o.relativeVectorialCapacity[i] = S1[2];
+      o.eipShareInLifetime[i] = S1[3];
+      if (ranges) {
+        const u0 = cp.gonotrophicCycleDays(tbar, 0);
+        const u2 = cp.gonotrophicCycleDays(tbar, 2);
+        o.gonotrophicCycleDaysLow[i] = u2 < Infinity ? u2 : Number.NaN;
+        o.gonotrophicCycleDaysHigh[i] = u0 < Infinity ? u0 : Number.NaN;
+        traitVariant(cp, tbar, l, 0, open, vcOpt, S0);
+        traitVariant(cp, tbar, l, 2, open, vcOpt, S2);
+        o.eipDaysLow[i] = Math.min(S0[0], S2[0]);
+        o.eipDaysHigh[i] = Math.max(S0[0], S2[0]);
+        o.survivalThroughEipLow[i] = Math.min(S0[1], S2[1]);
+        o.survivalThroughEipHigh[i] = Math.max(S0[1], S2[1]);
+        o.relativeVectorialCapacityLow[i] = Math.min(S0[2], S2[2]);
+        o.relativeVectorialCapacityHigh[i] = Math.max(S0[2], S2[2]);
+        o.eipShareInLifetimeLow[i] = Math.min(S0[3], S2[3]);
+        o.eipShareInLifetimeHigh[i] = Math.max(S0[3], S2[3]);
+      } else {
+        o.gonotrophicCycleDaysLow[i] = o.gonotrophicCycleDaysHigh[i] = o.gonotrophicCycleDays[i];
+        o.eipDaysLow[i] = o.eipDaysHigh[i] = S1[0];
+        o.survivalThroughEipLow[i] = o.survivalThroughEipHigh[i] = S1[1];
+        o.relativeVectorialCapacityLow[i] = o.relativeVectorialCapacityHigh[i] = S1[2];
+        o.eipShareInLifetimeLow[i] = o.eipShareInLifetimeHigh[i] = S1[3];
+      }
+    } else {
+      o.survival[i] = o.bitingRate[i] = Number.NaN;
+      o.gonotrophicCycleDays[i] = o.gonotrophicCycleDaysLow[i] = o.gonotrophicCycleDaysHigh[i] = Number.NaN;
+      o.eipDays[i] = o.eipDaysLow[i] = o.eipDaysHigh[i] = Number.NaN;
+      o.survivalThroughEip[i] = o.survivalThroughEipLow[i] = o.survivalThroughEipHigh[i] = Number.NaN;
+      o.relativeVectorialCapacity[i] = o.relativeVectorialCapacityLow[i] = o.relativeVectorialCapacityHigh[i] = Number.NaN;
+      o.eipShareInLifetime[i] = o.eipShareInLifetimeLow[i] = o.eipShareInLifetimeHigh[i] = Number.NaN;
+    }
+  }
+  return o;
+}
+
+/** Scratch space for one variant's [EIP days, pⁿ, relative VC, EIP share] (module level: no per-day allocation). */
+const S0 = new Float64Array(4);
+const S1 = new Float64Array(4);
+const S2 = new Float64Array(4);
+
+function traitVariant(cp: CompiledProfile, t: number, l: number, v: 0 | 1 | 2, open: number, vcOpt: number, s: Float64Array): void {
+  const n = cp.eipDays(t, v);
+  if (n < Infinity && l > 0) {
+    const e = Math.exp(-n / l); // pⁿ with p = exp(−1/L)
+    const a = cp.bitingRate(t, v);
+    s[0] = n;
+    s[1] = e;
+    s[2] = open ? (a * a * l * e) / vcOpt : 0;
+    s[3] = l >= n ? 1 : l / n;
+  } else {
+    s[0] = n < Infinity ? n : Number.NaN;
+    s[1] = 0;
+    s[2] = 0;
+    s[3] = 0;
+  }
+}
+
+// ---------------------------------------------------------------------------------------------
+// Object API
+
+export interface SeasonInputDay {
+  date: string;
+  tmin: number | null;
+  tmax: number | null;
+  rh?: number | null;
+  /** Set by the weather intake when it filled the day. */
+  filled?: boolean;
+}
+
+export interface Range {
+  low: number | null;
+  high: number | null;
+}
+
+export interface SeasonDay {
+  date: string;
+  tmin: number | null;
+  tmax: number | null;
+  rh: number | null;
+  filled: boolean;
+  /** Null on a gap (never read as zero heat). */
+  degreeDays: number | null;
+  /** True when a double method used today's Tmin for tomorrow's (last day or before a gap). */
+  nextTminFallback: boolean;
+  cumulativeDegreeDays: number;
+  /** False from the first gap since the biofix on: the total is then a lower bound. */
+  complete: boolean;
+  sinceBiofix: boolean;
+  generations: number;
+  daysToNextGeneration: number | null;
+  /** Trailing mean of the daily mean temperature over the profile's recent window. */
+  meanTemperature: number | null;
+  gonotrophicCycleDays: number | null;
+  bitingRate: number | null;
+  survival: number | null;
+  eipDays: number | null;
+  survivalThroughEip: number | null;
+  relativeVectorialCapacity: number | null;
+  eipShareInLifetime: number | null;
+  dayLengthHours: number | null;
+  seasonOpen: boolean;
+  /** hPa, from the day's mean temperature and RH; null without RH. */
+  vapourPressureDeficit: number | null;
+  /** Present when the profile gives ranges: the smaller and larger result of its slow and fast ends. */
+  ranges?: {
+    generations: Range;
+    daysToNextGeneration: Range;
+    gonotrophicCycleDays: Range;
+    eipDays: Range;
+    survivalThroughEip: Range;
+    relativeVectorialCapacity: Range;
+    eipShareInLifetime: Range;
+  };
+}
+
+const num = (x: number | null | undefined): number => (x === null || x === undefined ? Number.NaN : x);
+const orNull = (x: number): number | null => (x === x ? x : null);
+
+/**
+ * Season computation, one object per day. `days` must be consecutive calendar days in order
+ * (a missing day is given as a day with null temperatures, not left out). Throws RangeError otherwise.
+ */
+export function computeSeason(profile: Profile, options: SeasonOptions, days: readonly SeasonInputDay[]): SeasonDay[] {
+  const n = days.length;
+  if (n === 0) return [];
+  const start = parseIsoDate(days[0].date);
+  const tmin = new Float64Array(n);
+  const tmax = new Float64Array(n);
+  const rh = new Float64Array(n);
+  const filled = new Uint8Array(n);
+  for (let i = 0; i < n; i++) {
+    const d = days[i];
+    if (parseIsoDate(d.date) !== start + i) throw new RangeError(`day ${i + 1} (${d.date}) is not the day after ${days[i - 1]?.date ?? ''}`);
+    tmin[i] = num(d.tmin);
+    tmax[i] = num(d.tmax);
+    rh[i] = num(d.rh);
+    filled[i] = d.filled ? 1 : 0;
+    if (Number.isNaN(tmin[i]) !== Number.isNaN(tmax[i])) {
+      // Half a day is no day: treat it as a gap.
+      tmin[i] = tmax[i] = Number.NaN;
+    }
+  }
+  const c = computeSeasonColumns(profile, { dayLength: true, ...options }, { startDate: days[0].date, tmin, tmax, rh, filled });
+  const withRanges = compileProfile(profile).hasRanges;
+  const out: SeasonDay[] = new Array(n);
+  for (let i = 0; i < n; i++) {
+    const d = days[i];
+    const day: SeasonDay = {
+      date: d.date,
+      tmin: d.tmin ?? null,
+      tmax: d.tmax ?? null,
+      rh: d.rh ?? null,
+      filled: c.filled[i] === 1,
+      degreeDays: orNull(c.degreeDays[i]),
+      nextTminFallback: c.nextTminFallback[i] === 1,
+      cumulativeDegreeDays: c.cumulativeDegreeDays[i],
+      complete: c.complete[i] === 1,
+      sinceBiofix: c.sinceBiofix[i] === 1,
+      generations: c.generations[i],
+      daysToNextGeneration: orNull(c.daysToNextGeneration[i]),
+      meanTemperature: orNull(c.meanTemperature[i]),
+      gonotrophicCycleDays: orNull(c.gonotrophicCycleDays[i]),
+      bitingRate: orNull(c.bitingRate[i]),
+      survival: orNull(c.survival[i]),
+      eipDays: orNull(c.eipDays[i]),
+      survivalThroughEip: orNull(c.survivalThroughEip[i]),
+      relativeVectorialCapacity: orNull(c.relativeVectorialCapacity[i]),
+      eipShareInLifetime: orNull(c.eipShareInLifetime[i]),
+      dayLengthHours: orNull(c.dayLengthHours[i]),
+      seasonOpen: c.seasonOpen[i] === 1,
+      vapourPressureDeficit: orNull(c.vapourPressureDeficit[i]),
+    };
+    if (withRanges) {
+      const r = (lo: Float64Array, hi: Float64Array): Range => ({ low: orNull(lo[i]), high: orNull(hi[i]) });
+      day.ranges = {
+        generations: r(c.generationsLow, c.generationsHigh),
+        daysToNextGeneration: r(c.daysToNextGenerationLow, c.daysToNextGenerationHigh),
+        gonotrophicCycleDays: r(c.gonotrophicCycleDaysLow, c.gonotrophicCycleDaysHigh),
+        eipDays: r(c.eipDaysLow, c.eipDaysHigh),
+        survivalThroughEip: r(c.survivalThroughEipLow, c.survivalThroughEipHigh),
+        relativeVectorialCapacity: r(c.relativeVectorialCapacityLow, c.relativeVectorialCapacityHigh),
+        eipShareInLifetime: r(c.eipShareInLifetimeLow, c.eipShareInLifetimeHigh),
+      };
+    }
+    out[i] = day;
+  }
+  return out;
+}

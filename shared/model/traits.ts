@@ -1,0 +1,298 @@
+import type { Profile, RangedParam, ThermalCurve } from './profile.schema';
+import { CUTOFF_CODE, METHOD_CODE } from './degree-days';
+import { DAY_LENGTH_DEFINITIONS } from './day-length';
+
+/**
+ * Temperature-driven traits of a profile, compiled once into plain functions.
+ *
+ * Variants: 0 = 'slow' (the slow end of every ranged parameter: more degree-days per generation, longer
+ * EIP, longer gonotrophic cycle), 1 = 'central', 2 = 'fast' (the other end). Only parameters that carry
+ * a low / high in the profile make the variants differ. Season outputs report the numeric low / high
+ * of the slow and fast results.
+ */
+
+export type Variant = 0 | 1 | 2;
+export const VARIANT_NAMES = ['slow', 'central', 'fast'] as const;
+export type VariantName = (typeof VARIANT_NAMES)[number];
+
+/** Brière 1999 form: c·T·(T − t0)·√(tm − T) on (t0, tm), else 0. */
+export function briere(c: number, t0: number, tm: number, t: number): number {
+  return t > t0 && t < tm ? c * t * (t - t0) * Math.sqrt(tm - t) : 0;
+}
+
+/** Symmetric quadratic: −c·(T − t0)·(T − tm) on (t0, tm), else 0. */
+export function quadratic(c: number, t0: number, tm: number, t: number): number {
+  return t > t0 && t < tm ? -c * (t - t0) * (t - tm) : 0;
+}
+
+/** A thermal curve as a function of temperature (°C). */
+export function curveFunction(curve: ThermalCurve): (t: number) => number {
+  switch (curve.form) {
+    case 'briere': {
+      const { c, t0, tm } = curve;
+      return (t) => briere(c, t0, tm, t);
+    }
+    case 'quadratic': {
+      const { c, t0, tm } = curve;
+      return (t) => quadratic(c, t0, tm, t);
+    }
+    case 'polynomial': {
+      const k = curve.coefficients.slice();
+      return (t) => {
+        let v = 0;
+        for (let i = k.length - 1; i >= 0; i--) v = v * t + k[i];
+        return v > 0 ? v : 0;
+      };
+    }
+  }
+}
+
+/**
+ * Garrett-Jones 1964 vectorial capacity C = m·a²·pⁿ / (−ln p). Returns 0 when p ≤ 0 or n is not finite.
+ */
+export function vectorialCapacity(m: number, a: number, p: number, n: number): number {
+  if (!(p > 0) || !(n < Infinity) || !(a > 0)) return 0;
+  if (p >= 1) return Infinity;
+  return (m * a * a * Math.pow(p, n)) / -Math.log(p);
+}
+
+/** [slow, central, fast] values of a ranged parameter where a higher value is slower. */
+function slowFast(p: RangedParam): [number, number, number] {
+  return [p.high ?? p.value, p.value, p.low ?? p.value];
+}
+
+export interface SeasonWindowRule {
+  criticalPhotoperiod: number;
+  definitionDeg: number;
+  openMeanTemperature: number;
+  closeMeanTemperature: number;
+}
+
+export interface CompiledProfile {
+  readonly profile: Profile;
+  readonly methodCode: number;
+  readonly cutoffCode: number;
+  readonly isDouble: boolean;
+  readonly lower: number;
+  readonly upper: number;
+  /** Degree-days per generation for variants 0, 1, 2. */
+  readonly degreeDaysPerGeneration: readonly [number, number, number];
+  readonly recentWindowDays: number;
+  readonly hasRanges: boolean;
+  readonly window: SeasonWindowRule | null;
+  gonotrophicCycleDays(t: number, v: Variant): number;
+  bitingRate(t: number, v: Variant): number;
+  /** Expected adult lifespan L (days); p = exp(−1/L). */
+  lifespanDays(t: number): number;
+  survival(t: number): number;
+  /** EIP in days (Infinity where the pathogen does not develop). */
+  eipDays(t: number, v: Variant): number;
+  /** a²·pⁿ/(−ln p) with m left out, unscaled. */
+  vectorialCapacityRaw(t: number, v: Variant): number;
+  /** Maximum of the central unscaled vectorial capacity over the temperature grid, and where. */
+  readonly optimum: { temperature: number; value: number };
+}
+
+const cache = new WeakMap<Profile, CompiledProfile>();
+
+/** Temperature grid over which the optimum is searched (°C). */
+export const OPTIMUM_GRID = { from: -10, to: 50, step: 0.01 } as const;
+
+/** Compile (once per profile object) the profile's trait functions and its vectorial-capacity optimum. */
+export function compileProfile(profile: Profile): CompiledProfile {
+  const hit = cache.get(profile);
+  if (hit) return hit;
+  const dev = profile.development;
+  const kGen = slowFast(dev.degreeDaysPerGeneration);
+  let hasRanges = kGen[0] !== kGen[2];
+
+  // Gonotrophic cycle and biting rate.
+  const g = profile.gonotrophicCycle;
+  const b = profile.bitingRate;
+  let gono: (t: number, v: Variant) => number;
+  let bite: (t: number, v: Variant) => number;
+  if (g.model === 'degree-days') {
+    const k = slowFast(g.k);
+    hasRanges ||= k[0] !== k[2];
+    const th = g.threshold.value;
+    const off = g.offsetDays.value;
+    gono = (t, v) => (t > th ? off + k[v] / (t - th) : Infinity);
+  } else {
+    if (b.model !== 'curve') throw new Error(`${profile.id}: inverse-biting-rate needs a biting-rate curve`);
+    const a = curveFunction(b.curve);
+    gono = (t) => {
+      const r = a(t);
+      return r > 0 ? 1 / r : Infinity;
+    };
+  }
+  if (b.model === 'curve') {
+    const a = curveFunction(b.curve);
+    bite = (t) => a(t);
+  } else {
+    bite = (t, v) => {
+      const u = gono(t, v);
+      return u < Infinity && u > 0 ? 1 / u : 0;
+    };
+  }
+
+  // Survival.
+  const lifespan = curveFunction(profile.survival.lifespan);
+  const survival = (t: number): number => {
+    const l = lifespan(t);
+    return l > 0 ? Math.exp(-1 / l) : 0;
+  };
+
+  // EIP.
+  const e = profile.eip;
+  let eip: (t: number, v: Variant) => number;
+  if (e.model === 'degree-days') {
+    const k = slowFast(e.k);
+    const th = slowFast(e.threshold);
+    hasRanges ||= k[0] !== k[2] || th[0] !== th[2];
+    eip = (t, v) => (t > th[v] ? k[v] / (t - th[v]) : Infinity);
+  } else if (e.model === 'log-linear') {
+    const i0 = e.intercept.value;
+    const s = e.slope.value;
+    eip = (t) => Math.exp(i0 + s * t);
+  } else {
+    const r = curveFunction(e.rate);
+    eip = (t) => {
+      const x = r(t);
+      return x > 0 ? 1 / x : Infinity;
+    };
+  }
+
+  // a²·pⁿ/(−ln p) with p = exp(−1/L): a²·L·exp(−n/L).
+  const vcRaw = (t: number, v: Variant): number => {
+    const l = lifespan(t);
+    if (!(l > 0)) return 0;
+    const n = eip(t, v);
+    if (!(n < Infinity)) return 0;
+    const a = bite(t, v);
+    return a * a * l * Math.exp(-n / l);
+  };
+
+  // Optimum: grid search, then golden-section refinement around the best grid point.
+  let bestT = Number.NaN;
+  let best = 0;
+  const steps = Math.round((OPTIMUM_GRID.to - OPTIMUM_GRID.from) / OPTIMUM_GRID.step);
+  for (let i = 0; i <= steps; i++) {
+    const t = OPTIMUM_GRID.from + i * OPTIMUM_GRID.step;
+    const v = vcRaw(t, 1);
+    if (v > best) {
+      best = v;
+      bestT = t;
+    }
+  }
+  if (!(best > 0)) throw new Error(`${profile.id}: vectorial capacity is zero at every temperature of the grid`);
+  let lo = bestT - OPTIMUM_GRID.step;
+  let hi = bestT + OPTIMUM_GRID.step;
+  const gr = (Math.sqrt(5) - 1) / 2;
+  for (let i = 0; i < 40; i++) {
+    const x1 = hi - gr * (hi - lo);
+    const x2 = lo + gr * (hi - lo);
+    if (vcRaw(x1, 1) >= vcRaw(x2, 1)) hi = x2;
+    else lo = x1;
+  }
+  const tOpt = (lo + hi) / 2;
+  const vOpt = Math.max(best, vcRaw(tOpt, 1));
+
+  const w = profile.seasonWindow;
+  const window: SeasonWindowRule | null =
+    w.model === 'none'
+      ? null
+      : {
+          criticalPhotoperiod: w.criticalPhotoperiod.value,
+          definitionDeg: DAY_LENGTH_DEFINITIONS[w.dayLengthDefinition.value],
+          openMeanTemperature: w.openMeanTemperature.value,
+          closeMeanTemperature: w.closeMeanTemperature.value,
+        };
+
+  const compiled: CompiledProfile = {
+    profile,
+    methodCode: METHOD_CODE[dev.method.value],
+    cutoffCode: CUTOFF_CODE[dev.cutoff.value],
+    isDouble: dev.method.value === 'double-sine' || dev.method.value === 'double-triangle',
+    lower: dev.lowerThreshold.value,
+    upper: dev.upperThreshold.value,
+    degreeDaysPerGeneration: kGen,
+    recentWindowDays: profile.recentWindowDays.value,
+    hasRanges,
+    window,
+    gonotrophicCycleDays: gono,
+    bitingRate: bite,
+    lifespanDays: lifespan,
+    survival,
+    eipDays: eip,
+    vectorialCapacityRaw: vcRaw,
+    optimum: { temperature: tOpt, value: vOpt },
+  };
+  cache.set(profile, compiled);
+  return compiled;
+}
+
+export interface TraitsAt {
+  temperature: number;
+  gonotrophicCycleDays: number | null;
+  bitingRate: number;
+  lifespanDays: number;
+  survival: number;
+  eipDays: number | null;
+  /** pⁿ */
+  survivalThroughEip: number;
+  /** a²pⁿ/(−ln p) divided by the profile's optimum (1 at the optimum temperature). */
+  relativeVectorialCapacity: number;
+  /** Expected life (1/(−ln p)) over the EIP, at most 1. */
+  eipShareInLifetime: number;
+}
+
+const finiteOrNull = (x: number): number | null => (Number.isFinite(x) ? x : null);
+
+/** The profile's traits at a constant temperature (°C). */
+export function traitsAt(profile: Profile, temperature: number, variant: VariantName = 'central'): TraitsAt {
+  const c = compileProfile(profile);
+  const v = VARIANT_NAMES.indexOf(variant) as Variant;
+  const l = c.lifespanDays(temperature);
+  const p = c.survival(temperature);
+  const n = c.eipDays(temperature, v);
+  const pn = n < Infinity && p > 0 ? Math.pow(p, n) : 0;
+  return {
+    temperature,
+    gonotrophicCycleDays: finiteOrNull(c.gonotrophicCycleDays(temperature, v)),
+    bitingRate: c.bitingRate(temperature, v),
+    lifespanDays: l,
+    survival: p,
+    eipDays: finiteOrNull(n),
+    survivalThroughEip: pn,
+    relativeVectorialCapacity: c.vectorialCapacityRaw(temperature, v) / c.optimum.value,
+    eipShareInLifetime: n < Infinity && l > 0 ? Math.min(1, l / n) : 0,
+  };
+}
+
+/** EIP in days at a constant temperature, or null where the pathogen does not develop. */
+export function eipDays(profile: Profile, temperature: number, variant: VariantName = 'central'): number | null {
+  const v = VARIANT_NAMES.indexOf(variant) as Variant;
+  return finiteOrNull(compileProfile(profile).eipDays(temperature, v));
+}
+
+/** Temperature (°C) at which the profile's central vectorial capacity peaks, and the peak (unscaled). */
+export function vectorialCapacityOptimum(profile: Profile): { temperature: number; value: number } {
+  return compileProfile(profile).optimum;
+}
+
+const R0_TRAITS = ['a', 'b', 'c', 'efd', 'pea', 'mdr', 'lf', 'pdr'] as const;
+
+/**
+ * Thermal R0 in the form of Mordecai et al. 2017 (PLoS Negl. Trop. Dis. 11:e0005568, eq. 1), with
+ * density, human and recovery terms left out:
+ *   R0(T) ∝ [a² b c e^(−μ/PDR) EFD pEA MDR / μ³]^½, μ = 1/lf.
+ * Needs the profile's `thermalTraits` a, b, c, efd, pea, mdr, lf, pdr; returns null without them.
+ */
+export function thermalR0(profile: Profile, temperature: number): number | null {
+  const traits = profile.thermalTraits;
+  if (!traits || R0_TRAITS.some((k) => traits[k] === undefined)) return null;
+  const f = Object.fromEntries(R0_TRAITS.map((k) => [k, curveFunction(traits[k])(temperature)])) as Record<(typeof R0_TRAITS)[number], number>;
+  if (!(f.lf > 0) || !(f.pdr > 0)) return 0;
+  const mu = 1 / f.lf;
+  return Math.sqrt((f.a * f.a * f.b * f.c * Math.exp(-mu / f.pdr) * f.efd * f.pea * f.mdr) / (mu * mu * mu));
+}

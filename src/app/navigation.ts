@@ -1,0 +1,33 @@
+import { ROLES, type Role } from '../../shared/roles';
+
+/** One entry of the main navigation: where it goes and which roles may see (and use) it. */
+export type NavItem = {
+  id: string;
+  label: string;
+  to: string;
+  roles: readonly Role[];
+};
+
+/**
+ * The main navigation as data. Routes use the same `roles` to decide who may open them, so the menu and
+ * the guards never disagree. Later issues add Case ledger, Intake, Surveys, Sign-off and Season runs.
+ */
+export const NAV_ITEMS = [
+  { id: 'ladder', label: 'Ladder', to: '/', roles: ROLES },
+  { id: 'users', label: 'Users', to: '/admin/users', roles: ['admin'] },
+  { id: 'districts', label: 'Districts', to: '/admin/districts', roles: ['admin'] },
+] as const satisfies readonly NavItem[];
+
+export type NavItemId = (typeof NAV_ITEMS)[number]['id'];
+
+/** The items a role sees, in menu order. */
+export function navItemsFor(role: Role): NavItem[] {
+  return NAV_ITEMS.filter((item) => (item.roles as readonly Role[]).includes(role));
+}
+
+/** The roles that may use the screen behind a nav item. */
+export function rolesFor(id: NavItemId): readonly Role[] {
+  const item = NAV_ITEMS.find((i) => i.id === id);
+  if (!item) throw new Error(`No navigation item ${id}`);
+  return item.roles;
+}

@@ -1,0 +1,18 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { districtDto } from '../../../../shared/api/districts.schema';
+import { api } from '../../../lib/api-client';
+import { afterDistrictChange } from './district-mutation';
+
+export type UploadBoundaryVariables = { id: string; geojson: unknown };
+
+/** PUT /api/districts/:id/boundary (admin) — the GeoJSON of the boundary, as read from the admin's file. */
+export const uploadBoundary = ({ id, geojson }: UploadBoundaryVariables) =>
+  api.put(`/api/districts/${encodeURIComponent(id)}/boundary`, geojson, districtDto);
+
+export function useUploadBoundary() {
+  const queryClient = useQueryClient();
+  return useMutation({
+    mutationFn: uploadBoundary,
+    onSuccess: (district) => afterDistrictChange(queryClient, district),
+  });
+}

@@ -1,0 +1,109 @@
+import { useId, useRef, useState, type FormEvent } from 'react';
+import type { DistrictDto } from '../../../../shared/api/districts.schema';
+import { isApiError, type FieldProblem } from '../../../lib/api-client';
+import { FormMessage } from '../../../components/form';
+import { useUploadBoundary } from '../api/upload-boundary.api';
+
+const MAX_BYTES = 20 * 1024 * 1024;
+
+type Outcome =
+  | { kind: 'success'; text: string }
+  | { kind: 'error'; text: string; problems?: FieldProblem[] }
+  | null;
+
+/** Reads a .geojson/.json file in the browser and sends its JSON as the district's boundary. */
+export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
+  const upload = useUploadBoundary();
+  const inputId = useId();
+  const fileRef = useRef<HTMLInputElement>(null);
+  const [fileError, setFileError] = useState<string | null>(null);
+  const [outcome, setOutcome] = useState<Outcome>(null);
+
+  const onSubmit = async (event: FormEvent<HTMLFormElement>) => {
+    event.preventDefault();
+    setFileError(null);
+    setOutcome(null);
+    const file = fileRef.current?.files?.[0];
+    if (!file) {
+      setFileError('Choose a .geojson or .json file first.');
+      return;
+    }
+    if (file.size > MAX_BYTES) {
+      setFileError(`${file.name} is larger than 20 MB. Simplify the boundary and try again.`);
+      return;
+    }
+    let geojson: unknown;
+    try {
+      geojson = JSON.parse(await file.text());
+    } catch {
+      setFileError(`${file.name} is not JSON, so it cannot be a GeoJSON boundary. Export the boundary as GeoJSON and try again.`);
+      return;
+    }
+    try {
+      await upload.mutateAsync({ id: district.id, geojson });
+      setOutcome({ kind: 'success', text: `Boundary saved from ${file.name}.` });
+      if (fileRef.current) fileRef.current.value = '';
+    } catch (error) {
+      setOutcome({
+        kind: 'error',
+        text: isApiError(error)
+          ? error.status === 413
+            ? `${file.name} is too large for the server.`
+            : `The boundary in ${file.name} was not accepted: ${error.message}`
+          : 'The boundary could not be saved. Try again.',
+        problems: isApiError(error) ? error.fields : undefined,
+      });
+    }
+  };
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby={`boundary-${district.id}`}>
+      <h4 id={`boundary-${district.id}`} className="font-bold">
+        Boundary
+      </h4>
+      <p className="text-sm text-ink-muted">
+        {district.hasBoundary ? 'A boundary is on file; a new file replaces it.' : 'No boundary on file yet.'} A GeoJSON
+        Polygon or MultiPolygon, bare or inside a Feature, in longitude and latitude.
+      </p>
+      {outcome ? (
+        <FormMessage kind={outcome.kind}>
+          <p>{outcome.text}</p>
+          {outcome.kind === 'error' && outcome.problems?.length ? (
+            <ul className="mt-2 list-disc pl-5 font-normal">
+              {outcome.problems.map((p, i) => (
+                <li key={i}>
+                  {p.path ? <code className="font-mono text-sm">{p.path}</code> : null}
+                  {p.path ? ': ' : null}
+                  {p.message}
+                </li>
+              ))}
+            </ul>
+          ) : null}
+        </FormMessage>
+      ) : null}
+      <div className="field">
+        <label htmlFor={inputId} className="field-label">
+          Boundary file
+        </label>
+        <input
+          id={inputId}
+          ref={fileRef}
+          type="file"
+          className="input"
+          accept=".geojson,.json,application/geo+json,application/json"
+          aria-invalid={fileError ? true : undefined}
+          aria-describedby={fileError ? `${inputId}-error` : undefined}
+          onChange={() => setFileError(null)}
+        />
+        {fileError ? (
+          <p id={`${inputId}-error`} className="field-error">
+            {fileError}
+          </p>
+        ) : null}
+      </div>
+      <button type="submit" className="btn btn-primary btn-small" disabled={upload.isPending}>
+        {upload.isPending ? 'Uploading…' : 'Upload the boundary'}
+      </button>
+    </form>
+  );
+}

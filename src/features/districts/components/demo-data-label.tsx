@@ -1,0 +1,7 @@
+import type { DistrictDto } from '../../../../shared/api/districts.schema';
+
+/** A visible label on any screen that shows the invented demo districts. */
+export function DemoDataLabel({ districts }: { districts: readonly Pick<DistrictDto, 'isDemo'>[] | undefined }) {
+  if (!districts?.some((d) => d.isDemo)) return null;
+  return <p className="demo-label">Demo data — the Halvern Region is invented</p>;
+}

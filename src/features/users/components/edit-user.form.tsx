@@ -1,0 +1,94 @@
+import { useEffect, useRef, useState } from 'react';
+import { Controller, useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { userInviteBody, type UserDto, type UserUpdateBody } from '../../../../shared/api/users.schema';
+import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
+import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../components/form';
+import { useUpdateUser } from '../api/update-user.api';
+import { useDistrictOptions } from './district-options';
+import { districtHint, RoleOptions } from './role-options';
+
+/** The editable part of a user, checked with the same rules as the invitation. */
+const editUserForm = userInviteBody.pick({ displayName: true, role: true, districtIds: true });
+const FIELDS = ['displayName', 'role', 'districtIds'] as const;
+
+const sameSet = (a: readonly string[], b: readonly string[]) =>
+  a.length === b.length && a.every((x) => b.includes(x));
+
+export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved: boolean) => void }) {
+  const update = useUpdateUser();
+  const districts = useDistrictOptions();
+  const headingRef = useRef<HTMLHeadingElement>(null);
+  const [formError, setFormError] = useState<string | null>(null);
+  const {
+    register,
+    control,
+    handleSubmit,
+    setError,
+    watch,
+    formState: { errors, isSubmitting },
+  } = useForm({
+    resolver: zodResolver(editUserForm),
+    defaultValues: { displayName: user.displayName, role: user.role, districtIds: user.districts.map((d) => d.id) },
+  });
+  const role = watch('role');
+
+  useEffect(() => headingRef.current?.focus(), []);
+
+  const onSubmit = handleSubmit(async (values) => {
+    setFormError(null);
+    const changes: UserUpdateBody = {};
+    if (values.displayName !== user.displayName) changes.displayName = values.displayName;
+    if (values.role !== user.role) changes.role = values.role;
+    if (!sameSet(values.districtIds, user.districts.map((d) => d.id))) changes.districtIds = values.districtIds;
+    if (Object.keys(changes).length === 0) {
+      setFormError('Nothing has changed yet.');
+      return;
+    }
+    try {
+      await update.mutateAsync({ id: user.id, changes });
+      onClose(true);
+    } catch (error) {
+      const unmatched = applyServerFieldErrors(error, setError, FIELDS);
+      setFormError(formErrorText(error, unmatched));
+    }
+  });
+
+  return (
+    <form onSubmit={onSubmit} noValidate className="space-y-4 pt-2" aria-labelledby={`edit-${user.id}`}>
+      <h3 id={`edit-${user.id}`} ref={headingRef} tabIndex={-1} className="font-bold">
+        Edit {user.displayName} <span className="font-normal text-ink-muted">({user.email})</span>
+      </h3>
+      <FormMessage kind="error">{formError}</FormMessage>
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField label="Name" autoComplete="off" error={errors.displayName?.message} {...register('displayName')} />
+        <SelectField label="Role" error={errors.role?.message} {...register('role')}>
+          <RoleOptions />
+        </SelectField>
+      </div>
+      <Controller
+        control={control}
+        name="districtIds"
+        render={({ field, fieldState }) => (
+          <CheckboxGroup
+            legend="Districts"
+            hint={districtHint(role)}
+            options={districts.options}
+            emptyText={districts.isPending ? 'Loading districts…' : 'No districts yet.'}
+            value={field.value ?? []}
+            onChange={field.onChange}
+            error={fieldState.error?.message}
+          />
+        )}
+      />
+      <div className="flex flex-wrap gap-2">
+        <button type="submit" className="btn btn-primary" disabled={isSubmitting}>
+          {isSubmitting ? 'Saving…' : 'Save changes'}
+        </button>
+        <button type="button" className="btn btn-secondary" onClick={() => onClose(false)}>
+          Cancel
+        </button>
+      </div>
+    </form>
+  );
+}

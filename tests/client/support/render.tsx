@@ -1,0 +1,70 @@
+import { act, type ReactNode } from 'react';
+import { createRoot, type Root } from 'react-dom/client';
+
+// Tell React this is a test environment, so act() flushes effects without warnings.
+(globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
+
+export type Rendered = { container: HTMLElement; unmount: () => void };
+
+/** Renders into a fresh container with react-dom/client (no testing library is installed). */
+export async function render(ui: ReactNode): Promise<Rendered> {
+  const container = document.createElement('div');
+  document.body.appendChild(container);
+  let root: Root;
+  await act(async () => {
+    root = createRoot(container);
+    root.render(ui);
+  });
+  return {
+    container,
+    unmount: () => {
+      act(() => root.unmount());
+      container.remove();
+    },
+  };
+}
+
+/** The form control whose <label> reads exactly `text`. */
+export function getByLabel<T extends HTMLElement = HTMLInputElement>(container: HTMLElement, text: string): T {
+  const label = [...container.querySelectorAll('label')].find((l) => l.textContent?.trim() === text);
+  if (!label) throw new Error(`No label "${text}"`);
+  const control = label.htmlFor ? container.querySelector(`[id="${label.htmlFor}"]`) : label.querySelector('input,select');
+  if (!control) throw new Error(`Label "${text}" has no control`);
+  return control as T;
+}
+
+export function getButton(container: HTMLElement, name: string): HTMLButtonElement {
+  const button = [...container.querySelectorAll('button')].find((b) => b.textContent?.trim() === name);
+  if (!button) throw new Error(`No button "${name}"`);
+  return button;
+}
+
+/** Types into a React-controlled or registered input the way a browser does (value setter + input event). */
+export async function typeInto(input: HTMLInputElement, value: string) {
+  await act(async () => {
+    const setter = Object.getOwnPropertyDescriptor(HTMLInputElement.prototype, 'value')!.set!;
+    setter.call(input, value);
+    input.dispatchEvent(new Event('input', { bubbles: true }));
+  });
+}
+
+export async function click(element: HTMLElement) {
+  await act(async () => {
+    element.click();
+  });
+}
+
+/** Waits (inside act) until `check` stops throwing, or fails after `timeout` ms. */
+export async function waitFor<T>(check: () => T, timeout = 1000): Promise<T> {
+  const start = Date.now();
+  for (;;) {
+    try {
+      return check();
+    } catch (error) {
+      if (Date.now() - start > timeout) throw error;
+      await act(async () => {
+        await new Promise((r) => setTimeout(r, 10));
+      });
+    }
+  }
+}
