@@ -74,8 +74,10 @@ function formatIssues(error: z.ZodError, values: Record<string, unknown>, label:
   if (issue.code === 'unrecognized_keys') return `unknown option ${issue.keys.map(label).join(', ')}`;
   const key = issue.path.length > 0 ? String(issue.path[0]) : '';
   const raw = key ? values[key] : undefined;
-  const got = raw === undefined || issue.message === 'is required' ? '' : ` (got ${JSON.stringify(raw)})`;
-  return `${key ? label(key) : 'input'}: ${issue.message}${got}`;
+  const name = key ? label(key) : 'input';
+  if (issue.message === 'is required') return `${name} is required`;
+  const got = raw === undefined ? '' : ` (got ${JSON.stringify(raw)})`;
+  return `${name}: ${issue.message}${got}`;
 }
 
 function validate(cmd: CliCommand, values: Record<string, unknown>, label: (key: string) => string): unknown {
@@ -110,7 +112,6 @@ class Output {
 }
 
 async function runBatch(cmd: CliCommand, defaults: Record<string, unknown>, out: Output): Promise<void> {
-  const { numeric } = describe(cmd);
   for await (const raw of stdinLines()) {
     const line = raw.trim();
     if (line === '') continue;
@@ -126,7 +127,7 @@ async function runBatch(cmd: CliCommand, defaults: Record<string, unknown>, out:
       continue;
     }
     const values: Record<string, unknown> = { ...defaults, ...(parsed as Record<string, unknown>) };
-    void numeric; // batch values are taken as typed in the JSON (a number must be a JSON number)
+    // Batch values are taken as typed in the JSON: a number must be a JSON number.
     try {
       out.line(runOne(cmd, validate(cmd, values, (k) => k)));
     } catch (e) {

@@ -31,3 +31,22 @@ export function LoadingScreen() {
     </main>
   );
 }
+
+/** A screen failed inside the signed-in layout: the header and navigation stay usable. */
+export function ScreenErrorPage() {
+  const error = useRouteError();
+  console.error(error);
+  return (
+    <section aria-labelledby="page-title" className="max-w-prose">
+      <h1 id="page-title" className="text-2xl font-bold">
+        This screen could not be shown
+      </h1>
+      <p className="mt-3">{isApiError(error) ? error.message : 'Something went wrong while showing this screen.'}</p>
+      <p className="mt-6">
+        <button type="button" className="btn btn-primary" onClick={() => window.location.reload()}>
+          Try again
+        </button>
+      </p>
+    </section>
+  );
+}

@@ -10,7 +10,7 @@ import { AppLayout } from './app-layout';
 import { rolesFor } from './navigation';
 import { NotFoundPage } from './not-found.page';
 import { queryClient } from './query-client';
-import { LoadingScreen, RouteErrorPage } from './route-error.page';
+import { LoadingScreen, RouteErrorPage, ScreenErrorPage } from './route-error.page';
 import { RequireRole, sessionLoader } from './session';
 
 /**
@@ -32,7 +32,7 @@ export const routes: RouteObject[] = [
     HydrateFallback: LoadingScreen,
     children: [
       {
-        errorElement: <RouteErrorPage />,
+        errorElement: <ScreenErrorPage />,
         children: [
           {
             index: true,

@@ -24,6 +24,9 @@ export function fieldForPath<F extends string>(path: string, fields: readonly F[
   return undefined;
 }
 
+/** Server codes that are about one field, though the answer names no field (a 409, for instance). */
+const CODE_FIELDS: Record<string, string> = { email_taken: 'email', code_taken: 'code' };
+
 /**
  * Puts each field error of a failed call next to its field. Returns the problems that match no field,
  * so the form can show them at its top.
@@ -35,6 +38,10 @@ export function applyServerFieldErrors<T extends FieldValues>(
 ): FieldProblem[] {
   if (!isApiError(error)) return [];
   const unmatched: FieldProblem[] = [];
+  const codeField = CODE_FIELDS[error.code];
+  if (error.fields.length === 0 && codeField && (fields as readonly string[]).includes(codeField)) {
+    setError(codeField as Path<T>, { type: 'server', message: error.message });
+  }
   for (const problem of error.fields) {
     const field = fieldForPath(problem.path, fields);
     if (field) setError(field, { type: 'server', message: problem.message });
@@ -48,6 +55,7 @@ export function formErrorText(error: unknown, unmatched: FieldProblem[] = []): s
   if (!isApiError(error)) return 'Something went wrong. Try again.';
   if (error.status === 403) return 'Your role may not do this.';
   const extra = unmatched.map((p) => (p.path ? `${p.path}: ${p.message}` : p.message));
-  if (error.fields.length > 0 && extra.length === 0) return 'Some fields need attention; see the messages beside them.';
+  const fieldCode = error.fields.length === 0 && CODE_FIELDS[error.code];
+  if ((error.fields.length > 0 || fieldCode) && extra.length === 0) return 'Some fields need attention; see the messages beside them.';
   return [error.message, ...extra].join(' ');
 }

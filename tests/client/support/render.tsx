@@ -68,3 +68,11 @@ export async function waitFor<T>(check: () => T, timeout = 1000): Promise<T> {
     }
   }
 }
+
+export async function selectOption(select: HTMLSelectElement, value: string) {
+  await act(async () => {
+    const setter = Object.getOwnPropertyDescriptor(HTMLSelectElement.prototype, 'value')!.set!;
+    setter.call(select, value);
+    select.dispatchEvent(new Event('change', { bubbles: true }));
+  });
+}

@@ -5,6 +5,7 @@ import { ROLE_LABELS } from '../../../../shared/roles';
 import { DataTable, plainTableFeatures, type PlainTableFeatures } from '../../../components/data-table';
 import { FormMessage } from '../../../components/form';
 import { formErrorText } from '../../../lib/form-errors';
+import { isApiError } from '../../../lib/api-client';
 import { useSession } from '../../../app/session';
 import { useUpdateUser } from '../api/update-user.api';
 import { STATUS_CLASS, userStatus } from '../user-status';
@@ -59,7 +60,7 @@ export function UsersTable({ users }: { users: UserDto[] }) {
         text: active ? `${user.displayName} can sign in again.` : `${user.displayName} is deactivated and can no longer sign in.`,
       });
     } catch (error) {
-      setNotice({ kind: 'error', text: formErrorText(error) });
+      setNotice({ kind: 'error', text: isApiError(error) ? error.message : formErrorText(error) });
     }
   };
 

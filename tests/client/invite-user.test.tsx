@@ -1,0 +1,61 @@
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { queryClient } from '../../src/app/query-client';
+import { routes } from '../../src/app/router';
+import { adminMe, demoDistricts, demoUsers, fakeApi, json } from './support/fake-api';
+import { click, getButton, getByLabel, render, selectOption, typeInto, waitFor, type Rendered } from './support/render';
+
+let view: Rendered | undefined;
+afterEach(() => {
+  view?.unmount();
+  view = undefined;
+  queryClient.clear();
+  vi.unstubAllGlobals();
+});
+
+describe('invite form', () => {
+  it('when the server rejects fields, then each message shows beside its field', async () => {
+    const fetchMock = fakeApi({
+      'GET /api/me': () => json(200, adminMe),
+      'GET /api/users': () => json(200, { users: demoUsers }),
+      'GET /api/districts': () => json(200, { districts: demoDistricts }),
+      'POST /api/users': () =>
+        json(400, {
+          error: {
+            code: 'invalid_input',
+            message: 'The body is not valid: displayName is too long',
+            fields: [{ path: 'displayName', message: 'is too long' }],
+          },
+        }),
+    });
+    view = await render(
+      <QueryClientProvider client={queryClient}>
+        <RouterProvider router={createMemoryRouter(routes, { initialEntries: ['/admin/users'] })} />
+      </QueryClientProvider>,
+    );
+    const form = await waitFor(() => {
+      const f = view!.container.querySelector<HTMLFormElement>('form[aria-labelledby="invite-title"]');
+      if (!f) throw new Error('no invite form yet');
+      return f;
+    });
+
+    await typeInto(getByLabel(form, 'E-mail'), 'new.person@halvern.example');
+    await typeInto(getByLabel(form, 'Name'), 'New Person');
+    await selectOption(getByLabel<HTMLSelectElement>(form, 'Role'), 'officer');
+    await click(getButton(form, 'Send the invitation'));
+
+    await waitFor(() => expect(form.textContent).toContain('Name is too long.'));
+    const nameInput = getByLabel(form, 'Name');
+    expect(nameInput.getAttribute('aria-invalid')).toBe('true');
+    const [, init] = fetchMock.mock.calls.find(([url]) => url === '/api/users' && true)! as unknown as [string, RequestInit];
+    expect(init).toBeDefined();
+    const sent = fetchMock.mock.calls.find((c) => (c[1] as RequestInit | undefined)?.method === 'POST')!;
+    expect(JSON.parse((sent[1] as RequestInit).body as string)).toEqual({
+      email: 'new.person@halvern.example',
+      displayName: 'New Person',
+      role: 'officer',
+      districtIds: [],
+    });
+  });
+});
