@@ -13,6 +13,8 @@ import { healthRoutes } from './health/health.routes';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
 import { mountRoutes, type RouteDef } from './http/route';
 import { usersRoutes } from './users/users.routes';
+import { casesRoutes } from './cases/cases.routes';
+import { weatherRoutes } from './weather/weather.routes';
 
 export interface BroodcastApp extends Express {
   locals: Express['locals'] & { routes: RouteDef[] };
@@ -48,6 +50,8 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...authRoutes(ctx, auth),
     ...usersRoutes(ctx),
     ...districtsRoutes(ctx),
+    ...weatherRoutes(ctx),
+    ...casesRoutes(ctx),
   ];
   app.locals.routes = routes;
 

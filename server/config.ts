@@ -24,6 +24,8 @@ export const configSchema = z.object({
   SIGN_IN_LIMIT_PER_ADDRESS: z.coerce.number().int().min(1).default(50),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().min(1).default(15),
   EPI_WEEK_SYSTEM: z.enum(['mmwr', 'iso']).default('mmwr'),
+  /** Time zone of the scheduled jobs (IANA name). */
+  TIMEZONE: z.string().default('UTC'),
 });
 export type Config = z.infer<typeof configSchema>;
 

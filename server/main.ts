@@ -4,6 +4,8 @@ import { ConfigError, parseConfig } from './config';
 import { createDataSource } from './db/data-source';
 import { createLogger } from './logger';
 import { createMailer } from './mail/mailer';
+import { allJobs } from '../jobs/index';
+import { startScheduler } from '../jobs/scheduler';
 
 let config;
 try {
@@ -19,7 +21,9 @@ const logger = createLogger(config);
 const ds = createDataSource(config.DATABASE_URL, config.DATABASE_POOL_SIZE);
 await ds.initialize();
 const mailer = createMailer(config);
-const app = createApp({ config, ds, mailer, logger });
+const ctx = { config, ds, mailer, logger };
+const app = createApp(ctx);
+const scheduler = startScheduler(ctx, allJobs(config));
 const server = app.listen(config.PORT, config.HOST, () => {
   logger.info({ port: config.PORT, host: config.HOST }, 'Broodcast API listening');
 });
@@ -29,6 +33,7 @@ async function shutdown(signal: string) {
   if (stopping) return;
   stopping = true;
   logger.info({ signal }, 'shutting down');
+  scheduler.stop();
   server.close();
   mailer.close();
   await ds.destroy().catch(() => undefined);

@@ -5,6 +5,8 @@ import { DistrictPopulationEntity } from '../districts/district-population.entit
 import { DistrictEntity } from '../districts/district.entity';
 import { UserDistrictEntity } from '../users/user-district.entity';
 import { UserEntity } from '../users/user.entity';
+import { casesEntities } from '../cases/cases.entities';
+import { weatherEntities } from '../weather/weather.entities';
 
 /** Every entity, listed by hand so the DataSource works the same under tsx, vitest and the CLI. */
 export const entities = [
@@ -15,4 +17,6 @@ export const entities = [
   SessionEntity,
   OneTimeTokenEntity,
   AuditEventEntity,
+  ...weatherEntities,
+  ...casesEntities,
 ];

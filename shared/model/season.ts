@@ -90,17 +90,56 @@ export type SeasonColumns = { length: number; capacity: number } & Record<(typeo
  */
 export function createSeasonColumns(capacity: number): SeasonColumns {
   const buf = new ArrayBuffer(capacity * (8 * FLOAT_COLUMNS.length + BYTE_COLUMNS.length));
-  const out: Record<string, unknown> = { length: 0, capacity };
   let off = 0;
-  for (const k of FLOAT_COLUMNS) {
-    out[k] = new Float64Array(buf, off, capacity);
+  const f = (): Float64Array => {
+    const a = new Float64Array(buf, off, capacity);
     off += 8 * capacity;
-  }
-  for (const k of BYTE_COLUMNS) {
-    out[k] = new Uint8Array(buf, off, capacity);
+    return a;
+  };
+  const b = (): Uint8Array => {
+    const a = new Uint8Array(buf, off, capacity);
     off += capacity;
-  }
-  return out as SeasonColumns;
+    return a;
+  };
+  // One object literal with every column, so the object keeps one fixed shape (fast property access).
+  const cols: SeasonColumns = {
+    length: 0,
+    capacity,
+    degreeDays: f(),
+    cumulativeDegreeDays: f(),
+    generations: f(),
+    generationsLow: f(),
+    generationsHigh: f(),
+    daysToNextGeneration: f(),
+    daysToNextGenerationLow: f(),
+    daysToNextGenerationHigh: f(),
+    meanTemperature: f(),
+    gonotrophicCycleDays: f(),
+    gonotrophicCycleDaysLow: f(),
+    gonotrophicCycleDaysHigh: f(),
+    bitingRate: f(),
+    survival: f(),
+    eipDays: f(),
+    eipDaysLow: f(),
+    eipDaysHigh: f(),
+    survivalThroughEip: f(),
+    survivalThroughEipLow: f(),
+    survivalThroughEipHigh: f(),
+    relativeVectorialCapacity: f(),
+    relativeVectorialCapacityLow: f(),
+    relativeVectorialCapacityHigh: f(),
+    eipShareInLifetime: f(),
+    eipShareInLifetimeLow: f(),
+    eipShareInLifetimeHigh: f(),
+    dayLengthHours: f(),
+    vapourPressureDeficit: f(),
+    complete: b(),
+    sinceBiofix: b(),
+    nextTminFallback: b(),
+    seasonOpen: b(),
+    filled: b(),
+  };
+  return cols;
 }
 
 /** Default biofix of a profile in a given year, YYYY-MM-DD (29 February falls back to 28 in common years). */
@@ -128,6 +167,40 @@ export function computeSeasonColumns(
   const o = out ?? createSeasonColumns(n);
   if (o.capacity < n) throw new RangeError(`output columns hold ${o.capacity} days, ${n} needed`);
   o.length = n;
+  // Columns as locals: one property lookup per call, none per day.
+  const cDegreeDays = o.degreeDays;
+  const cMeanTemperature = o.meanTemperature;
+  const cBitingRate = o.bitingRate;
+  const cComplete = o.complete;
+  const cCumulativeDegreeDays = o.cumulativeDegreeDays;
+  const cDayLengthHours = o.dayLengthHours;
+  const cDaysToNextGeneration = o.daysToNextGeneration;
+  const cDaysToNextGenerationHigh = o.daysToNextGenerationHigh;
+  const cDaysToNextGenerationLow = o.daysToNextGenerationLow;
+  const cEipDays = o.eipDays;
+  const cEipDaysHigh = o.eipDaysHigh;
+  const cEipDaysLow = o.eipDaysLow;
+  const cEipShareInLifetime = o.eipShareInLifetime;
+  const cEipShareInLifetimeHigh = o.eipShareInLifetimeHigh;
+  const cEipShareInLifetimeLow = o.eipShareInLifetimeLow;
+  const cFilled = o.filled;
+  const cGenerations = o.generations;
+  const cGenerationsHigh = o.generationsHigh;
+  const cGenerationsLow = o.generationsLow;
+  const cGonotrophicCycleDays = o.gonotrophicCycleDays;
+  const cGonotrophicCycleDaysHigh = o.gonotrophicCycleDaysHigh;
+  const cGonotrophicCycleDaysLow = o.gonotrophicCycleDaysLow;
+  const cNextTminFallback = o.nextTminFallback;
+  const cRelativeVectorialCapacity = o.relativeVectorialCapacity;
+  const cRelativeVectorialCapacityHigh = o.relativeVectorialCapacityHigh;
+  const cRelativeVectorialCapacityLow = o.relativeVectorialCapacityLow;
+  const cSeasonOpen = o.seasonOpen;
+  const cSinceBiofix = o.sinceBiofix;
+  const cSurvival = o.survival;
+  const cSurvivalThroughEip = o.survivalThroughEip;
+  const cSurvivalThroughEipHigh = o.survivalThroughEipHigh;
+  const cSurvivalThroughEipLow = o.survivalThroughEipLow;
+  const cVapourPressureDeficit = o.vapourPressureDeficit;
 
   const startDay = parseIsoDate(input.startDate);
   const biofixDay = options.biofix === undefined ? parseIsoDate(defaultBiofix(cp.profile, dateParts(startDay).year)) : parseIsoDate(options.biofix);
@@ -155,8 +228,6 @@ export function computeSeasonColumns(
   let doy = startDay - dayNumber(year, 1, 1) + 1;
   let yearLen = isLeapYear(year) ? 366 : 365;
 
-  const ddCol = o.degreeDays;
-  const tmCol = o.meanTemperature;
   let sumT = 0;
   let cntT = 0;
   let sumDD = 0;
@@ -171,10 +242,10 @@ export function computeSeasonColumns(
     const tmean = (lo + hi) / 2; // NaN on a gap
     const nextTmin = i + 1 < n ? tmin[i + 1] : Number.NaN;
     const dd = degreeDaysFast(method, cutoff, lower, upper, lo, hi, nextTmin);
-    ddCol[i] = dd;
-    o.nextTminFallback[i] = isDouble && dd === dd && nextTmin !== nextTmin ? 1 : 0;
-    o.filled[i] = filled !== null && filled[i] ? 1 : 0;
-    o.vapourPressureDeficit[i] = rh !== null && tmean === tmean ? saturationVapourPressure(tmean) * (1 - rh[i] / 100) : Number.NaN;
+    cDegreeDays[i] = dd;
+    cNextTminFallback[i] = isDouble && dd === dd && nextTmin !== nextTmin ? 1 : 0;
+    cFilled[i] = filled !== null && filled[i] ? 1 : 0;
+    cVapourPressureDeficit[i] = rh !== null && tmean === tmean ? saturationVapourPressure(tmean) * (1 - rh[i] / 100) : Number.NaN;
 
     // Trailing windows (known days only).
     if (tmean === tmean) {
@@ -193,7 +264,7 @@ export function computeSeasonColumns(
         sumT -= m;
         cntT--;
       }
-      const dj = ddCol[j];
+      const dj = cDegreeDays[j];
       if (dj === dj) {
         sumDD -= dj;
         cntDD--;
@@ -201,43 +272,43 @@ export function computeSeasonColumns(
     }
     const tbar = cntT > 0 ? sumT / cntT : Number.NaN;
     const ddbar = cntDD > 0 ? sumDD / cntDD : Number.NaN;
-    tmCol[i] = tbar;
+    cMeanTemperature[i] = tbar;
 
     // Accumulation from the biofix.
     const since = i >= biofixIndex;
-    o.sinceBiofix[i] = since ? 1 : 0;
+    cSinceBiofix[i] = since ? 1 : 0;
     if (since) {
       if (dd === dd) cum += dd;
       else complete = 0;
     }
-    o.cumulativeDegreeDays[i] = since ? cum : 0;
-    o.complete[i] = complete;
+    cCumulativeDegreeDays[i] = since ? cum : 0;
+    cComplete[i] = complete;
 
     // Generations.
     const g1 = Math.floor(cum / k1);
-    o.generations[i] = g1;
-    o.daysToNextGeneration[i] = ddbar > 0 ? (k1 * (g1 + 1) - cum) / ddbar : Number.NaN;
+    cGenerations[i] = g1;
+    cDaysToNextGeneration[i] = ddbar > 0 ? (k1 * (g1 + 1) - cum) / ddbar : Number.NaN;
     if (ranges) {
       const g0 = Math.floor(cum / k0);
       const g2 = Math.floor(cum / k2);
-      o.generationsLow[i] = g0 < g2 ? g0 : g2;
-      o.generationsHigh[i] = g0 < g2 ? g2 : g0;
+      cGenerationsLow[i] = g0 < g2 ? g0 : g2;
+      cGenerationsHigh[i] = g0 < g2 ? g2 : g0;
       const d0 = ddbar > 0 ? (k0 * (g0 + 1) - cum) / ddbar : Number.NaN;
       const d2 = ddbar > 0 ? (k2 * (g2 + 1) - cum) / ddbar : Number.NaN;
-      o.daysToNextGenerationLow[i] = Math.min(d0, d2);
-      o.daysToNextGenerationHigh[i] = Math.max(d0, d2);
+      cDaysToNextGenerationLow[i] = Math.min(d0, d2);
+      cDaysToNextGenerationHigh[i] = Math.max(d0, d2);
     } else {
-      o.generationsLow[i] = g1;
-      o.generationsHigh[i] = g1;
-      o.daysToNextGenerationLow[i] = o.daysToNextGeneration[i];
-      o.daysToNextGenerationHigh[i] = o.daysToNextGeneration[i];
+      cGenerationsLow[i] = g1;
+      cGenerationsHigh[i] = g1;
+      cDaysToNextGenerationLow[i] = cDaysToNextGeneration[i];
+      cDaysToNextGenerationHigh[i] = cDaysToNextGeneration[i];
     }
 
     // Day length and season window.
     let open = 1;
     if (wantDayLength) {
       const dl = dayLengthFast(lat, doy, win !== null ? win.definitionDeg : 0.8333, 0.39795);
-      o.dayLengthHours[i] = dl;
+      cDayLengthHours[i] = dl;
       if (win !== null) {
         if (tbar === tbar) {
           if (warm) {
@@ -247,9 +318,9 @@ export function computeSeasonColumns(
         open = warm && dl >= win.criticalPhotoperiod ? 1 : 0;
       }
     } else {
-      o.dayLengthHours[i] = Number.NaN;
+      cDayLengthHours[i] = Number.NaN;
     }
-    o.seasonOpen[i] = open;
+    cSeasonOpen[i] = open;
     if (++doy > yearLen) {
       doy = 1;
       year++;
@@ -259,44 +330,44 @@ export function computeSeasonColumns(
     // Traits at the trailing mean temperature.
     if (tbar === tbar) {
       const l = cp.lifespanDays(tbar);
-      o.survival[i] = l > 0 ? Math.exp(-1 / l) : 0;
-      o.bitingRate[i] = cp.bitingRate(tbar, 1);
+      cSurvival[i] = l > 0 ? Math.exp(-1 / l) : 0;
+      cBitingRate[i] = cp.bitingRate(tbar, 1);
       const u1 = cp.gonotrophicCycleDays(tbar, 1);
-      o.gonotrophicCycleDays[i] = u1 < Infinity ? u1 : Number.NaN;
+      cGonotrophicCycleDays[i] = u1 < Infinity ? u1 : Number.NaN;
       traitVariant(cp, tbar, l, 1, open, vcOpt, S1);
-      o.eipDays[i] = S1[0];
-      o.survivalThroughEip[i] = S1[1];
-      o.relativeVectorialCapacity[i] = S1[2];
-      o.eipShareInLifetime[i] = S1[3];
+      cEipDays[i] = S1[0];
+      cSurvivalThroughEip[i] = S1[1];
+      cRelativeVectorialCapacity[i] = S1[2];
+      cEipShareInLifetime[i] = S1[3];
       if (ranges) {
         const u0 = cp.gonotrophicCycleDays(tbar, 0);
         const u2 = cp.gonotrophicCycleDays(tbar, 2);
-        o.gonotrophicCycleDaysLow[i] = u2 < Infinity ? u2 : Number.NaN;
-        o.gonotrophicCycleDaysHigh[i] = u0 < Infinity ? u0 : Number.NaN;
+        cGonotrophicCycleDaysLow[i] = u2 < Infinity ? u2 : Number.NaN;
+        cGonotrophicCycleDaysHigh[i] = u0 < Infinity ? u0 : Number.NaN;
         traitVariant(cp, tbar, l, 0, open, vcOpt, S0);
         traitVariant(cp, tbar, l, 2, open, vcOpt, S2);
-        o.eipDaysLow[i] = Math.min(S0[0], S2[0]);
-        o.eipDaysHigh[i] = Math.max(S0[0], S2[0]);
-        o.survivalThroughEipLow[i] = Math.min(S0[1], S2[1]);
-        o.survivalThroughEipHigh[i] = Math.max(S0[1], S2[1]);
-        o.relativeVectorialCapacityLow[i] = Math.min(S0[2], S2[2]);
-        o.relativeVectorialCapacityHigh[i] = Math.max(S0[2], S2[2]);
-        o.eipShareInLifetimeLow[i] = Math.min(S0[3], S2[3]);
-        o.eipShareInLifetimeHigh[i] = Math.max(S0[3], S2[3]);
+        cEipDaysLow[i] = Math.min(S0[0], S2[0]);
+        cEipDaysHigh[i] = Math.max(S0[0], S2[0]);
+        cSurvivalThroughEipLow[i] = Math.min(S0[1], S2[1]);
+        cSurvivalThroughEipHigh[i] = Math.max(S0[1], S2[1]);
+        cRelativeVectorialCapacityLow[i] = Math.min(S0[2], S2[2]);
+        cRelativeVectorialCapacityHigh[i] = Math.max(S0[2], S2[2]);
+        cEipShareInLifetimeLow[i] = Math.min(S0[3], S2[3]);
+        cEipShareInLifetimeHigh[i] = Math.max(S0[3], S2[3]);
       } else {
-        o.gonotrophicCycleDaysLow[i] = o.gonotrophicCycleDaysHigh[i] = o.gonotrophicCycleDays[i];
-        o.eipDaysLow[i] = o.eipDaysHigh[i] = S1[0];
-        o.survivalThroughEipLow[i] = o.survivalThroughEipHigh[i] = S1[1];
-        o.relativeVectorialCapacityLow[i] = o.relativeVectorialCapacityHigh[i] = S1[2];
-        o.eipShareInLifetimeLow[i] = o.eipShareInLifetimeHigh[i] = S1[3];
+        cGonotrophicCycleDaysLow[i] = cGonotrophicCycleDaysHigh[i] = cGonotrophicCycleDays[i];
+        cEipDaysLow[i] = cEipDaysHigh[i] = S1[0];
+        cSurvivalThroughEipLow[i] = cSurvivalThroughEipHigh[i] = S1[1];
+        cRelativeVectorialCapacityLow[i] = cRelativeVectorialCapacityHigh[i] = S1[2];
+        cEipShareInLifetimeLow[i] = cEipShareInLifetimeHigh[i] = S1[3];
       }
     } else {
-      o.survival[i] = o.bitingRate[i] = Number.NaN;
-      o.gonotrophicCycleDays[i] = o.gonotrophicCycleDaysLow[i] = o.gonotrophicCycleDaysHigh[i] = Number.NaN;
-      o.eipDays[i] = o.eipDaysLow[i] = o.eipDaysHigh[i] = Number.NaN;
-      o.survivalThroughEip[i] = o.survivalThroughEipLow[i] = o.survivalThroughEipHigh[i] = Number.NaN;
-      o.relativeVectorialCapacity[i] = o.relativeVectorialCapacityLow[i] = o.relativeVectorialCapacityHigh[i] = Number.NaN;
-      o.eipShareInLifetime[i] = o.eipShareInLifetimeLow[i] = o.eipShareInLifetimeHigh[i] = Number.NaN;
+      cSurvival[i] = cBitingRate[i] = Number.NaN;
+      cGonotrophicCycleDays[i] = cGonotrophicCycleDaysLow[i] = cGonotrophicCycleDaysHigh[i] = Number.NaN;
+      cEipDays[i] = cEipDaysLow[i] = cEipDaysHigh[i] = Number.NaN;
+      cSurvivalThroughEip[i] = cSurvivalThroughEipLow[i] = cSurvivalThroughEipHigh[i] = Number.NaN;
+      cRelativeVectorialCapacity[i] = cRelativeVectorialCapacityLow[i] = cRelativeVectorialCapacityHigh[i] = Number.NaN;
+      cEipShareInLifetime[i] = cEipShareInLifetimeLow[i] = cEipShareInLifetimeHigh[i] = Number.NaN;
     }
   }
   return o;

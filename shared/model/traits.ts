@@ -78,7 +78,17 @@ export interface CompiledProfile {
   /** Degree-days per generation for variants 0, 1, 2. */
   readonly degreeDaysPerGeneration: readonly [number, number, number];
   readonly recentWindowDays: number;
+  /** True when any ranged parameter has a low or high (development or traits). */
   readonly hasRanges: boolean;
+  /** True when a ranged parameter changes the traits (gonotrophic cycle or EIP), not only development. */
+  readonly hasTraitRanges: boolean;
+  /**
+   * Trait table for the season path: for each variant (null when it equals central), TRAIT_FIELDS
+   * values at T = from + k·step, k = 0…size−1, interpolated linearly (see traitsFromTable).
+   */
+  readonly table: { from: number; step: number; size: number; data: [Float64Array | null, Float64Array, Float64Array | null] };
+  /** Exact traits at t for variant v into out (TRAIT_FIELDS order), the window taken as open. */
+  evaluate(t: number, v: Variant, out: Float64Array): void;
   readonly window: SeasonWindowRule | null;
   gonotrophicCycleDays(t: number, v: Variant): number;
   bitingRate(t: number, v: Variant): number;
@@ -95,6 +105,43 @@ export interface CompiledProfile {
 
 const cache = new WeakMap<Profile, CompiledProfile>();
 
+/** Fields of a trait row: biting rate a, 1/gonotrophic cycle, survival p, 1/EIP, pⁿ, relative VC, EIP share. */
+export const TRAIT_FIELDS = ['bitingRate', 'gonotrophicRate', 'survival', 'eipRate', 'survivalThroughEip', 'relativeVectorialCapacity', 'eipShareInLifetime'] as const;
+export const T_A = 0;
+export const T_GONO_RATE = 1;
+export const T_P = 2;
+export const T_EIP_RATE = 3;
+export const T_PN = 4;
+export const T_VC = 5;
+export const T_SHARE = 6;
+export const TRAIT_COUNT = 7;
+
+/**
+ * Temperature grid of the trait table (°C). Rates (1/U, 1/n) are tabulated rather than durations, so
+ * every tabulated quantity is continuous and linear interpolation stays within about 1e-6 (relative)
+ * of the exact value; outside the grid the exact functions are used.
+ */
+export const TRAIT_TABLE = { from: -40, to: 60, step: 0.01 } as const;
+
+/**
+ * Traits at t for variant v from the compiled table (exact outside the grid), into out (TRAIT_FIELDS order).
+ */
+export function traitsFromTable(cp: CompiledProfile, t: number, v: Variant, out: Float64Array): void {
+  const data = cp.table.data[v] ?? cp.table.data[1];
+  const x = (t - cp.table.from) / cp.table.step;
+  const k = Math.floor(x);
+  if (!(k >= 0 && k < cp.table.size - 1)) {
+    cp.evaluate(t, cp.table.data[v] ? v : 1, out);
+    return;
+  }
+  const w = x - k;
+  const b = k * TRAIT_COUNT;
+  for (let j = 0; j < TRAIT_COUNT; j++) {
+    const y0 = data[b + j];
+    out[j] = y0 + w * (data[b + TRAIT_COUNT + j] - y0);
+  }
+}
+
 /** Temperature grid over which the optimum is searched (°C). */
 export const OPTIMUM_GRID = { from: -10, to: 50, step: 0.01 } as const;
 
@@ -104,7 +151,8 @@ export function compileProfile(profile: Profile): CompiledProfile {
   if (hit) return hit;
   const dev = profile.development;
   const kGen = slowFast(dev.degreeDaysPerGeneration);
-  let hasRanges = kGen[0] !== kGen[2];
+  const devRanges = kGen[0] !== kGen[2];
+  let hasRanges = false; // trait ranges
 
   // Gonotrophic cycle and biting rate.
   const g = profile.gonotrophicCycle;
@@ -197,6 +245,43 @@ export function compileProfile(profile: Profile): CompiledProfile {
   const tOpt = (lo + hi) / 2;
   const vOpt = Math.max(best, vcRaw(tOpt, 1));
 
+  const evaluate = (t: number, v: Variant, out: Float64Array): void => {
+    const l = lifespan(t);
+    const a = bite(t, v);
+    const u = gono(t, v);
+    const n = eip(t, v);
+    out[T_A] = a;
+    out[T_GONO_RATE] = u < Infinity && u > 0 ? 1 / u : 0;
+    out[T_P] = l > 0 ? Math.exp(-1 / l) : 0;
+    out[T_EIP_RATE] = n < Infinity && n > 0 ? 1 / n : 0;
+    if (l > 0 && n < Infinity) {
+      const e = Math.exp(-n / l);
+      out[T_PN] = e;
+      out[T_VC] = (a * a * l * e) / vOpt;
+      out[T_SHARE] = l >= n ? 1 : l / n;
+    } else {
+      out[T_PN] = 0;
+      out[T_VC] = 0;
+      out[T_SHARE] = 0;
+    }
+  };
+  const size = Math.round((TRAIT_TABLE.to - TRAIT_TABLE.from) / TRAIT_TABLE.step) + 1;
+  const buildTable = (v: Variant): Float64Array => {
+    const data = new Float64Array(size * TRAIT_COUNT);
+    const row = new Float64Array(TRAIT_COUNT);
+    for (let k = 0; k < size; k++) {
+      evaluate(TRAIT_TABLE.from + k * TRAIT_TABLE.step, v, row);
+      data.set(row, k * TRAIT_COUNT);
+    }
+    return data;
+  };
+  const table = {
+    from: TRAIT_TABLE.from,
+    step: TRAIT_TABLE.step,
+    size,
+    data: [hasRanges ? buildTable(0) : null, buildTable(1), hasRanges ? buildTable(2) : null] as [Float64Array | null, Float64Array, Float64Array | null],
+  };
+
   const w = profile.seasonWindow;
   const window: SeasonWindowRule | null =
     w.model === 'none'
@@ -217,7 +302,10 @@ export function compileProfile(profile: Profile): CompiledProfile {
     upper: dev.upperThreshold.value,
     degreeDaysPerGeneration: kGen,
     recentWindowDays: profile.recentWindowDays.value,
-    hasRanges,
+    hasRanges: hasRanges || devRanges,
+    hasTraitRanges: hasRanges,
+    table,
+    evaluate,
     window,
     gonotrophicCycleDays: gono,
     bitingRate: bite,

@@ -15,7 +15,7 @@ export function AppLayout() {
   if (me.isError && isUnauthorized(me.error)) {
     return <Navigate to={signInPath(location.pathname + location.search)} replace />;
   }
-  if (!me.data) return me.isError ? <RouteErrorPage /> : <LoadingScreen />;
+  if (!me.data) return me.isError ? <RouteErrorPage error={me.error} /> : <LoadingScreen />;
 
   return (
     <SessionProvider me={me.data}>

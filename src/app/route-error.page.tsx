@@ -2,8 +2,9 @@ import { isRouteErrorResponse, useRouteError } from 'react-router-dom';
 import { isApiError } from '../lib/api-client';
 
 /** The last resort of the router: a loader or a screen failed in a way nothing else caught. */
-export function RouteErrorPage() {
-  const error = useRouteError();
+export function RouteErrorPage({ error: given }: { error?: unknown } = {}) {
+  const routeError = useRouteError();
+  const error = given ?? routeError;
   const message = isApiError(error)
     ? error.message
     : isRouteErrorResponse(error)

@@ -3,6 +3,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROLES, type Role } from '../../shared/roles';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { makeDistrict, makeUser, signedInAgent } from '../support/factories';
+import { casesAccess } from './access/cases.access';
+import { foundationAccess, signOutAccess } from './access/foundation.access';
+import { weatherAccess } from './access/weather.access';
 
 /**
  * Every API route × every role (and no session). The expected access is written here, from
@@ -10,29 +13,11 @@ import { makeDistrict, makeUser, signedInAgent } from '../support/factories';
  * route whose declared access differs from the table fails too.
  */
 type Who = Role | 'anonymous';
-const ALL_SIGNED_IN: Who[] = [...ROLES];
 const EVERYBODY: Who[] = ['anonymous', ...ROLES];
 
-const EXPECTED: Record<string, Who[]> = {
-  'GET /health': EVERYBODY,
-  'POST /auth/sign-in': EVERYBODY,
-  'GET /me': ALL_SIGNED_IN,
-  'POST /auth/password-reset': EVERYBODY,
-  'POST /auth/password-reset/confirm': EVERYBODY,
-  'POST /auth/invite/accept': EVERYBODY,
-  'GET /users': ['admin'],
-  'POST /users': ['admin'],
-  'PATCH /users/:id': ['admin'],
-  'GET /districts': ALL_SIGNED_IN,
-  'GET /districts/boundaries': ALL_SIGNED_IN,
-  'GET /districts/:id': ALL_SIGNED_IN,
-  'POST /districts': ['admin'],
-  'PATCH /districts/:id': ['admin'],
-  'PUT /districts/:id/populations': ['admin'],
-  'PUT /districts/:id/boundary': ['admin'],
-  // Last: it ends the sessions the rows above use.
-  'POST /auth/sign-out': EVERYBODY,
-};
+// One table per feature (tests/api/access/*.access.ts), merged; the sign-out row goes last because it
+// ends the sessions the other rows use.
+const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...signOutAccess };
 
 let t: TestApp;
 const agents = new Map<Who, ReturnType<typeof request.agent>>();

@@ -2,4 +2,8 @@
 // against the dev database (see DEVELOPERS.md), review the SQL, then add the class here.
 import { Foundation1796164188542 } from './1796164188542-Foundation';
 
-export const migrations = [Foundation1796164188542];
+import { casesMigrations } from '../../cases/cases.migrations';
+import { weatherMigrations } from '../../weather/weather.migrations';
+
+// Each feature keeps its own list; TypeORM runs them all in timestamp order.
+export const migrations: Function[] = [Foundation1796164188542, ...weatherMigrations, ...casesMigrations];

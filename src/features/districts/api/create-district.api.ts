@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { districtDto, type districtCreateBody } from '../../../../shared/api/districts.schema';
 import { api } from '../../../lib/api-client';
-import { afterDistrictChange } from './district-mutation';
+import { afterDistrictChange } from './district-cache';
 
 export type DistrictCreateBody = z.output<typeof districtCreateBody>;
 

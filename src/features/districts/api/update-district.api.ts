@@ -2,7 +2,7 @@ import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { z } from 'zod';
 import { districtDto, type districtUpdateBody } from '../../../../shared/api/districts.schema';
 import { api } from '../../../lib/api-client';
-import { afterDistrictChange } from './district-mutation';
+import { afterDistrictChange } from './district-cache';
 
 export type DistrictUpdateBody = z.output<typeof districtUpdateBody>;
 export type UpdateDistrictVariables = { id: string; changes: DistrictUpdateBody };

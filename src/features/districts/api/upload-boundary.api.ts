@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { districtDto } from '../../../../shared/api/districts.schema';
 import { api } from '../../../lib/api-client';
-import { afterDistrictChange } from './district-mutation';
+import { afterDistrictChange } from './district-cache';
 
 export type UploadBoundaryVariables = { id: string; geojson: unknown };
 

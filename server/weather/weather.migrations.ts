@@ -1,0 +1,2 @@
+/** Reviewed migrations of the weather feature (TypeORM orders all migrations by their timestamp). */
+export const weatherMigrations: Function[] = [];

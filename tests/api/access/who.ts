@@ -1,0 +1,7 @@
+import { ROLES, type Role } from '../../../shared/roles';
+
+/** Who may call a route, as DESIGN.md §2 says; the route × role test checks the app against these tables. */
+export type Who = Role | 'anonymous';
+export type AccessTable = Record<string, Who[]>;
+export const ALL_SIGNED_IN: Who[] = [...ROLES];
+export const EVERYBODY: Who[] = ['anonymous', ...ROLES];
