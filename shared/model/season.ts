@@ -1,5 +1,5 @@
 import type { Profile } from './profile.schema';
-import { compileProfile, type CompiledProfile } from './traits';
+import { compileProfile, traitsFromTable, TRAIT_COUNT, T_A, T_EIP_RATE, T_GONO_RATE, T_P, T_PN, T_SHARE, T_VC, type CompiledProfile } from './traits';
 import { degreeDaysFast } from './degree-days';
 import { dayLengthFast } from './day-length';
 import { dateParts, dayNumber, formatIsoDate, isLeapYear, parseIsoDate } from './dates';
@@ -19,7 +19,8 @@ import { saturationVapourPressure } from './humidity';
  *    daily degree-days (over the known days of the profile's recent window);
  *  - the traits (gonotrophic cycle, biting rate, survival p, EIP n, pⁿ, relative vectorial capacity,
  *    share of the EIP completed within the expected life 1/(−ln p)) at the trailing mean of the daily
- *    mean temperature (Tmin + Tmax)/2 over the recent window;
+ *    mean temperature (Tmin + Tmax)/2 over the recent window, read from the profile's trait table
+ *    (0.01 °C grid, linear interpolation, ≈1e-6 relative of the exact functions);
  *  - the season window (diapause profiles) from day length and the trailing mean temperature with
  *    hysteresis; while it is closed the relative vectorial capacity is 0 (diapausing females do not
  *    seek hosts); the thermal traits are still reported.
@@ -217,11 +218,11 @@ export function computeSeasonColumns(
   const k0 = cp.degreeDaysPerGeneration[0];
   const k1 = cp.degreeDaysPerGeneration[1];
   const k2 = cp.degreeDaysPerGeneration[2];
-  const ranges = cp.hasRanges;
+  const ranges = k0 !== k2;
+  const traitRanges = cp.hasTraitRanges;
   const win = cp.window;
   const wantDayLength = win !== null || options.dayLength === true;
   const W = cp.recentWindowDays;
-  const vcOpt = cp.optimum.value;
 
   // Day-of-year walker for day length.
   let { year } = dateParts(startDay);
@@ -327,39 +328,47 @@ export function computeSeasonColumns(
       yearLen = isLeapYear(year) ? 366 : 365;
     }
 
-    // Traits at the trailing mean temperature.
+    // Traits at the trailing mean temperature (from the profile's trait table; see traits.ts).
     if (tbar === tbar) {
-      const l = cp.lifespanDays(tbar);
-      cSurvival[i] = l > 0 ? Math.exp(-1 / l) : 0;
-      cBitingRate[i] = cp.bitingRate(tbar, 1);
-      const u1 = cp.gonotrophicCycleDays(tbar, 1);
-      cGonotrophicCycleDays[i] = u1 < Infinity ? u1 : Number.NaN;
-      traitVariant(cp, tbar, l, 1, open, vcOpt, S1);
-      cEipDays[i] = S1[0];
-      cSurvivalThroughEip[i] = S1[1];
-      cRelativeVectorialCapacity[i] = S1[2];
-      cEipShareInLifetime[i] = S1[3];
-      if (ranges) {
-        const u0 = cp.gonotrophicCycleDays(tbar, 0);
-        const u2 = cp.gonotrophicCycleDays(tbar, 2);
-        cGonotrophicCycleDaysLow[i] = u2 < Infinity ? u2 : Number.NaN;
-        cGonotrophicCycleDaysHigh[i] = u0 < Infinity ? u0 : Number.NaN;
-        traitVariant(cp, tbar, l, 0, open, vcOpt, S0);
-        traitVariant(cp, tbar, l, 2, open, vcOpt, S2);
-        cEipDaysLow[i] = Math.min(S0[0], S2[0]);
-        cEipDaysHigh[i] = Math.max(S0[0], S2[0]);
-        cSurvivalThroughEipLow[i] = Math.min(S0[1], S2[1]);
-        cSurvivalThroughEipHigh[i] = Math.max(S0[1], S2[1]);
-        cRelativeVectorialCapacityLow[i] = Math.min(S0[2], S2[2]);
-        cRelativeVectorialCapacityHigh[i] = Math.max(S0[2], S2[2]);
-        cEipShareInLifetimeLow[i] = Math.min(S0[3], S2[3]);
-        cEipShareInLifetimeHigh[i] = Math.max(S0[3], S2[3]);
+      traitsFromTable(cp, tbar, 1, S1);
+      cBitingRate[i] = S1[T_A];
+      cSurvival[i] = S1[T_P];
+      const u1 = S1[T_GONO_RATE] > 0 ? 1 / S1[T_GONO_RATE] : Number.NaN;
+      const n1 = S1[T_EIP_RATE] > 0 ? 1 / S1[T_EIP_RATE] : Number.NaN;
+      const vc1 = open ? S1[T_VC] : 0;
+      cGonotrophicCycleDays[i] = u1;
+      cEipDays[i] = n1;
+      cSurvivalThroughEip[i] = S1[T_PN];
+      cRelativeVectorialCapacity[i] = vc1;
+      cEipShareInLifetime[i] = S1[T_SHARE];
+      if (traitRanges) {
+        traitsFromTable(cp, tbar, 0, S0);
+        traitsFromTable(cp, tbar, 2, S2);
+        // Rates: the larger rate is the shorter duration.
+        const g0 = S0[T_GONO_RATE];
+        const g2 = S2[T_GONO_RATE];
+        const gHi = g0 > g2 ? g0 : g2;
+        const gLo = g0 > g2 ? g2 : g0;
+        cGonotrophicCycleDaysLow[i] = gHi > 0 ? 1 / gHi : Number.NaN;
+        cGonotrophicCycleDaysHigh[i] = gLo > 0 ? 1 / gLo : Number.NaN;
+        const e0 = S0[T_EIP_RATE];
+        const e2 = S2[T_EIP_RATE];
+        const eHi = e0 > e2 ? e0 : e2;
+        const eLo = e0 > e2 ? e2 : e0;
+        cEipDaysLow[i] = eHi > 0 ? 1 / eHi : Number.NaN;
+        cEipDaysHigh[i] = eLo > 0 ? 1 / eLo : Number.NaN;
+        cSurvivalThroughEipLow[i] = S0[T_PN] < S2[T_PN] ? S0[T_PN] : S2[T_PN];
+        cSurvivalThroughEipHigh[i] = S0[T_PN] < S2[T_PN] ? S2[T_PN] : S0[T_PN];
+        cRelativeVectorialCapacityLow[i] = open ? (S0[T_VC] < S2[T_VC] ? S0[T_VC] : S2[T_VC]) : 0;
+        cRelativeVectorialCapacityHigh[i] = open ? (S0[T_VC] < S2[T_VC] ? S2[T_VC] : S0[T_VC]) : 0;
+        cEipShareInLifetimeLow[i] = S0[T_SHARE] < S2[T_SHARE] ? S0[T_SHARE] : S2[T_SHARE];
+        cEipShareInLifetimeHigh[i] = S0[T_SHARE] < S2[T_SHARE] ? S2[T_SHARE] : S0[T_SHARE];
       } else {
-        cGonotrophicCycleDaysLow[i] = cGonotrophicCycleDaysHigh[i] = cGonotrophicCycleDays[i];
-        cEipDaysLow[i] = cEipDaysHigh[i] = S1[0];
-        cSurvivalThroughEipLow[i] = cSurvivalThroughEipHigh[i] = S1[1];
-        cRelativeVectorialCapacityLow[i] = cRelativeVectorialCapacityHigh[i] = S1[2];
-        cEipShareInLifetimeLow[i] = cEipShareInLifetimeHigh[i] = S1[3];
+        cGonotrophicCycleDaysLow[i] = cGonotrophicCycleDaysHigh[i] = u1;
+        cEipDaysLow[i] = cEipDaysHigh[i] = n1;
+        cSurvivalThroughEipLow[i] = cSurvivalThroughEipHigh[i] = S1[T_PN];
+        cRelativeVectorialCapacityLow[i] = cRelativeVectorialCapacityHigh[i] = vc1;
+        cEipShareInLifetimeLow[i] = cEipShareInLifetimeHigh[i] = S1[T_SHARE];
       }
     } else {
       cSurvival[i] = cBitingRate[i] = Number.NaN;
@@ -373,27 +382,10 @@ export function computeSeasonColumns(
   return o;
 }
 
-/** Scratch space for one variant's [EIP days, pⁿ, relative VC, EIP share] (module level: no per-day allocation). */
-const S0 = new Float64Array(4);
-const S1 = new Float64Array(4);
-const S2 = new Float64Array(4);
-
-function traitVariant(cp: CompiledProfile, t: number, l: number, v: 0 | 1 | 2, open: number, vcOpt: number, s: Float64Array): void {
-  const n = cp.eipDays(t, v);
-  if (n < Infinity && l > 0) {
-    const e = Math.exp(-n / l); // pⁿ with p = exp(−1/L)
-    const a = cp.bitingRate(t, v);
-    s[0] = n;
-    s[1] = e;
-    s[2] = open ? (a * a * l * e) / vcOpt : 0;
-    s[3] = l >= n ? 1 : l / n;
-  } else {
-    s[0] = n < Infinity ? n : Number.NaN;
-    s[1] = 0;
-    s[2] = 0;
-    s[3] = 0;
-  }
-}
+/** Scratch rows for the three variants (module level: no per-day allocation). */
+const S0 = new Float64Array(TRAIT_COUNT);
+const S1 = new Float64Array(TRAIT_COUNT);
+const S2 = new Float64Array(TRAIT_COUNT);
 
 // ---------------------------------------------------------------------------------------------
 // Object API
