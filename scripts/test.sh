@@ -6,4 +6,11 @@ source scripts/lib/prepare.sh
 ensure_node_modules
 ensure_postgres
 ensure_chromium
+# One test run at a time per checkout: runs share the test cluster and the mail catcher's ports.
+mkdir -p .local
+exec 9>.local/test.lock
+if ! flock -n 9; then
+  echo "› another npm test is running in this checkout; waiting for it"
+  flock 9
+fi
 exec node_modules/.bin/tsx scripts/test.ts "$@"

@@ -43,6 +43,36 @@ export function definitionAngle(definition: DayLengthDefinition | number | undef
   return p;
 }
 
+/** sin and cos of the declination φ for J = 1…366, per sin(tilt) (cached; the season path reads it per day). */
+const declinationCache = new Map<number, Float64Array>();
+export function declinationTable(sinTilt: number): Float64Array {
+  let t = declinationCache.get(sinTilt);
+  if (!t) {
+    t = new Float64Array(2 * 367);
+    for (let j = 1; j <= 366; j++) {
+      const theta = 0.2163108 + 2 * Math.atan(0.9671396 * Math.tan(0.0086 * (j - 186)));
+      const phi = Math.asin(sinTilt * Math.cos(theta));
+      t[2 * j] = Math.sin(phi);
+      t[2 * j + 1] = Math.cos(phi);
+    }
+    if (declinationCache.size > 16) declinationCache.clear();
+    declinationCache.set(sinTilt, t);
+  }
+  return t;
+}
+
+/**
+ * Day length (hours) from precomputed parts: sin p, sin L, cos L and the declination table row of J.
+ * Same formula as dayLengthFast.
+ */
+export function dayLengthFromParts(sinP: number, sinLat: number, cosLat: number, sinPhi: number, cosPhi: number): number {
+  let x = (sinP + sinLat * sinPhi) / (cosLat * cosPhi);
+  if (x > 1) x = 1;
+  else if (x < -1) x = -1;
+  else if (x !== x) x = 0;
+  return 24 - (24 / Math.PI) * Math.acos(x);
+}
+
 /** Fast path: day length in hours for day-of-year J (1 = 1 January), p in degrees, sin(tilt). */
 export function dayLengthFast(latDeg: number, dayOfYearJ: number, pDeg: number, sinTilt: number): number {
   const theta = 0.2163108 + 2 * Math.atan(0.9671396 * Math.tan(0.0086 * (dayOfYearJ - 186)));

@@ -52,8 +52,9 @@ export function sineExcess(lo: number, hi: number, x: number): number {
   if (x >= hi) return 0;
   const mean = (lo + hi) / 2;
   const amp = (hi - lo) / 2;
-  const theta = Math.asin((x - mean) / amp);
-  return ((mean - x) * (HALF_PI - theta) + amp * Math.cos(theta)) / PI;
+  const s = (x - mean) / amp;
+  // cos(asin(s)) = √(1 − s²)
+  return ((mean - x) * (HALF_PI - Math.asin(s)) + amp * Math.sqrt(1 - s * s)) / PI;
 }
 
 /** Sine curve between lo and hi: share of the day with T > x. */

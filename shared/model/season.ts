@@ -1,7 +1,7 @@
 import type { Profile } from './profile.schema';
 import { compileProfile, traitsFromTable, TRAIT_COUNT, T_A, T_EIP_RATE, T_GONO_RATE, T_P, T_PN, T_SHARE, T_VC, type CompiledProfile } from './traits';
 import { degreeDaysFast } from './degree-days';
-import { dayLengthFast } from './day-length';
+import { dayLengthFromParts, declinationTable } from './day-length';
 import { dateParts, dayNumber, formatIsoDate, isLeapYear, parseIsoDate } from './dates';
 import { saturationVapourPressure } from './humidity';
 
@@ -224,6 +224,11 @@ export function computeSeasonColumns(
   const wantDayLength = win !== null || options.dayLength === true;
   const W = cp.recentWindowDays;
 
+  // Day length parts (Forsythe et al. 1995): per call sin p, sin L, cos L; per day-of-year the declination.
+  const decl = declinationTable(0.39795);
+  const sinP = Math.sin(((win !== null ? win.definitionDeg : 0.8333) * Math.PI) / 180);
+  const sinLat = Math.sin((lat * Math.PI) / 180);
+  const cosLat = Math.cos((lat * Math.PI) / 180);
   // Day-of-year walker for day length.
   let { year } = dateParts(startDay);
   let doy = startDay - dayNumber(year, 1, 1) + 1;
@@ -308,7 +313,7 @@ export function computeSeasonColumns(
     // Day length and season window.
     let open = 1;
     if (wantDayLength) {
-      const dl = dayLengthFast(lat, doy, win !== null ? win.definitionDeg : 0.8333, 0.39795);
+      const dl = dayLengthFromParts(sinP, sinLat, cosLat, decl[2 * doy], decl[2 * doy + 1]);
       cDayLengthHours[i] = dl;
       if (win !== null) {
         if (tbar === tbar) {
