@@ -56,6 +56,8 @@ export function createApp(ctx: AppContext): BroodcastApp {
   app.locals.routes = routes;
 
   const api = express.Router();
+  // District boundaries can be large GeoJSON; every other body stays under 1 MB.
+  api.use('/districts/:id/boundary', express.json({ limit: '10mb', strict: true }));
   api.use(express.json({ limit: '1mb', strict: true }));
   api.use(cookieParser());
   api.use(sessionMiddleware(auth));

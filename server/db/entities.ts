@@ -7,6 +7,7 @@ import { UserDistrictEntity } from '../users/user-district.entity';
 import { UserEntity } from '../users/user.entity';
 import { casesEntities } from '../cases/cases.entities';
 import { weatherEntities } from '../weather/weather.entities';
+import { seasonEntities } from '../season/season.entities';
 
 /** Every entity, listed by hand so the DataSource works the same under tsx, vitest and the CLI. */
 export const entities = [
@@ -19,4 +20,5 @@ export const entities = [
   AuditEventEntity,
   ...weatherEntities,
   ...casesEntities,
+  ...seasonEntities,
 ];

@@ -1,0 +1,2 @@
+export * from './tier-settings';
+export * from './tier';
