@@ -4,6 +4,7 @@
  * Ctrl-C stops everything it started; the data stays in the cluster for the next start.
  */
 import { spawn } from 'node:child_process';
+import path from 'node:path';
 import { stopCluster } from './lib/cluster';
 import { buildClient } from './lib/build-client';
 import { projectDir, startDevDatabase } from './lib/dev-database';
@@ -33,7 +34,7 @@ try {
   if (migrations.length) console.log(`› ran ${migrations.length} migration(s)`);
   console.log(seeded ? '› loaded the invented Halvern Region (demo data)' : '› reusing the data already in the cluster');
 
-  const maildev = await startMailCatcher(ports.smtp, ports.mailWeb);
+  const maildev = await startMailCatcher(ports.smtp, ports.mailWeb, path.join(projectDir, '.local', 'mail', 'dev'));
   cleanups.push(() => maildev.stop());
 
   console.log('› building the client');

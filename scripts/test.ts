@@ -5,6 +5,7 @@
  * (`npm test -- tests/api/auth.test.ts`). Each test file gets its own copy of the template database.
  */
 import { spawn } from 'node:child_process';
+import path from 'node:path';
 import pg from 'pg';
 import { buildClient } from './lib/build-client';
 import { ensureDatabase, startCluster, stopCluster } from './lib/cluster';
@@ -29,7 +30,7 @@ try {
   await admin.end();
   await migrate(templateUrl);
 
-  const maildev = await startMailCatcher(ports.testSmtp, ports.testMailWeb);
+  const maildev = await startMailCatcher(ports.testSmtp, ports.testMailWeb, path.join(projectDir, '.local', 'mail', 'test'), { fresh: true });
   try {
     await buildClient();
     console.log(`› test set-up took ${((Date.now() - t0) / 1000).toFixed(1)} s`);
