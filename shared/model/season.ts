@@ -20,7 +20,7 @@ import { saturationVapourPressure } from './humidity';
  *  - the traits (gonotrophic cycle, biting rate, survival p, EIP n, pⁿ, relative vectorial capacity,
  *    share of the EIP completed within the expected life 1/(−ln p)) at the trailing mean of the daily
  *    mean temperature (Tmin + Tmax)/2 over the recent window, read from the profile's trait table
- *    (0.01 °C grid, linear interpolation, ≈1e-6 relative of the exact functions);
+ *    (0.005 °C grid, linear interpolation, within about 1e-6 of the exact functions);
  *  - the season window (diapause profiles) from day length and the trailing mean temperature with
  *    hysteresis; while it is closed the relative vectorial capacity is 0 (diapausing females do not
  *    seek hosts); the thermal traits are still reported.

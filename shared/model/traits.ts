@@ -86,7 +86,14 @@ export interface CompiledProfile {
    * Trait table for the season path: for each variant (null when it equals central), TRAIT_FIELDS
    * values at T = from + k·step, k = 0…size−1, interpolated linearly (see traitsFromTable).
    */
-  readonly table: { from: number; step: number; size: number; data: [Float64Array | null, Float64Array, Float64Array | null] };
+  readonly table: {
+    from: number;
+    step: number;
+    size: number;
+    data: [Float64Array | null, Float64Array, Float64Array | null];
+    /** 1 for a cell [k, k+1] where interpolation would miss the exact value (a kink or end of a curve): evaluate exactly there. */
+    exact: [Uint8Array | null, Uint8Array, Uint8Array | null];
+  };
   /** Exact traits at t for variant v into out (TRAIT_FIELDS order), the window taken as open. */
   evaluate(t: number, v: Variant, out: Float64Array): void;
   readonly window: SeasonWindowRule | null;
@@ -118,20 +125,23 @@ export const TRAIT_COUNT = 7;
 
 /**
  * Temperature grid of the trait table (°C). Rates (1/U, 1/n) are tabulated rather than durations, so
- * every tabulated quantity is continuous and linear interpolation stays within about 1e-6 (relative)
- * of the exact value; outside the grid the exact functions are used.
+ * every tabulated quantity is continuous. Linear interpolation is used where it stays within
+ * `tolerance` × the field's largest value of the exact result; the few cells where it would not
+ * (curve ends, kinks) and temperatures outside the grid use the exact functions.
  */
-export const TRAIT_TABLE = { from: -40, to: 60, step: 0.01 } as const;
+export const TRAIT_TABLE = { from: -40, to: 60, step: 0.005, tolerance: 1e-6 } as const;
 
 /**
  * Traits at t for variant v from the compiled table (exact outside the grid), into out (TRAIT_FIELDS order).
  */
 export function traitsFromTable(cp: CompiledProfile, t: number, v: Variant, out: Float64Array): void {
-  const data = cp.table.data[v] ?? cp.table.data[1];
-  const x = (t - cp.table.from) / cp.table.step;
+  const tb = cp.table;
+  const vv = tb.data[v] === null ? 1 : v;
+  const data = tb.data[vv]!;
+  const x = (t - tb.from) / tb.step;
   const k = Math.floor(x);
-  if (!(k >= 0 && k < cp.table.size - 1)) {
-    cp.evaluate(t, cp.table.data[v] ? v : 1, out);
+  if (!(k >= 0 && k < tb.size - 1) || tb.exact[vv]![k] === 1) {
+    cp.evaluate(t, vv, out);
     return;
   }
   const w = x - k;
@@ -275,11 +285,35 @@ export function compileProfile(profile: Profile): CompiledProfile {
     }
     return data;
   };
+  // Cells where linear interpolation is not within TRAIT_TABLE.tolerance of the exact value at the
+  // quarter points (ends of Brière curves, zero crossings, the cap of the EIP share) are flagged, and
+  // read exactly instead.
+  const flagCells = (v: Variant, data: Float64Array): Uint8Array => {
+    const max = new Float64Array(TRAIT_COUNT);
+    for (let i = 0; i < data.length; i++) max[i % TRAIT_COUNT] = Math.max(max[i % TRAIT_COUNT], Math.abs(data[i]));
+    const flags = new Uint8Array(size - 1);
+    const row = new Float64Array(TRAIT_COUNT);
+    for (let k = 0; k < size - 1; k++) {
+      for (const w of [0.25, 0.5, 0.75]) {
+        evaluate(TRAIT_TABLE.from + (k + w) * TRAIT_TABLE.step, v, row);
+        for (let j = 0; j < TRAIT_COUNT && flags[k] === 0; j++) {
+          const y0 = data[k * TRAIT_COUNT + j];
+          const y = y0 + w * (data[(k + 1) * TRAIT_COUNT + j] - y0);
+          if (Math.abs(y - row[j]) > TRAIT_TABLE.tolerance * max[j]) flags[k] = 1;
+        }
+      }
+    }
+    return flags;
+  };
+  const d1 = buildTable(1);
+  const d0 = hasRanges ? buildTable(0) : null;
+  const d2 = hasRanges ? buildTable(2) : null;
   const table = {
     from: TRAIT_TABLE.from,
     step: TRAIT_TABLE.step,
     size,
-    data: [hasRanges ? buildTable(0) : null, buildTable(1), hasRanges ? buildTable(2) : null] as [Float64Array | null, Float64Array, Float64Array | null],
+    data: [d0, d1, d2] as [Float64Array | null, Float64Array, Float64Array | null],
+    exact: [d0 && flagCells(0, d0), flagCells(1, d1), d2 && flagCells(2, d2)] as [Uint8Array | null, Uint8Array, Uint8Array | null],
   };
 
   const w = profile.seasonWindow;
