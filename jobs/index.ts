@@ -1,7 +1,9 @@
 import type { Config } from '../server/config';
 import type { JobDef } from './job';
+import { seasonRunJob } from './season-run.job';
+import { weatherJobs } from './weather-feed.job';
 
 /** Every scheduled job of the deployment, built from config. Features add theirs here. */
-export function allJobs(_config: Config): JobDef[] {
-  return [];
+export function allJobs(config: Config): JobDef[] {
+  return [seasonRunJob(config), ...weatherJobs(config)];
 }

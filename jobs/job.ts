@@ -6,5 +6,7 @@ export interface JobDef {
   /** Read from config by the job module, e.g. '15 2 * * *'. Null: the job is off in this deployment. */
   cron: string | null;
   timezone: string;
+  /** Take the job's advisory lock around run (default true); false when the service takes it itself. */
+  lock?: boolean;
   run(ctx: AppContext): Promise<unknown>;
 }

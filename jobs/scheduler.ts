@@ -23,7 +23,9 @@ export function startScheduler(ctx: AppContext, jobs: JobDef[]): { stop(): void;
 
 export async function runJob(ctx: AppContext, job: JobDef) {
   try {
-    const { ran } = await withAdvisoryLock(ctx.ds, job.name, () => job.run(ctx));
+    const { ran } = job.lock === false
+      ? { ran: (await job.run(ctx)) !== null }
+      : await withAdvisoryLock(ctx.ds, job.name, () => job.run(ctx));
     if (!ran) ctx.logger.info({ job: job.name }, 'job skipped: another process holds its lock');
     return ran;
   } catch (err) {

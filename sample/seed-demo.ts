@@ -5,7 +5,10 @@ import { DistrictPopulationEntity } from '../server/districts/district-populatio
 import { DistrictEntity } from '../server/districts/district.entity';
 import { UserDistrictEntity } from '../server/users/user-district.entity';
 import { UserEntity } from '../server/users/user.entity';
+import { DistrictProfileEntity } from '../server/season/district-profile.entity';
+import { loadDemoCases } from './demo-cases';
 import { buildDemoRegion, DEMO_PASSWORD, DEMO_USERS } from './demo-region';
+import { seedDemoWeather } from './demo-weather';
 
 /**
  * Load the invented Halvern Region and its demo users into an empty database, in one transaction.
@@ -25,6 +28,7 @@ export async function seedDemoIfEmpty(ds: DataSource, opts: { nodeEnv: string; b
       }));
       byCode.set(d.code, saved.id);
       await manager.insert(DistrictPopulationEntity, d.populations.map((p) => ({ districtId: saved.id, ...p })));
+      await manager.insert(DistrictProfileEntity, d.profiles.map((profileId) => ({ districtId: saved.id, profileId, biofix: null })));
     }
     for (const u of DEMO_USERS) {
       const user = await manager.save(UserEntity, manager.create(UserEntity, {
@@ -33,6 +37,8 @@ export async function seedDemoIfEmpty(ds: DataSource, opts: { nodeEnv: string; b
       if (u.districtCodes.length)
         await manager.insert(UserDistrictEntity, u.districtCodes.map((c) => ({ userId: user.id, districtId: byCode.get(c)! })));
     }
+    await loadDemoCases(manager, byCode);
+    await seedDemoWeather(manager);
   });
   return true;
 }

@@ -15,6 +15,8 @@ import { mountRoutes, type RouteDef } from './http/route';
 import { usersRoutes } from './users/users.routes';
 import { casesRoutes } from './cases/cases.routes';
 import { weatherRoutes } from './weather/weather.routes';
+import { boardRoutes } from './board/board.routes';
+import { seasonRoutes } from './season/season.routes';
 
 export interface BroodcastApp extends Express {
   locals: Express['locals'] & { routes: RouteDef[] };
@@ -52,6 +54,8 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...districtsRoutes(ctx),
     ...weatherRoutes(ctx),
     ...casesRoutes(ctx),
+    ...seasonRoutes(ctx),
+    ...boardRoutes(ctx),
   ];
   app.locals.routes = routes;
 

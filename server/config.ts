@@ -24,8 +24,39 @@ export const configSchema = z.object({
   SIGN_IN_LIMIT_PER_ADDRESS: z.coerce.number().int().min(1).default(50),
   SIGN_IN_WINDOW_MINUTES: z.coerce.number().min(1).default(15),
   EPI_WEEK_SYSTEM: z.enum(['mmwr', 'iso']).default('mmwr'),
+  /** Band of the endemic channel (docs/signals.md): geometric (Bortman 1999), quartile or mean-2sd. */
+  CHANNEL_METHOD: z.enum(['geometric', 'quartile', 'mean-2sd']).default('geometric'),
+  /** CUSUM reference value k and decision interval h, in SD units (docs/case-ledger.md). */
+  CUSUM_K: z.coerce.number().min(0).max(5).default(0.5),
+  CUSUM_H: z.coerce.number().gt(0).max(20).default(4),
+  /** Days after a week ends by which its counts are due; later entries are marked late. */
+  CASE_REPORT_DEADLINE_DAYS: z.coerce.number().int().min(0).max(60).default(3),
   /** Time zone of the scheduled jobs (IANA name). */
   TIMEZONE: z.string().default('UTC'),
+  /** When the nightly season run starts (node-cron syntax, in TIMEZONE); empty turns it off. */
+  SEASON_RUN_CRON: z.string().default('30 2 * * *'),
+  /** Run the (incremental) season computation once at start, so a fresh demo shows a ranked Ladder. */
+  SEASON_RUN_ON_START: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+  // Weather intake (docs/weather-intake.md).
+  /** Largest weather file accepted, in bytes (a national year is about 70 MB). */
+  WEATHER_UPLOAD_MAX_BYTES: z.coerce.number().int().min(1).default(200 * 1024 * 1024),
+  /** Where multer writes uploads under generated names while they are checked (default: the OS temp folder). */
+  WEATHER_UPLOAD_DIR: z.string().optional(),
+  /** Gaps of up to this many days are filled by linear interpolation; longer ones stay missing. */
+  WEATHER_FILL_MAX_DAYS: z.coerce.number().int().min(0).max(30).default(3),
+  WEATHER_QC_JUMP_C: z.coerce.number().positive().default(15),
+  WEATHER_QC_RUN_DAYS: z.coerce.number().int().min(2).default(5),
+  WEATHER_QC_SPATIAL_C: z.coerce.number().positive().default(8),
+  WEATHER_QC_NEIGHBOUR_KM: z.coerce.number().positive().default(150),
+  WEATHER_IDW_STATIONS: z.coerce.number().int().min(1).max(10).default(3),
+  /** An upload whose process has not touched it for this long is marked failed. */
+  WEATHER_UPLOAD_STALE_SECONDS: z.coerce.number().int().min(1).default(60),
+  WEATHER_REPORT_MAX_ISSUES: z.coerce.number().int().min(100).default(100_000),
+  WEATHER_SWEEP_CRON: z.string().default('* * * * *'),
+  /** The station-data feed (JSON or CSV over HTTP); unset: no feed. */
+  WEATHER_FEED_URL: z.url({ message: 'must be a URL' }).optional(),
+  WEATHER_FEED_KEY: z.string().optional(),
+  WEATHER_FEED_CRON: z.string().optional(),
 });
 export type Config = z.infer<typeof configSchema>;
 

@@ -1,4 +1,5 @@
 import { DistrictProfileEntity } from './district-profile.entity';
+import { DistrictRunStateEntity } from './district-run-state.entity';
 import { DistrictTierEntity } from './district-tier.entity';
 import { SeasonRunEntity } from './season-run.entity';
 import { TierSettingsVersionEntity } from './tier-settings-version.entity';
@@ -10,4 +11,5 @@ export const seasonEntities: Function[] = [
   DistrictTierEntity,
   DistrictProfileEntity,
   TierSettingsVersionEntity,
+  DistrictRunStateEntity,
 ];

@@ -1,4 +1,4 @@
-import { SeasonRun1796165195155 } from './migrations/1796165195155-SeasonRun';
+import { SeasonRun1796165312435 } from './migrations/1796165312435-SeasonRun';
 
 /** Reviewed migrations of the season run and tiers. */
-export const seasonMigrations: Function[] = [SeasonRun1796165195155];
+export const seasonMigrations: Function[] = [SeasonRun1796165312435];

@@ -6,6 +6,7 @@ import { makeDistrict, makeUser, signedInAgent } from '../support/factories';
 import { casesAccess } from './access/cases.access';
 import { foundationAccess, signOutAccess } from './access/foundation.access';
 import { weatherAccess } from './access/weather.access';
+import { seasonAccess } from './access/season.access';
 
 /**
  * Every API route × every role (and no session). The expected access is written here, from
@@ -17,7 +18,7 @@ const EVERYBODY: Who[] = ['anonymous', ...ROLES];
 
 // One table per feature (tests/api/access/*.access.ts), merged; the sign-out row goes last because it
 // ends the sessions the other rows use.
-const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...signOutAccess };
+const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...signOutAccess };
 
 let t: TestApp;
 const agents = new Map<Who, ReturnType<typeof request.agent>>();

@@ -1,9 +1,9 @@
-// Reviewed: season runs, the stored vector clock per district/profile/day, weekly tiers with drivers,
-// district profiles and versioned tier settings.
+// Reviewed: season runs, the stored vector clock per district/profile/day, weekly tiers with their drivers,
+// district profiles, versioned tier settings and the per-district input fingerprint of the last run.
 import { MigrationInterface, QueryRunner } from "typeorm";
 
-export class SeasonRun1796165195155 implements MigrationInterface {
-    name = 'SeasonRun1796165195155'
+export class SeasonRun1796165312435 implements MigrationInterface {
+    name = 'SeasonRun1796165312435'
 
     public async up(queryRunner: QueryRunner): Promise<void> {
         await queryRunner.query(`
@@ -12,6 +12,16 @@ export class SeasonRun1796165195155 implements MigrationInterface {
                 "profile_id" text NOT NULL,
                 "biofix" text,
                 CONSTRAINT "PK_a0821c52b5e764d670be7b84ebe" PRIMARY KEY ("district_id", "profile_id")
+            )
+        `);
+        await queryRunner.query(`
+            CREATE TABLE "district_run_state" (
+                "district_id" uuid NOT NULL,
+                "season_year" integer NOT NULL,
+                "as_of" date NOT NULL,
+                "fingerprint" text NOT NULL,
+                "run_id" uuid NOT NULL,
+                CONSTRAINT "PK_3389bab45f5b4d95c81301fab84" PRIMARY KEY ("district_id")
             )
         `);
         await queryRunner.query(`
@@ -115,10 +125,19 @@ export class SeasonRun1796165195155 implements MigrationInterface {
             DROP TABLE "tier_settings_versions"
         `);
         await queryRunner.query(`
+            DROP INDEX "public"."season_runs_started_idx"
+        `);
+        await queryRunner.query(`
             DROP TABLE "season_runs"
         `);
         await queryRunner.query(`
+            DROP INDEX "public"."district_tiers_week_idx"
+        `);
+        await queryRunner.query(`
             DROP TABLE "district_tiers"
+        `);
+        await queryRunner.query(`
+            DROP TABLE "district_run_state"
         `);
         await queryRunner.query(`
             DROP TABLE "district_profiles"

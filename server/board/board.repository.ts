@@ -1,0 +1,56 @@
+import type { DataSource } from 'typeorm';
+
+export interface BoardRowRecord {
+  district_id: string;
+  code: string;
+  name: string;
+  is_demo: boolean;
+  epi_year: number | null;
+  epi_week: number | null;
+  as_of: string | null;
+  computed_at: Date | null;
+  tier: string | null;
+  tier_low: string | null;
+  tier_high: string | null;
+  score: number | null;
+  confidence: string | null;
+  leading_driver: string | null;
+  changed_driver: string | null;
+  cases_this_week: number | null;
+  channel_zone: string | null;
+  latest_weather: string | null;
+  profile_id: string | null;
+  prev_tier: string | null;
+  prev_score: number | null;
+}
+
+export class BoardRepository {
+  constructor(private readonly ds: DataSource) {}
+
+  /** Changes whenever a run writes tiers or a district is added: the board cache's key. */
+  async version(): Promise<string> {
+    const [row] = await this.ds.query(
+      `SELECT (SELECT coalesce(max(computed_at)::text, '') FROM district_tiers) || '|' ||
+              (SELECT count(*)::text || ':' || coalesce(max(created_at)::text, '') FROM districts) AS v`,
+    );
+    return row.v;
+  }
+
+  /** Every district with its tier of the newest week that has tiers, and the tier of the week before. */
+  async rows(): Promise<BoardRowRecord[]> {
+    return this.ds.query(
+      `WITH latest AS (SELECT epi_year, epi_week FROM district_tiers ORDER BY epi_year DESC, epi_week DESC LIMIT 1)
+       SELECT d.id AS district_id, d.code, d.name, d.is_demo, t.epi_year, t.epi_week, to_char(t.as_of, 'YYYY-MM-DD') AS as_of,
+              t.computed_at, t.tier, t.tier_low, t.tier_high, t.score, t.confidence, t.leading_driver, t.changed_driver,
+              t.cases_this_week, t.channel_zone, to_char(t.latest_weather, 'YYYY-MM-DD') AS latest_weather, t.profile_id,
+              p.tier AS prev_tier, p.score AS prev_score
+         FROM districts d
+         LEFT JOIN latest ON true
+         LEFT JOIN district_tiers t ON t.district_id = d.id AND t.epi_year = latest.epi_year AND t.epi_week = latest.epi_week
+         LEFT JOIN LATERAL (
+           SELECT tier, score FROM district_tiers p
+            WHERE p.district_id = d.id AND (p.epi_year, p.epi_week) < (latest.epi_year, latest.epi_week)
+            ORDER BY p.epi_year DESC, p.epi_week DESC LIMIT 1) p ON true`,
+    );
+  }
+}

@@ -1,0 +1,143 @@
+import type { DistrictFileResponse } from '../../shared/api/board.schema';
+import { findProfile } from '../../shared/model';
+import { aggregateLarvalIndices, endemicChannel } from '../../shared/signals';
+import type { AppContext } from '../app-context';
+import { assertDistrictVisible, type Principal } from '../auth/principal';
+import { notFound } from '../http/errors';
+
+const PRIOR_YEARS = 7;
+
+/** Everything the District file shows, in one answer, from stored data (no recomputation). */
+export class DistrictFileService {
+  constructor(private readonly ctx: AppContext) {}
+
+  async file(p: Principal, districtId: string, season?: number): Promise<DistrictFileResponse> {
+    assertDistrictVisible(p, districtId);
+    const q = this.ctx.ds.query.bind(this.ctx.ds);
+    const [district] = await q(
+      `SELECT id, code, name, is_demo AS "isDemo", centroid_lat AS lat, centroid_lon AS lon FROM districts WHERE id = $1`,
+      [districtId],
+    );
+    if (!district) throw notFound('The district');
+    const seasonsRows: { y: number }[] = await q(
+      `SELECT DISTINCT extract(year FROM date)::int AS y FROM district_weather_days WHERE district_id = $1
+       UNION SELECT DISTINCT epi_year FROM district_tiers WHERE district_id = $1
+       UNION SELECT DISTINCT epi_year FROM case_counts WHERE district_id = $1 ORDER BY 1 DESC`,
+      [districtId],
+    );
+    const seasons = seasonsRows.map((r) => r.y);
+    const seasonYear = season ?? seasons[0] ?? new Date().getUTCFullYear();
+    const from = `${seasonYear}-01-01`;
+    const to = `${seasonYear}-12-31`;
+
+    const [weatherRows, sourceRows, clockRows, caseRows, surveyRows, tierRows, excludedRows] = await Promise.all([
+      q(`SELECT to_char(date, 'YYYY-MM-DD') AS date, tmin, tmax, rh, rain, filled FROM district_weather_days
+          WHERE district_id = $1 AND date BETWEEN $2 AND $3 ORDER BY date`, [districtId, from, to]),
+      q(`SELECT s.method, s.distance_km, s.weight, st.code FROM district_weather_sources s JOIN weather_stations st ON st.id = s.station_id
+          WHERE s.district_id = $1 ORDER BY s.weight DESC`, [districtId]),
+      q(`SELECT profile_id, to_char(date, 'YYYY-MM-DD') AS date, cumulative_degree_days, generations, eip_days, survival_through_eip,
+                rvc, rvc_low, rvc_high, season_open, complete
+           FROM vector_clock_days WHERE district_id = $1 AND date BETWEEN $2 AND $3 ORDER BY profile_id, date`, [districtId, from, to]),
+      q(`SELECT c.disease_id, d.name AS disease_name, c.epi_year, c.epi_week, c.cases FROM case_counts c JOIN diseases d ON d.id = c.disease_id
+          WHERE c.district_id = $1 AND c.epi_year BETWEEN $2 AND $3`, [districtId, seasonYear - PRIOR_YEARS, seasonYear]),
+      q(`SELECT epi_year, epi_week, houses_inspected AS "housesInspected", houses_positive AS "housesPositive",
+                containers_inspected AS "containersInspected", containers_positive AS "containersPositive", pupae
+           FROM larval_surveys WHERE district_id = $1 AND epi_year = $2 ORDER BY epi_year, epi_week`, [districtId, seasonYear]),
+      q(`SELECT epi_year, epi_week, tier, tier_low, tier_high, score, confidence, drivers, notes, leading_driver, changed_driver
+           FROM district_tiers WHERE district_id = $1 AND epi_year = $2 ORDER BY epi_week`, [districtId, seasonYear]),
+      q(`SELECT disease_id, excluded_years FROM case_channel_settings WHERE district_id = $1`, [districtId]),
+    ]);
+
+    const source = sourceRows.length === 0
+      ? null
+      : sourceRows[0].method === 'inside'
+        ? `Stations in the district: ${sourceRows.map((s: { code: string }) => s.code).join(', ')}`
+        : `No station inside the district: interpolated from ${sourceRows
+            .map((s: { code: string; distance_km: number; weight: number }) => `${s.code} (${Math.round(s.distance_km)} km, weight ${s.weight.toFixed(2)})`)
+            .join(', ')}`;
+
+    const byProfile = new Map<string, typeof clockRows>();
+    for (const r of clockRows) {
+      if (!byProfile.has(r.profile_id)) byProfile.set(r.profile_id, []);
+      byProfile.get(r.profile_id)!.push(r);
+    }
+
+    const excluded = new Map<string, number[]>(excludedRows.map((r: { disease_id: string; excluded_years: number[] }) => [r.disease_id, r.excluded_years]));
+    const diseases = new Map<string, { name: string; counts: Map<string, number> }>();
+    for (const r of caseRows) {
+      if (!diseases.has(r.disease_id)) diseases.set(r.disease_id, { name: r.disease_name, counts: new Map() });
+      diseases.get(r.disease_id)!.counts.set(`${r.epi_year}:${r.epi_week}`, r.cases);
+    }
+    const weeks = Array.from({ length: 53 }, (_, i) => i + 1);
+    const cases = [...diseases.entries()].map(([diseaseId, d]) => {
+      const skip = excluded.get(diseaseId) ?? [];
+      const channel = { lower: [] as (number | null)[], centre: [] as (number | null)[], upper: [] as (number | null)[], method: this.ctx.config.CHANNEL_METHOD };
+      for (const w of weeks) {
+        const history: number[] = [];
+        for (let y = seasonYear - 1; y >= seasonYear - PRIOR_YEARS; y--) {
+          const v = d.counts.get(`${y}:${w}`);
+          if (v !== undefined && !skip.includes(y)) history.push(v);
+        }
+        const band = history.length >= 2 ? endemicChannel(this.ctx.config.CHANNEL_METHOD, history) : null;
+        channel.lower.push(band ? round(band.lower) : null);
+        channel.centre.push(band ? round(band.centre) : null);
+        channel.upper.push(band ? round(band.upper) : null);
+      }
+      const priorSeasons = [];
+      for (let y = seasonYear - 1; y >= seasonYear - PRIOR_YEARS; y--) {
+        const counts = weeks.map((w) => d.counts.get(`${y}:${w}`) ?? null);
+        if (counts.some((c) => c !== null)) priorSeasons.push({ year: y, counts });
+      }
+      return { diseaseId, diseaseName: d.name, weeks, counts: weeks.map((w) => d.counts.get(`${seasonYear}:${w}`) ?? null), channel, priorSeasons };
+    });
+
+    const larvalByWeek = new Map<string, typeof surveyRows>();
+    for (const s of surveyRows) {
+      const k = `${s.epi_year}:${s.epi_week}`;
+      if (!larvalByWeek.has(k)) larvalByWeek.set(k, []);
+      larvalByWeek.get(k)!.push(s);
+    }
+    const larval = [...larvalByWeek.entries()].map(([k, list]) => {
+      const [epiYear, epiWeek] = k.split(':').map(Number);
+      const idx = aggregateLarvalIndices(list.map(({ epi_year: _y, epi_week: _w, ...rest }: Record<string, unknown>) => rest) as never);
+      return { epiYear, epiWeek, surveys: list.length, house: idx.house, container: idx.container, breteau: idx.breteau, pupa: idx.pupa };
+    });
+
+    return {
+      district,
+      seasonYear,
+      seasons,
+      weather: {
+        dates: weatherRows.map((r: { date: string }) => r.date),
+        tmin: weatherRows.map((r: { tmin: number | null }) => r.tmin),
+        tmax: weatherRows.map((r: { tmax: number | null }) => r.tmax),
+        rh: weatherRows.map((r: { rh: number | null }) => r.rh),
+        rain: weatherRows.map((r: { rain: number | null }) => r.rain),
+        filled: weatherRows.map((r: { filled: boolean }) => r.filled),
+        source,
+      },
+      vectorClock: [...byProfile.entries()].map(([profileId, rows]) => ({
+        profileId,
+        profileName: findProfile(profileId)?.name ?? profileId,
+        dates: rows.map((r: { date: string }) => r.date),
+        cumulativeDegreeDays: rows.map((r: { cumulative_degree_days: number }) => r.cumulative_degree_days),
+        generations: rows.map((r: { generations: number }) => r.generations),
+        eipDays: rows.map((r: { eip_days: number | null }) => r.eip_days),
+        survivalThroughEip: rows.map((r: { survival_through_eip: number | null }) => r.survival_through_eip),
+        rvc: rows.map((r: { rvc: number | null }) => r.rvc),
+        rvcLow: rows.map((r: { rvc_low: number | null }) => r.rvc_low),
+        rvcHigh: rows.map((r: { rvc_high: number | null }) => r.rvc_high),
+        seasonOpen: rows.map((r: { season_open: boolean }) => r.season_open),
+        complete: rows.map((r: { complete: boolean }) => r.complete),
+      })),
+      cases,
+      larval,
+      tiers: tierRows.map((t: Record<string, any>) => ({
+        epiYear: t.epi_year, epiWeek: t.epi_week, tier: t.tier, tierLow: t.tier_low, tierHigh: t.tier_high, score: t.score,
+        confidence: t.confidence, drivers: t.drivers, notes: t.notes, leadingDriver: t.leading_driver, changedDriver: t.changed_driver,
+      })),
+    };
+  }
+}
+
+const round = (x: number) => Math.round(x * 100) / 100;

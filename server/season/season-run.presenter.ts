@@ -1,0 +1,18 @@
+import type { SeasonRunDto } from '../../shared/api/board.schema';
+import type { SeasonRunEntity } from './season-run.entity';
+
+export const presentSeasonRun = (r: SeasonRunEntity): SeasonRunDto => ({
+  id: r.id,
+  kind: r.kind,
+  full: r.full,
+  status: r.status,
+  startedAt: new Date(r.startedAt).toISOString(),
+  finishedAt: r.finishedAt ? new Date(r.finishedAt).toISOString() : null,
+  asOf: r.asOf,
+  districtsTotal: r.districtsTotal,
+  districtsDone: r.districtsDone,
+  districtsSkipped: r.districtsSkipped,
+  rowsWritten: r.rowsWritten,
+  warnings: r.warnings,
+  error: r.error,
+});

@@ -1,0 +1,195 @@
+import { epiWeek } from '../../shared/model';
+import type { AppContext } from '../app-context';
+import { conflict, notFound } from '../http/errors';
+import { withAdvisoryLock } from '../../jobs/advisory-lock';
+import { computeDistrictSeason } from './district-season';
+import { DistrictRunStateEntity } from './district-run-state.entity';
+import { DistrictTierEntity } from './district-tier.entity';
+import { emptyVectorClockRows, SeasonRepository } from './season.repository';
+import { SeasonRunEntity } from './season-run.entity';
+import { TierSettingsService } from './tier-settings.service';
+import { changedDriver, tierRank } from '../../shared/tier';
+
+export const SEASON_RUN_LOCK = 'season-run';
+const BATCH = 25;
+const PRIOR_SEASONS = 3;
+
+const todayIn = (timeZone: string) => new Intl.DateTimeFormat('en-CA', { timeZone }).format(new Date());
+
+export interface RunOptions {
+  kind: 'nightly' | 'manual';
+  full?: boolean;
+  requestedBy?: string | null;
+  /** The day to compute up to; default today in the deployment's time zone. */
+  asOf?: string;
+  /** For drills: stop with an error after this many districts. */
+  failAfter?: number;
+}
+
+/**
+ * The season run: for every district and profile, the vector clock from the biofix to today, then the
+ * week's tier. Incremental by default (districts whose input fingerprint changed); each district's
+ * results are replaced in one transaction; a run that dies is marked failed by the next one, which
+ * then does the districts the dead run left undone (their fingerprints were never written).
+ */
+export class SeasonRunService {
+  private readonly repo: SeasonRepository;
+  private readonly settings: TierSettingsService;
+
+  constructor(private readonly ctx: AppContext) {
+    this.repo = new SeasonRepository(ctx.ds);
+    this.settings = new TierSettingsService(ctx.ds);
+  }
+
+  /** Run now under the advisory lock; returns the finished run, or null when another process holds the lock. */
+  async runLocked(opts: RunOptions): Promise<SeasonRunEntity | null> {
+    const { ran, result } = await withAdvisoryLock(this.ctx.ds, SEASON_RUN_LOCK, async () => {
+      const run = await this.begin(opts);
+      return this.execute(run, opts);
+    });
+    return ran ? result! : null;
+  }
+
+  /**
+   * Start a run for the API: takes the lock, records the run, answers at once and goes on in the
+   * background. A second request while one runs gets 409.
+   */
+  async start(opts: RunOptions): Promise<SeasonRunEntity> {
+    let resolveStarted!: (run: SeasonRunEntity) => void;
+    let rejectStarted!: (err: unknown) => void;
+    const started = new Promise<SeasonRunEntity>((res, rej) => { resolveStarted = res; rejectStarted = rej; });
+    void withAdvisoryLock(this.ctx.ds, SEASON_RUN_LOCK, async () => {
+      const run = await this.begin(opts);
+      resolveStarted({ ...run });
+      await this.execute(run, opts);
+    })
+      .then(({ ran }) => { if (!ran) rejectStarted(conflict('run_in_progress', 'A season run is already in progress.')); })
+      .catch((err) => { rejectStarted(err); this.ctx.logger.error({ err: (err as Error).message }, 'season run failed'); });
+    return started;
+  }
+
+  async list(limit = 50) {
+    return this.ctx.ds.getRepository(SeasonRunEntity).find({ order: { startedAt: 'DESC' }, take: limit });
+  }
+
+  async get(id: string) {
+    const run = await this.ctx.ds.getRepository(SeasonRunEntity).findOneBy({ id });
+    if (!run) throw notFound('The season run');
+    return run;
+  }
+
+  /** Record the run (the lock is held). Any other run still marked running died with its process. */
+  private async begin(opts: RunOptions): Promise<SeasonRunEntity> {
+    const runs = this.ctx.ds.getRepository(SeasonRunEntity);
+    await this.ctx.ds.query(
+      `UPDATE season_runs SET status = 'failed', finished_at = now(),
+              error = coalesce(error, 'Interrupted: the process stopped before the run finished; the next run completes the work.')
+        WHERE status = 'running'`,
+    );
+    return runs.save(runs.create({
+      kind: opts.kind, full: opts.full ?? false, status: 'running', requestedBy: opts.requestedBy ?? null,
+      startedAt: new Date(), finishedAt: null, asOf: opts.asOf ?? todayIn(this.ctx.config.TIMEZONE),
+      districtsTotal: 0, districtsDone: 0, districtsSkipped: 0, rowsWritten: 0, warnings: [], error: null,
+    }));
+  }
+
+  private async execute(run: SeasonRunEntity, opts: RunOptions): Promise<SeasonRunEntity> {
+    const runs = this.ctx.ds.getRepository(SeasonRunEntity);
+    try {
+      const { settings } = await this.settings.current();
+      const asOf = run.asOf;
+      const seasonYear = Number(asOf.slice(0, 4));
+      const seasonStart = `${seasonYear}-01-01`;
+      const week = epiWeek(asOf, this.ctx.config.EPI_WEEK_SYSTEM);
+      const caseFromYear = seasonYear - 8;
+      const districts = await this.repo.districts();
+      const fingerprints = await this.repo.fingerprints(seasonStart, asOf, caseFromYear);
+      const states = await this.repo.runStates();
+      const todo = run.full
+        ? districts
+        : districts.filter((d) => {
+            const s = states.get(d.id);
+            return !s || s.asOf !== asOf || s.fingerprint !== fingerprints.get(d.id);
+          });
+      run.districtsTotal = todo.length;
+      run.districtsSkipped = districts.length - todo.length;
+      await runs.update(run.id, { districtsTotal: run.districtsTotal, districtsSkipped: run.districtsSkipped });
+
+      for (let i = 0; i < todo.length; i += BATCH) {
+        const batch = todo.slice(i, i + BATCH);
+        const ids = batch.map((d) => d.id);
+        const [weather, prior, cases, excluded, surveys, previous] = await Promise.all([
+          this.repo.weather(ids, seasonStart, asOf),
+          this.repo.weather(ids, `${seasonYear - PRIOR_SEASONS}-01-01`, `${seasonYear - 1}-12-31`),
+          this.repo.cases(ids, caseFromYear),
+          this.repo.excludedYears(ids),
+          this.repo.surveys(ids, isoMinusDays(asOf, 28), asOf),
+          this.repo.previousTiers(ids, week.year, week.week),
+        ]);
+        for (const district of batch) {
+          if (opts.failAfter !== undefined && run.districtsDone >= opts.failAfter) throw new Error('drill: stopped part-way');
+          const priorWeather = new Map<number, typeof weather extends Map<string, infer V> ? V : never>();
+          for (const d of prior.get(district.id) ?? []) {
+            const y = Number(d.date.slice(0, 4));
+            if (!priorWeather.has(y)) priorWeather.set(y, []);
+            priorWeather.get(y)!.push(d);
+          }
+          const result = computeDistrictSeason({
+            district, asOf, seasonYear, weather: weather.get(district.id) ?? [], priorWeather,
+            cases: cases.filter((c) => c.districtId === district.id), excludedYears: excluded,
+            surveys: surveys.filter((s) => s.districtId === district.id), settings,
+            epiSystem: this.ctx.config.EPI_WEEK_SYSTEM, channelMethod: this.ctx.config.CHANNEL_METHOD,
+          }, emptyVectorClockRows());
+          const before = previous.get(district.id);
+          // One transaction per district: its stored season, its tier and its fingerprint land together.
+          const written = await this.ctx.ds.transaction(async (manager) => {
+            const n = await this.repo.replaceVectorClock(manager, district.id, seasonStart, result.rows);
+            await manager.upsert(DistrictTierEntity, {
+              districtId: district.id, epiYear: week.year, epiWeek: week.week, runId: run.id, computedAt: new Date(), asOf,
+              score: result.tier.score, tier: result.tier.tier, tierLow: minTier(result.tierLow.tier, result.tierHigh.tier),
+              tierHigh: maxTier(result.tierLow.tier, result.tierHigh.tier), confidence: result.tier.confidence,
+              drivers: result.tier.drivers, notes: result.tier.notes, leadingDriver: result.tier.leadingDriver,
+              changedDriver: changedDriver(result.tier.drivers, (before?.drivers as never) ?? null),
+              profileId: result.profileId, casesThisWeek: result.casesThisWeek, channelZone: result.channelZone,
+              latestWeather: result.latestWeather,
+            }, ['districtId', 'epiYear', 'epiWeek']);
+            await manager.upsert(DistrictRunStateEntity, {
+              districtId: district.id, seasonYear, asOf, fingerprint: fingerprints.get(district.id) ?? '', runId: run.id,
+            }, ['districtId']);
+            return n;
+          });
+          run.districtsDone += 1;
+          run.rowsWritten += written;
+          run.warnings.push(...result.warnings.map((w) => ({ ...w, districtId: district.id })));
+        }
+        await runs.update(run.id, { districtsDone: run.districtsDone, rowsWritten: run.rowsWritten });
+      }
+      run.status = 'succeeded';
+      run.finishedAt = new Date();
+      await runs.update(run.id, { status: run.status, finishedAt: run.finishedAt, warnings: run.warnings.slice(0, 1000) });
+      this.ctx.logger.info({ run: run.id, done: run.districtsDone, skipped: run.districtsSkipped, rows: run.rowsWritten }, 'season run finished');
+      return run;
+    } catch (err) {
+      run.status = 'failed';
+      run.finishedAt = new Date();
+      run.error = (err as Error).message;
+      await runs.update(run.id, {
+        status: 'failed', finishedAt: run.finishedAt, error: run.error, districtsDone: run.districtsDone,
+        rowsWritten: run.rowsWritten, warnings: run.warnings.slice(0, 1000),
+      }).catch(() => undefined);
+      this.ctx.logger.error({ run: run.id, err: run.error }, 'season run failed');
+      return run;
+    }
+  }
+}
+
+const minTier = (a: string, b: string) => (tierRank(a as never) <= tierRank(b as never) ? a : b);
+const maxTier = (a: string, b: string) => (tierRank(a as never) >= tierRank(b as never) ? a : b);
+function isoMinusDays(iso: string, days: number) {
+  return new Date(Date.parse(iso) - days * 86_400_000).toISOString().slice(0, 10);
+}
+
+/** For tests and the demo: one full run now, waiting for it. */
+export function runSeasonNow(ctx: AppContext, opts: Partial<RunOptions> = {}) {
+  return new SeasonRunService(ctx).runLocked({ kind: 'manual', full: true, ...opts });
+}
