@@ -8,7 +8,7 @@
  */
 import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { chownSync, existsSync, mkdirSync, appendFileSync } from 'node:fs';
+import { appendFileSync, chownSync, existsSync, mkdirSync, readFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
@@ -63,6 +63,15 @@ function resolveDataDir(projectDir: string, name: string): string {
   return path.join(fallback, name);
 }
 
+/** The port in postmaster.pid (its fourth line), read as root or as the owner. */
+function runningPort(dataDir: string): number | null {
+  try {
+    return Number(readFileSync(path.join(dataDir, 'postmaster.pid'), 'utf8').split('\n')[3]);
+  } catch {
+    return null;
+  }
+}
+
 function isRunning(dataDir: string): boolean {
   try {
     runPg('pg_ctl', ['-D', dataDir, 'status'], { quiet: true });
@@ -100,13 +109,16 @@ export async function startCluster(opts: {
     // initdb created the file as postgres; root may append to it.
     appendFileSync(path.join(dataDir, 'postgresql.conf'), conf);
   }
-  if (isRunning(dataDir)) {
-    // A cluster left running (an earlier run that was killed): restart it on the port asked for.
+  if (isRunning(dataDir) && runningPort(dataDir) !== opts.port) {
+    // Left running on another port (an earlier run with other settings): restart it on the port asked for.
     runPg('pg_ctl', ['-D', dataDir, '-m', 'fast', '-w', 'stop'], { quiet: true });
   }
-  runPg('pg_ctl', ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-o', `-p ${opts.port}`, '-w', '-t', '60', 'start'], {
-    quiet: true,
-  });
+  // Already running on this port (another command of this checkout started it): share it.
+  if (!isRunning(dataDir)) {
+    runPg('pg_ctl', ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-o', `-p ${opts.port}`, '-w', '-t', '60', 'start'], {
+      quiet: true,
+    });
+  }
   return {
     name: opts.name,
     dataDir,
