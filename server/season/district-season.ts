@@ -2,7 +2,10 @@
  * One district's season, computed without I/O: the vector clock of each of its profiles, then the
  * tier inputs (docs/tier.md) and the tier with low / central / high variants.
  */
-import { computeSeason, epiWeek, type EpiWeekSystem, getProfile, type SeasonDay, type SeasonInputDay, weeksInYear } from '../../shared/model';
+import {
+  computeSeasonColumns, createSeasonColumns, epiWeek, type EpiWeekSystem, getProfile, type SeasonColumns, type SeasonColumnsInput,
+  type SeasonInputDay, weeksInYear,
+} from '../../shared/model';
 import { aggregateLarvalIndices, c2, channelZone, endemicChannel } from '../../shared/signals';
 import { computeTier, type TierInputs, type TierResult, type TierSettings } from '../../shared/tier';
 import type { CaseRow, DistrictForRun, SurveyRow, VectorClockRows } from './season.repository';
@@ -36,27 +39,50 @@ export interface DistrictSeasonResult {
 
 const mean = (xs: number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
 const lastN = <T>(xs: T[], n: number) => xs.slice(Math.max(0, xs.length - n));
-const daysBetween = (a: string, b: string) => Math.round((Date.parse(b) - Date.parse(a)) / 86_400_000);
+const DAY = 86_400_000;
+const daysBetween = (a: string, b: string) => Math.round((Date.parse(b) - Date.parse(a)) / DAY);
+const isoPlus = (iso: string, n: number) => new Date(Date.parse(iso) + n * DAY).toISOString().slice(0, 10);
 const biofixFor = (monthDay: string | null, year: number) => (monthDay ? `${year}-${monthDay}` : undefined);
+const orNull = (x: number) => (Number.isNaN(x) ? null : x);
 
-function seasonOf(district: DistrictForRun, profileId: string, biofix: string | null, year: number, days: SeasonInputDay[]): SeasonDay[] {
-  if (days.length === 0 || district.lat === null) return [];
-  return computeSeason(getProfile(profileId), { lat: district.lat, biofix: biofixFor(biofix, year) }, days);
+/** Dense daily columns from `from` to `to`: a day without a row is a gap (NaN), never zero heat. */
+function toColumns(days: SeasonInputDay[], from: string, to: string): SeasonColumnsInput {
+  const n = daysBetween(from, to) + 1;
+  const tmin = new Float64Array(n).fill(Number.NaN);
+  const tmax = new Float64Array(n).fill(Number.NaN);
+  const rh = new Float64Array(n).fill(Number.NaN);
+  const filled = new Uint8Array(n);
+  for (const d of days) {
+    const i = daysBetween(from, d.date);
+    if (i < 0 || i >= n || d.tmin === null || d.tmax === null) continue;
+    tmin[i] = d.tmin;
+    tmax[i] = d.tmax;
+    rh[i] = d.rh ?? Number.NaN;
+    filled[i] = d.filled ? 1 : 0;
+  }
+  return { startDate: from, tmin, tmax, rh, filled, length: n };
+}
+
+// One output buffer per process, reused for every district and profile (the season run is sequential).
+let scratch: SeasonColumns | null = null;
+function columnsFor(profileId: string, lat: number, biofix: string | undefined, input: SeasonColumnsInput): SeasonColumns {
+  const n = input.length ?? input.tmin.length;
+  if (!scratch || scratch.capacity < n) scratch = createSeasonColumns(Math.max(n, 400));
+  return computeSeasonColumns(getProfile(profileId), { lat, biofix }, input, scratch);
 }
 
 /** Generations by this day of the year, this season ÷ the mean of earlier seasons (null without them). */
-function generationsRatio(input: DistrictSeasonInput, profileId: string, biofix: string | null, current: SeasonDay[]): number | null {
-  const now = current[current.length - 1];
-  if (!now) return null;
+function generationsRatio(input: DistrictSeasonInput, profileId: string, biofix: string | null, now: number): number | null {
+  if (input.district.lat === null) return null;
   const md = input.asOf.slice(5);
   const prior: number[] = [];
   for (const [year, days] of input.priorWeather) {
-    const upTo = days.filter((d) => d.date.slice(5) <= md);
-    const s = seasonOf(input.district, profileId, biofix, year, upTo);
-    if (s.length > 300 || s.length > current.length * 0.9) prior.push(s[s.length - 1].generations);
+    if (days.length < 300) continue; // an earlier season needs most of its days to be "usual"
+    const c = columnsFor(profileId, input.district.lat, biofixFor(biofix, year), toColumns(days, `${year}-01-01`, `${year}-${md}`));
+    prior.push(c.generations[c.length - 1]);
   }
   const usual = mean(prior);
-  return usual && usual > 0 ? now.generations / usual : null;
+  return usual && usual > 0 ? now / usual : null;
 }
 
 function caseInputs(input: DistrictSeasonInput) {
@@ -116,34 +142,37 @@ export function computeDistrictSeason(input: DistrictSeasonInput, rows: VectorCl
   if (input.weather.length === 0) warnings.push({ code: 'missing_weather', message: `${district.code}: no weather this season.` });
   if (district.lat === null) warnings.push({ code: 'no_position', message: `${district.code}: no boundary, so no latitude for day length.` });
 
-  type Candidate = { profileId: string; rvc: number | null; rvcLow: number | null; rvcHigh: number | null; last: SeasonDay; biofix: string | null; days: SeasonDay[] };
+  type Candidate = { profileId: string; biofix: string | null; rvc: number | null; rvcLow: number | null; rvcHigh: number | null;
+    seasonOpen: boolean; eipShare: number | null; eipShareLow: number | null; eipShareHigh: number | null; generations: number };
   const candidates: Candidate[] = [];
+  const weatherCols = toColumns(input.weather, `${input.seasonYear}-01-01`, input.asOf);
   for (const { profileId, biofix } of district.profiles) {
-    const days = seasonOf(district, profileId, biofix, input.seasonYear, input.weather);
-    for (const d of days) {
+    if (input.weather.length === 0 || district.lat === null) continue;
+    const c = columnsFor(profileId, district.lat, biofixFor(biofix, input.seasonYear), weatherCols);
+    const n = c.length;
+    for (let i = 0; i < n; i++) {
       rows.profileId.push(profileId);
-      rows.date.push(d.date);
-      rows.degreeDays.push(d.degreeDays);
-      rows.cumulativeDegreeDays.push(d.cumulativeDegreeDays);
-      rows.complete.push(d.complete);
-      rows.generations.push(d.generations);
-      rows.eipDays.push(d.eipDays);
-      rows.survival.push(d.survival);
-      rows.survivalThroughEip.push(d.survivalThroughEip);
-      rows.eipShare.push(d.eipShareInLifetime);
-      rows.rvc.push(d.relativeVectorialCapacity);
-      rows.rvcLow.push(d.ranges?.relativeVectorialCapacity.low ?? null);
-      rows.rvcHigh.push(d.ranges?.relativeVectorialCapacity.high ?? null);
-      rows.seasonOpen.push(d.seasonOpen);
+      rows.date.push(isoPlus(weatherCols.startDate, i));
+      rows.degreeDays.push(orNull(c.degreeDays[i]));
+      rows.cumulativeDegreeDays.push(c.cumulativeDegreeDays[i]);
+      rows.complete.push(c.complete[i] === 1);
+      rows.generations.push(c.generations[i]);
+      rows.eipDays.push(orNull(c.eipDays[i]));
+      rows.survival.push(orNull(c.survival[i]));
+      rows.survivalThroughEip.push(orNull(c.survivalThroughEip[i]));
+      rows.eipShare.push(orNull(c.eipShareInLifetime[i]));
+      rows.rvc.push(orNull(c.relativeVectorialCapacity[i]));
+      rows.rvcLow.push(orNull(c.relativeVectorialCapacityLow[i]));
+      rows.rvcHigh.push(orNull(c.relativeVectorialCapacityHigh[i]));
+      rows.seasonOpen.push(c.seasonOpen[i] === 1);
     }
-    if (days.length === 0) continue;
-    const recent = lastN(days, 14);
-    const pick = (f: (d: SeasonDay) => number | null | undefined) => mean(recent.map(f).filter((v): v is number => typeof v === 'number'));
+    const recent = (col: Float64Array) => mean([...col.subarray(Math.max(0, n - 14), n)].filter((v) => !Number.isNaN(v)));
     candidates.push({
-      profileId, biofix, days, last: days[days.length - 1],
-      rvc: pick((d) => d.relativeVectorialCapacity),
-      rvcLow: pick((d) => d.ranges?.relativeVectorialCapacity.low ?? d.relativeVectorialCapacity),
-      rvcHigh: pick((d) => d.ranges?.relativeVectorialCapacity.high ?? d.relativeVectorialCapacity),
+      profileId, biofix,
+      rvc: recent(c.relativeVectorialCapacity), rvcLow: recent(c.relativeVectorialCapacityLow), rvcHigh: recent(c.relativeVectorialCapacityHigh),
+      seasonOpen: c.seasonOpen[n - 1] === 1,
+      eipShare: orNull(c.eipShareInLifetime[n - 1]), eipShareLow: orNull(c.eipShareInLifetimeLow[n - 1]), eipShareHigh: orNull(c.eipShareInLifetimeHigh[n - 1]),
+      generations: c.generations[n - 1],
     });
   }
   // The profile most favoured by this season's weather drives the climate and vector clock drivers.
@@ -152,14 +181,14 @@ export function computeDistrictSeason(input: DistrictSeasonInput, rows: VectorCl
   const cases = caseInputs(input);
   const latestWeather = [...input.weather].reverse().find((d) => d.tmin !== null && d.tmax !== null)?.date ?? null;
 
-  const genRatio = primary ? generationsRatio(input, primary.profileId, primary.biofix, primary.days) : null;
+  const genRatio = primary ? generationsRatio(input, primary.profileId, primary.biofix, primary.generations) : null;
   const build = (variant: 'central' | 'low' | 'high'): TierInputs => {
-    const share = primary?.last.eipShareInLifetime ?? null;
-    const shareRange = primary?.last.ranges?.eipShareInLifetime;
+    const share = primary?.eipShare ?? null;
+    const shareRange = primary ? { low: primary.eipShareLow, high: primary.eipShareHigh } : null;
     return {
       climate: {
         rvc14: primary ? (variant === 'low' ? primary.rvcLow : variant === 'high' ? primary.rvcHigh : primary.rvc) : null,
-        seasonOpen: primary ? primary.last.seasonOpen : null,
+        seasonOpen: primary ? primary.seasonOpen : null,
       },
       vectorClock: {
         eipShare: variant === 'low' ? (shareRange?.low ?? share) : variant === 'high' ? (shareRange?.high ?? share) : share,
