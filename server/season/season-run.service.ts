@@ -9,6 +9,7 @@ import { emptyVectorClockRows, SeasonRepository } from './season.repository';
 import { SeasonRunEntity } from './season-run.entity';
 import { TierSettingsService } from './tier-settings.service';
 import { changedDriver, tierRank } from '../../shared/tier';
+import { raiseSeasonFlags } from '../flags/flags.service';
 
 export const SEASON_RUN_LOCK = 'season-run';
 const BATCH = 25;
@@ -143,6 +144,10 @@ export class SeasonRunService {
           const before = previous.get(district.id);
           // One transaction per district: its stored season, its tier and its fingerprint land together.
           const written = await this.ctx.ds.transaction(async (manager) => {
+            // Derived data, recomputable: the commit need not wait for the WAL flush. Atomicity is
+            // unchanged; a crash can only lose the newest commits, whose fingerprints go with them,
+            // so the next run redoes those districts.
+            await manager.query('SET LOCAL synchronous_commit = off');
             const n = await this.repo.replaceVectorClock(manager, district.id, seasonStart, result.rows);
             await manager.upsert(DistrictTierEntity, {
               districtId: district.id, epiYear: week.year, epiWeek: week.week, runId: run.id, computedAt: new Date(), asOf,
@@ -153,6 +158,10 @@ export class SeasonRunService {
               profileId: result.profileId, casesThisWeek: result.casesThisWeek, channelZone: result.channelZone,
               latestWeather: result.latestWeather,
             }, ['districtId', 'epiYear', 'epiWeek']);
+            await raiseSeasonFlags(manager, {
+              runId: run.id, districtId: district.id, epiYear: week.year, epiWeek: week.week, tier: result.tier,
+              previousTier: before?.tier ?? null, previousDrivers: (before?.drivers as never) ?? null, channelZone: result.channelZone,
+            });
             await manager.upsert(DistrictRunStateEntity, {
               districtId: district.id, seasonYear, asOf, fingerprint: fingerprints.get(district.id) ?? '', runId: run.id,
             }, ['districtId']);
