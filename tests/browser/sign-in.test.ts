@@ -40,16 +40,18 @@ describe('signing in through the browser', () => {
   it('when the admin signs in, then the navigation offers the Ladder, Users and Districts, and the users screen lists the demo users', async () => {
     const { page, context } = await signIn('admin@halvern.example');
     expect(await page.getByTestId('current-role').innerText()).toContain('Admin');
-    expect(await navLabels(page)).toEqual(['Ladder', 'Users', 'Districts']);
+    const labels = await navLabels(page);
+    expect(labels.slice(0, 3)).toEqual(['Ladder', 'Users', 'Districts']);
+    expect(labels).toContain('Season runs');
     await page.locator('nav[aria-label="Main"]').getByRole('link', { name: 'Users' }).click();
     await page.getByText('worker@halvern.example').waitFor();
     await context.close();
   });
 
-  it('when the community worker signs in, then only the Ladder is offered, with their one district, and admin screens say not allowed', async () => {
+  it('when the community worker signs in, then only the Ladder and Surveys are offered, with their one district, and admin screens say not allowed', async () => {
     const { page, context } = await signIn('worker@halvern.example');
     expect(await page.getByTestId('current-role').innerText()).toContain('Community worker');
-    expect(await navLabels(page)).toEqual(['Ladder']);
+    expect(await navLabels(page)).toEqual(['Ladder', 'Surveys']);
     await page.getByText('Saltmere').first().waitFor();
     expect(await page.getByText('Korrin Bay').count()).toBe(0);
     await page.goto(server.baseUrl + '/admin/users');

@@ -5,6 +5,7 @@ import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { queryClient } from '../../src/app/query-client';
 import { routes } from '../../src/app/router';
 import { adminMe, demoDistricts, demoUsers, fakeApi, json, officerMe } from './support/fake-api';
+import { demoBoard } from './support/board-fixtures';
 import { render, waitFor, type Rendered } from './support/render';
 
 let view: Rendered | undefined;
@@ -36,16 +37,22 @@ describe('app shell', () => {
     expect(router.state.location.search).toBe('?next=%2Fadmin%2Fusers');
   });
 
-  it('when an admin opens the Ladder, then the header, the nav, the districts, the demo label and the cautions show', async () => {
-    fakeApi({ 'GET /api/me': () => json(200, adminMe), 'GET /api/districts': () => json(200, { districts: demoDistricts }) });
+  it('when an admin opens the Ladder, then the header, the nav, the ranked districts, the demo label and the cautions show', async () => {
+    fakeApi({
+      'GET /api/me': () => json(200, adminMe),
+      'GET /api/board': () => json(200, demoBoard),
+      'GET /api/districts/boundaries': () => json(200, { type: 'FeatureCollection', features: [] }),
+    });
     const { container } = await open('/');
     await waitFor(() => expect(container.textContent).toContain('Saltmarsh Coast'));
     expect(heading(container)).toBe('Ladder');
     expect(container.querySelector('[data-testid="current-role"]')?.textContent).toBe('Admin');
     const nav = container.querySelector('nav[aria-label="Main"]')!;
-    expect([...nav.querySelectorAll('a')].map((a) => a.textContent)).toEqual(['Ladder', 'Users', 'Districts']);
+    const labels = [...nav.querySelectorAll('a')].map((a) => a.textContent);
+    expect(labels.slice(0, 3)).toEqual(['Ladder', 'Users', 'Districts']);
+    expect(labels).toContain('Season runs');
     expect(container.textContent).toContain('Demo data — the Halvern Region is invented');
-    expect(container.textContent).toContain('82,500 (2024)');
+    expect(container.textContent).toContain('Above the channel');
     expect(container.textContent).toContain('licensed clinician');
   });
 
@@ -55,7 +62,10 @@ describe('app shell', () => {
     await waitFor(() => expect(heading(container)).toBe('Not allowed'));
     expect(container.querySelector('[data-testid="current-role"]')?.textContent).toBe('Health officer');
     const nav = container.querySelector('nav[aria-label="Main"]')!;
-    expect([...nav.querySelectorAll('a')].map((a) => a.textContent)).toEqual(['Ladder']);
+    const labels = [...nav.querySelectorAll('a')].map((a) => a.textContent);
+    expect(labels[0]).toBe('Ladder');
+    expect(labels).not.toContain('Users');
+    expect(labels).not.toContain('Districts');
   });
 
   it('when an admin opens Users and Districts, then both tables list their rows', async () => {

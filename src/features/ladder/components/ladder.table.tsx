@@ -1,0 +1,326 @@
+import { useId, useMemo, useRef, useState, type ReactNode } from 'react';
+import { Link } from 'react-router-dom';
+import {
+  columnFilteringFeature,
+  columnVisibilityFeature,
+  createColumnHelper,
+  createFilteredRowModel,
+  createSortedRowModel,
+  globalFilteringFeature,
+  rowSortingFeature,
+  sortFn_alphanumeric,
+  tableFeatures,
+  useTable,
+  type FilterFn,
+  type Header,
+  type Row,
+  type SortFn,
+} from '@tanstack/react-table';
+import type { LadderRow } from '../../../../shared/api/board.schema';
+import { DRIVER_LABELS, TIER_LABELS, tierRank } from '../../../../shared/tier';
+import { downloadCsv, toCsv, type CsvCell } from '../../../lib/csv';
+import {
+  CONFIDENCE_MARKS,
+  driverLabel,
+  formatCount,
+  formatDay,
+  formatScore,
+  tierChangeArrow,
+  tierChangeText,
+  tierRangeText,
+  zoneLabel,
+} from '../ladder-format';
+import { useRowWindow } from '../use-row-window';
+import { TierBadge } from './tier-badge';
+
+/** What each Ladder column also knows: its plain name (column chooser) and its CSV value. */
+type LadderColumnMeta = { label: string; csv: (row: LadderRow) => CsvCell };
+
+/** Tier first, then score within the tier: the order the server ranks by. */
+const byTierThenScore: SortFn<any, LadderRow> = (a, b) =>
+  tierRank(a.original.tier) - tierRank(b.original.tier) || a.original.score - b.original.score;
+
+/** One text filter over the words a person sees in a row: name, code, tier, drivers, zone. */
+const matchesRowText: FilterFn<any, LadderRow> = (row, _columnId, value: string) =>
+  searchText(row.original).includes(String(value).trim().toLowerCase());
+matchesRowText.autoRemove = (value) => !value || !String(value).trim();
+
+export const ladderFeatures = tableFeatures({
+  columnVisibilityFeature,
+  columnFilteringFeature,
+  globalFilteringFeature,
+  rowSortingFeature,
+  filteredRowModel: createFilteredRowModel(),
+  sortedRowModel: createSortedRowModel(),
+  sortFns: { alphanumeric: sortFn_alphanumeric, byTierThenScore },
+  filterFns: { matchesRowText },
+  columnMeta: {} as LadderColumnMeta,
+});
+type LadderFeatures = typeof ladderFeatures;
+
+export function searchText(r: LadderRow): string {
+  return [
+    r.name,
+    r.code,
+    TIER_LABELS[r.tier],
+    r.leadingDriver ? DRIVER_LABELS[r.leadingDriver] : '',
+    zoneLabel(r.channelZone),
+    CONFIDENCE_MARKS[r.confidence] ?? '',
+  ]
+    .join(' ')
+    .toLowerCase();
+}
+
+const column = createColumnHelper<LadderFeatures, LadderRow>();
+const columns = column.columns([
+  column.accessor('rank', {
+    header: 'Rank',
+    sortUndefined: 'last',
+    enableHiding: false,
+    meta: { label: 'Rank', csv: (r) => r.rank },
+    cell: (c) => <span className="tabular-nums">{c.getValue()}</span>,
+  }),
+  column.accessor('name', {
+    id: 'district',
+    header: 'District',
+    sortFn: 'alphanumeric',
+    enableHiding: false,
+    meta: { label: 'District', csv: (r) => r.name },
+    cell: (c) => (
+      <span className="cell-stack">
+        <Link to={`/districts/${c.row.original.districtId}`} className="link truncate">
+          {c.getValue()}
+        </Link>
+        <span className="font-mono text-xs text-ink-muted">{c.row.original.code}</span>
+      </span>
+    ),
+  }),
+  column.accessor('tier', {
+    header: 'Tier',
+    sortFn: 'byTierThenScore',
+    sortDescFirst: true,
+    meta: { label: 'Tier', csv: (r) => TIER_LABELS[r.tier] },
+    cell: (c) => {
+      const r = c.row.original;
+      const range = tierRangeText(r);
+      return (
+        <span className="cell-stack">
+          <TierBadge tier={r.tier} confidence={r.confidence} />
+          <span className="text-xs text-ink-muted">
+            score {formatScore(r.score)}
+            {range ? ` · range ${range}` : ''}
+          </span>
+        </span>
+      );
+    },
+  }),
+  // null reads as undefined so that `sortUndefined: 'last'` keeps rows without a value at the end.
+  column.accessor((r) => r.tierChange ?? undefined, {
+    id: 'change',
+    header: 'Since last week',
+    sortUndefined: 'last',
+    sortDescFirst: true,
+    meta: { label: 'Since last week', csv: (r) => tierChangeText(r.tierChange) },
+    cell: (c) => {
+      const r = c.row.original;
+      return (
+        <span className="cell-stack">
+          <span>
+            <span aria-hidden="true" className="change-arrow">
+              {tierChangeArrow(r.tierChange)}
+            </span>{' '}
+            {tierChangeText(r.tierChange)}
+          </span>
+          {r.scoreChange !== null ? (
+            <span className="text-xs text-ink-muted tabular-nums">
+              score {r.scoreChange >= 0 ? '+' : '−'}
+              {formatScore(Math.abs(r.scoreChange))}
+            </span>
+          ) : null}
+        </span>
+      );
+    },
+  }),
+  column.accessor((r) => driverLabel(r.leadingDriver), {
+    id: 'leadingDriver',
+    header: 'Leading driver',
+    sortFn: 'alphanumeric',
+    meta: { label: 'Leading driver', csv: (r) => (r.leadingDriver ? DRIVER_LABELS[r.leadingDriver] : '') },
+  }),
+  column.accessor((r) => r.casesThisWeek ?? undefined, {
+    id: 'cases',
+    header: 'Cases this week',
+    sortUndefined: 'last',
+    sortDescFirst: true,
+    meta: { label: 'Cases this week', csv: (r) => r.casesThisWeek },
+    cell: (c) => <span className="tabular-nums">{formatCount(c.row.original.casesThisWeek)}</span>,
+  }),
+  column.accessor((r) => zoneLabel(r.channelZone), {
+    id: 'channelZone',
+    header: 'Channel',
+    sortFn: 'alphanumeric',
+    meta: { label: 'Channel', csv: (r) => (r.channelZone ? zoneLabel(r.channelZone) : '') },
+  }),
+  column.accessor((r) => r.latestWeather ?? '', {
+    id: 'latestWeather',
+    header: 'Freshest weather',
+    sortFn: 'alphanumeric',
+    sortDescFirst: true,
+    meta: { label: 'Freshest weather', csv: (r) => r.latestWeather ?? '' },
+    cell: (c) => <span className="whitespace-nowrap">{formatDay(c.row.original.latestWeather)}</span>,
+  }),
+]);
+
+/** The CSV of what the table shows: the filtered, sorted rows and the visible columns. */
+export function ladderCsv(rows: readonly Row<LadderFeatures, LadderRow>[], visible: readonly { id: string; columnDef: { meta?: LadderColumnMeta } }[]): string {
+  const cols = visible.filter((c) => c.columnDef.meta);
+  const header = cols.flatMap((c) => (c.id === 'district' ? ['District', 'Code'] : c.id === 'tier' ? ['Tier', 'Score', 'Tier range', 'Confidence'] : [c.columnDef.meta!.label]));
+  const body = rows.map((row) => {
+    const r = row.original;
+    return cols.flatMap((c) => {
+      const meta = c.columnDef.meta!;
+      if (c.id === 'district') return [r.name, r.code];
+      if (c.id === 'tier') return [meta.csv(r), r.score, tierRangeText(r) ?? '', CONFIDENCE_MARKS[r.confidence] ?? 'ok'];
+      return [meta.csv(r)];
+    });
+  });
+  return toCsv(header, body);
+}
+
+/** Fixed row height (px) of the windowed body; .ladder-table rows use the same height in styles.css. */
+export const LADDER_ROW_HEIGHT = 60;
+
+function SortHeader({ header }: { header: Header<LadderFeatures, LadderRow, unknown> }) {
+  const sorted = header.column.getIsSorted();
+  const label = header.column.columnDef.meta?.label ?? header.column.id;
+  return (
+    <button type="button" className="sort-button" onClick={header.column.getToggleSortingHandler()}>
+      {label}
+      <span aria-hidden="true" className="sort-mark">
+        {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
+      </span>
+    </button>
+  );
+}
+
+const ariaSort = (s: false | 'asc' | 'desc') => (s === 'asc' ? 'ascending' : s === 'desc' ? 'descending' : 'none');
+
+/**
+ * The Ladder as a table: sortable by every column, one text filter, a column chooser, CSV of what is shown,
+ * and a windowed body so thousands of districts scroll smoothly.
+ */
+export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]; caption: ReactNode; toolbarExtra?: ReactNode }) {
+  const id = useId();
+  const [globalFilter, setGlobalFilter] = useState('');
+  const table = useTable({
+    features: ladderFeatures,
+    columns,
+    data: rows,
+    getRowId: (r) => r.districtId,
+    globalFilterFn: 'matchesRowText',
+    getColumnCanGlobalFilter: (c) => c.id === 'district',
+    state: { globalFilter },
+    onGlobalFilterChange: setGlobalFilter,
+    enableSortingRemoval: true,
+  });
+  const visibleRows = table.getRowModel().rows;
+  const leafColumns = table.getVisibleLeafColumns();
+  const scrollRef = useRef<HTMLDivElement>(null);
+  const win = useRowWindow({ count: visibleRows.length, rowHeight: LADDER_ROW_HEIGHT, scrollRef });
+  const slice = visibleRows.slice(win.first, win.last);
+  const hideable = useMemo(() => table.getAllLeafColumns().filter((c) => c.getCanHide()), [table]);
+
+  const exportCsv = () => {
+    const stamp = new Date().toISOString().slice(0, 10);
+    downloadCsv(`broodcast-ladder-${stamp}.csv`, ladderCsv(visibleRows, leafColumns));
+  };
+
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-end gap-3">
+        <div className="field min-w-[14rem] flex-1">
+          <label htmlFor={`${id}-filter`} className="field-label">
+            Filter districts
+          </label>
+          <input
+            id={`${id}-filter`}
+            type="search"
+            className="input"
+            placeholder="Name, code, tier or driver"
+            value={globalFilter}
+            onChange={(e) => table.setGlobalFilter(e.currentTarget.value)}
+            aria-describedby={`${id}-count`}
+          />
+        </div>
+        <details className="column-chooser">
+          <summary className="btn btn-secondary">Columns</summary>
+          <fieldset className="column-chooser-panel">
+            <legend className="field-label">Show columns</legend>
+            {hideable.map((c) => (
+              <label key={c.id} className="flex cursor-pointer items-center gap-2 py-0.5">
+                <input type="checkbox" className="checkbox" checked={c.getIsVisible()} onChange={c.getToggleVisibilityHandler()} />
+                <span>{c.columnDef.meta?.label ?? c.id}</span>
+              </label>
+            ))}
+          </fieldset>
+        </details>
+        <button type="button" className="btn btn-secondary" onClick={exportCsv} disabled={visibleRows.length === 0}>
+          Export CSV
+        </button>
+        {toolbarExtra}
+      </div>
+      <p id={`${id}-count`} className="text-sm text-ink-muted" aria-live="polite">
+        {visibleRows.length === rows.length
+          ? `${rows.length.toLocaleString('en-GB')} districts`
+          : `${visibleRows.length.toLocaleString('en-GB')} of ${rows.length.toLocaleString('en-GB')} districts match`}
+      </p>
+      <div ref={scrollRef} className="table-wrap ladder-scroll" onScroll={win.onScroll} tabIndex={0} aria-labelledby={`${id}-caption`}>
+        <table className="data-table ladder-table" aria-rowcount={visibleRows.length + 1}>
+          <caption id={`${id}-caption`} className="sr-only">
+            {caption}
+          </caption>
+          <thead>
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id} aria-rowindex={1}>
+                {group.headers.map((header) => (
+                  <th key={header.id} scope="col" aria-sort={ariaSort(header.column.getIsSorted())}>
+                    {header.isPlaceholder ? null : <SortHeader header={header} />}
+                  </th>
+                ))}
+              </tr>
+            ))}
+          </thead>
+          <tbody>
+            {visibleRows.length === 0 ? (
+              <tr>
+                <td colSpan={leafColumns.length} className="text-ink-muted">
+                  {rows.length === 0 ? 'No district has a tier yet. A season run computes them.' : 'No district matches the filter.'}
+                </td>
+              </tr>
+            ) : (
+              <>
+                {win.padTop > 0 ? <tr aria-hidden="true" className="spacer-row" style={{ height: win.padTop }} /> : null}
+                {slice.map((row, i) => (
+                  <tr key={row.id} aria-rowindex={win.first + i + 2} data-district={row.original.code}>
+                    {row.getVisibleCells().map((cell) =>
+                      cell.column.id === 'district' ? (
+                        <th key={cell.id} scope="row">
+                          <table.FlexRender cell={cell} />
+                        </th>
+                      ) : (
+                        <td key={cell.id}>
+                          <table.FlexRender cell={cell} />
+                        </td>
+                      ),
+                    )}
+                  </tr>
+                ))}
+                {win.padBottom > 0 ? <tr aria-hidden="true" className="spacer-row" style={{ height: win.padBottom }} /> : null}
+              </>
+            )}
+          </tbody>
+        </table>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,128 @@
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { districtFileResponse } from '../../shared/api/board.schema';
+import { queryClient } from '../../src/app/query-client';
+import { routes } from '../../src/app/router';
+import { CAUTIONS } from '../../src/features/cautions/cautions-panel';
+import { generationDays } from '../../src/features/district-file/charts/vector-clock.charts';
+import { demoDistrictFile } from './support/board-fixtures';
+import { fakeApi, json, officerMe } from './support/fake-api';
+import { click, render, selectOption, waitFor, type Rendered } from './support/render';
+
+vi.mock('../../src/components/chart/echart', () => import('./support/echart-stub'));
+
+let view: Rendered | undefined;
+afterEach(() => {
+  view?.unmount();
+  view = undefined;
+  queryClient.clear();
+  vi.unstubAllGlobals();
+});
+
+const file = demoDistrictFile();
+const path = `/districts/${file.district.id}`;
+
+async function open(url = path) {
+  const seasons: (string | null)[] = [];
+  const fetch = fakeApi({
+    'GET /api/me': () => json(200, officerMe),
+    [`GET /api/districts/${file.district.id}/file`]: () => json(200, file),
+  });
+  fetch.mockImplementation(async (input: string | URL | Request) => {
+    const u = new URL(String(input), 'http://localhost');
+    if (u.pathname === '/api/me') return json(200, officerMe);
+    if (u.pathname === `/api/districts/${file.district.id}/file`) {
+      seasons.push(u.searchParams.get('season'));
+      const year = Number(u.searchParams.get('season') ?? 2025);
+      return json(200, demoDistrictFile(year));
+    }
+    return json(404, { error: { code: 'not_found', message: 'not found' } });
+  });
+  const router = createMemoryRouter(routes, { initialEntries: [url] });
+  view = await render(
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>,
+  );
+  const c = view.container;
+  await waitFor(() => expect(c.querySelector('h1')?.textContent).toBe('Saltmarsh Coast'), 5000);
+  return { c, router, seasons };
+}
+
+describe('the District file', () => {
+  it('when the fixture is read with the shared schema, then it is a valid answer', () => {
+    expect(districtFileResponse.safeParse(file).success).toBe(true);
+  });
+
+  it('when an officer opens a District file, then the tier, its drivers with weights, contributions and data, the notes and the cautions show', async () => {
+    const { c } = await open();
+    expect(c.textContent).toContain('Demo data — the Halvern Region is invented');
+    expect(c.textContent).toContain('Tier for week 22 of 2025');
+    expect(c.textContent).toContain('Critical');
+    expect(c.textContent).toContain('stale inputs');
+    expect(c.textContent).toContain('range High to Critical');
+
+    const drivers = [...c.querySelectorAll('tr[data-driver]')];
+    expect(drivers.map((r) => r.querySelector('th')?.textContent)).toEqual(['Climate suitability', 'Vector clock', 'Larval indices', 'Case signal']);
+    const cases = c.querySelector('tr[data-driver="cases"]')!;
+    expect(cases.textContent).toContain('0.35'); // weight
+    expect(cases.textContent).toContain('0.44'); // contribution
+    expect(cases.textContent).toContain('Endemic channel zone');
+    expect(cases.textContent).toContain('above the channel');
+    expect(cases.textContent).toContain('Aberration test alarm');
+
+    expect(c.textContent).toContain('What changed since last week');
+    expect(c.textContent).toContain('The tier went up 1, from High to Critical');
+    expect(c.textContent).toContain('Case signal moved it most: its contribution went from 0.35 to 0.44');
+    expect(c.textContent).toContain('The newest weather is 5 days old.');
+
+    for (const line of CAUTIONS) expect(c.textContent).toContain(line);
+    expect(c.querySelector('a[href$="/cases"]')?.getAttribute('href')).toBe(`${path}/cases`);
+  });
+
+  it('when the charts are drawn, then each has a heading, a summary as its accessible name and a table behind a toggle', async () => {
+    const { c } = await open();
+    const figures = [...c.querySelectorAll('figure[data-chart]')];
+    expect(figures.map((f) => f.getAttribute('data-chart'))).toEqual([
+      'Daily temperature and humidity',
+      'Heat accumulation — Aedes aegypti with dengue',
+      'Vector clock — Aedes aegypti with dengue',
+      'Relative vectorial capacity — Aedes aegypti with dengue',
+      'Weekly cases against the endemic channel — Dengue',
+      'Larval indices',
+      'Tier history and its drivers',
+    ]);
+    for (const f of figures) {
+      expect(f.querySelector('h3')?.textContent).toBeTruthy();
+      expect(f.querySelector('[role="img"]')?.getAttribute('aria-label')?.length).toBeGreaterThan(30);
+      expect(f.querySelector('[data-testid="echart-stub"]')).not.toBeNull();
+    }
+    const cases = figures[4];
+    expect(cases.textContent).toContain('Week 22 had 42 cases above the channel');
+    const toggle = [...cases.querySelectorAll('button')].find((b) => b.textContent === 'Show as table')!;
+    expect(toggle.getAttribute('aria-expanded')).toBe('false');
+    await click(toggle);
+    expect(toggle.getAttribute('aria-expanded')).toBe('true');
+    const rows = [...cases.querySelectorAll('tbody tr')].map((r) => [...r.children].map((x) => x.textContent));
+    expect(rows[3]).toEqual(['Week 22', '42', '3', '9', '18', '9']);
+  });
+
+  it('when another season is chosen, then the file of that season is fetched', async () => {
+    const { c, router, seasons } = await open();
+    expect(seasons).toEqual([null]);
+    const select = [...c.querySelectorAll('select')][0] as HTMLSelectElement;
+    expect([...select.options].map((o) => o.value)).toEqual(['2025', '2024', '2023']);
+    await selectOption(select, '2024');
+    await waitFor(() => expect(seasons).toContain('2024'));
+    expect(router.state.location.search).toBe('?season=2024');
+    await waitFor(() => expect(c.textContent).toContain('Tier for week 22 of 2024'));
+  });
+
+  it('when the generations pass a whole number, then that day is a generation mark', () => {
+    expect(generationDays({ dates: ['d1', 'd2', 'd3', 'd4'], generations: [0.4, 1.1, null, 2.0] })).toEqual([
+      { date: 'd2', generation: 1 },
+      { date: 'd4', generation: 2 },
+    ]);
+  });
+});

@@ -1,0 +1,82 @@
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { queryClient } from '../../src/app/query-client';
+import { routes } from '../../src/app/router';
+import { seasonRun } from './support/board-fixtures';
+import { adminMe, fakeApi, json } from './support/fake-api';
+import { click, getButton, render, waitFor, type Rendered } from './support/render';
+
+let view: Rendered | undefined;
+afterEach(() => {
+  view?.unmount();
+  view = undefined;
+  queryClient.clear();
+  vi.unstubAllGlobals();
+});
+
+async function open(handlers: Parameters<typeof fakeApi>[0]) {
+  const fetch = fakeApi({ 'GET /api/me': () => json(200, adminMe), ...handlers });
+  const router = createMemoryRouter(routes, { initialEntries: ['/season-runs'] });
+  view = await render(
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>,
+  );
+  await waitFor(() => expect(view!.container.querySelector('h1')?.textContent).toBe('Season runs'), 5000);
+  return { c: view.container, fetch };
+}
+
+describe('season runs', () => {
+  it('when a run is in progress, then the progress bar shows districts done of the total', async () => {
+    const running = seasonRun();
+    const { c } = await open({
+      'GET /api/season-runs': () => json(200, { runs: [running] }),
+      [`GET /api/season-runs/${running.id}`]: () => json(200, running),
+    });
+    const bar = await waitFor(() => {
+      const b = c.querySelector('[role="progressbar"]');
+      if (!b) throw new Error('no progress bar');
+      return b;
+    });
+    expect(bar.getAttribute('aria-valuenow')).toBe('3');
+    expect(bar.getAttribute('aria-valuemax')).toBe('12');
+    expect(c.textContent).toContain('3 of 12 districts (25%)');
+    expect(getButton(c, 'Run the season now').disabled).toBe(true);
+  });
+
+  it('when the run is started while another runs, then the 409 message is shown', async () => {
+    const done = seasonRun({ status: 'succeeded', districtsDone: 12, finishedAt: '2025-06-02T08:05:00.000Z', warnings: [{ code: 'no_weather', message: 'Pellam Highlands has no weather.' }] });
+    const { c } = await open({
+      'GET /api/season-runs': () => json(200, { runs: [done] }),
+      'POST /api/season-runs': () => json(409, { error: { code: 'run_in_progress', message: 'Wait for it to finish.' } }),
+    });
+    await waitFor(() => expect(c.textContent).toContain('1 warning'));
+    expect(c.textContent).toContain('Pellam Highlands has no weather.');
+    await click(getButton(c, 'Run the season now'));
+    await waitFor(() => expect(c.querySelector('[role="alert"]')?.textContent).toBe('A season run is already in progress. Wait for it to finish.'));
+  });
+
+  it('when a run is started, then its progress is polled until it finishes and the board is refreshed', async () => {
+    let polls = 0;
+    const started = seasonRun({ districtsDone: 0 });
+    const { c, fetch } = await open({
+      'GET /api/season-runs': () => json(200, { runs: [] }),
+      'POST /api/season-runs': () => json(202, started),
+      [`GET /api/season-runs/${started.id}`]: () => {
+        polls++;
+        return json(200, polls < 2 ? { ...started, districtsDone: 6 } : { ...started, status: 'succeeded', districtsDone: 12, finishedAt: '2025-06-02T08:05:00.000Z' });
+      },
+    });
+    await waitFor(() => expect(c.textContent).toContain('No season run yet.'));
+    queryClient.setQueryData(['board'], { rows: [] });
+    queryClient.setQueryData(['districts', 'x', 'file', null], {});
+    await click(getButton(c, 'Run the season now'));
+    const sent = fetch.mock.calls.find(([, init]) => (init as RequestInit | undefined)?.method === 'POST');
+    expect(JSON.parse(String((sent![1] as RequestInit).body))).toEqual({ full: false });
+    await waitFor(() => expect(c.textContent).toContain('Season run finished'), 5000);
+    expect(c.querySelector('[role="progressbar"]')?.getAttribute('aria-valuenow')).toBe('12');
+    await waitFor(() => expect(queryClient.getQueryState(['districts', 'x', 'file', null])?.isInvalidated).toBe(true));
+    expect(queryClient.getQueryState(['board'])?.isInvalidated).toBe(true);
+  });
+});
