@@ -61,3 +61,17 @@ export const districtDto = z.object({
 });
 export type DistrictDto = z.infer<typeof districtDto>;
 export const districtsResponse = z.object({ districts: z.array(districtDto) });
+
+/** `GET /api/districts/boundaries`: the districts the user may see, as one GeoJSON FeatureCollection. */
+export const boundariesResponse = z.object({
+  type: z.literal('FeatureCollection'),
+  features: z.array(
+    z.object({
+      type: z.literal('Feature'),
+      id: uuid,
+      properties: z.object({ id: uuid, code: z.string(), name: z.string() }),
+      geometry: polygonGeometry,
+    }),
+  ),
+});
+export type BoundariesResponse = z.infer<typeof boundariesResponse>;

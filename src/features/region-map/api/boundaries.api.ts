@@ -1,25 +1,9 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
-import { z } from 'zod';
-import { polygonGeometry } from '../../../../shared/api/districts.schema';
+import { boundariesResponse } from '../../../../shared/api/districts.schema';
 import { api } from '../../../lib/api-client';
 import { queryKeys } from '../../../lib/query-keys';
 
-/**
- * The answer of GET /api/districts/boundaries. The contract has no shared schema for it yet, so it is
- * described here from the server's presenter (a FeatureCollection of the districts' Polygon/MultiPolygon).
- */
-export const boundariesResponse = z.object({
-  type: z.literal('FeatureCollection'),
-  features: z.array(
-    z.object({
-      type: z.literal('Feature'),
-      id: z.string(),
-      properties: z.object({ id: z.string(), code: z.string(), name: z.string() }),
-      geometry: polygonGeometry,
-    }),
-  ),
-});
-export type BoundariesResponse = z.infer<typeof boundariesResponse>;
+export type { BoundariesResponse } from '../../../../shared/api/districts.schema';
 
 /** Under the districts family, so any district change (a new boundary) refreshes the map too. */
 export const boundariesQueryKey = [...queryKeys.districts.all, 'boundaries'] as const;
