@@ -9,6 +9,7 @@ import { DistrictProfileEntity } from '../server/season/district-profile.entity'
 import { loadDemoCases } from './demo-cases';
 import { buildDemoRegion, DEMO_PASSWORD, DEMO_USERS } from './demo-region';
 import { seedDemoWeather } from './demo-weather';
+import { seedDemoSubscriptions } from '../server/bulletins/subscriptions.service';
 
 /**
  * Load the invented Halvern Region and its demo users into an empty database, in one transaction.
@@ -39,6 +40,7 @@ export async function seedDemoIfEmpty(ds: DataSource, opts: { nodeEnv: string; b
     }
     await loadDemoCases(manager, byCode);
     await seedDemoWeather(manager);
+    await seedDemoSubscriptions(manager);
   });
   return true;
 }

@@ -4,6 +4,7 @@
  * Ctrl-C stops everything it started; the data stays in the cluster for the next start.
  */
 import { spawn } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
 import path from 'node:path';
 import { stopCluster } from './lib/cluster';
 import { buildClient } from './lib/build-client';
@@ -12,6 +13,7 @@ import { startMailCatcher } from './lib/mail-catcher';
 import { migrate } from './lib/prepare-database';
 import { ports } from './lib/ports';
 import { DEMO_PASSWORD, DEMO_USERS } from '../sample/demo-region';
+import { startFakeFeed } from '../sample/fake-feed';
 
 const started = Date.now();
 const { cluster, url, secrets } = await startDevDatabase();
@@ -36,6 +38,9 @@ try {
 
   const maildev = await startMailCatcher(ports.smtp, ports.mailWeb, path.join(projectDir, '.local', 'mail', 'dev'));
   cleanups.push(() => maildev.stop());
+  const feedKey = randomBytes(18).toString('base64url');
+  const feed = await startFakeFeed({ port: ports.feed, key: feedKey });
+  cleanups.push(() => feed.stop());
 
   console.log('› building the client');
   await buildClient();
@@ -53,6 +58,9 @@ try {
       SMTP_HOST: '127.0.0.1',
       SMTP_PORT: String(ports.smtp),
       APP_URL: process.env.APP_URL ?? appUrl,
+      WEATHER_FEED_URL: process.env.WEATHER_FEED_URL ?? feed.url,
+      WEATHER_FEED_KEY: process.env.WEATHER_FEED_KEY ?? feedKey,
+      WEATHER_FEED_CRON: process.env.WEATHER_FEED_CRON ?? '*/30 * * * *',
     },
   });
   child.once('exit', (code) => {

@@ -14,6 +14,7 @@ import { startMailCatcher } from './lib/mail-catcher';
 import { ports } from './lib/ports';
 import { migrate } from './lib/prepare-database';
 import { loadLocalSecrets } from './lib/secrets';
+import { startFakeFeed } from '../sample/fake-feed';
 
 const t0 = Date.now();
 const secrets = loadLocalSecrets(projectDir, 'test');
@@ -31,6 +32,8 @@ try {
   await migrate(templateUrl);
 
   const maildev = await startMailCatcher(ports.testSmtp, ports.testMailWeb, path.join(projectDir, '.local', 'mail', 'test'), { fresh: true });
+  const feedKey = `test-feed-${Date.now().toString(36)}`;
+  const feed = await startFakeFeed({ port: ports.testFeed, key: feedKey });
   try {
     await buildClient();
     console.log(`› test set-up took ${((Date.now() - t0) / 1000).toFixed(1)} s`);
@@ -44,12 +47,15 @@ try {
           TEST_TEMPLATE_DATABASE_URL: templateUrl,
           TEST_SMTP_PORT: String(ports.testSmtp),
           TEST_MAIL_WEB_PORT: String(ports.testMailWeb),
+          TEST_FEED_URL: feed.url,
+          TEST_FEED_KEY: feedKey,
         },
       });
       child.once('exit', (code, signal) => resolve(code ?? (signal ? 1 : 0)));
     });
   } finally {
     await maildev.stop();
+    await feed.stop();
   }
 } catch (err) {
   console.error(err);

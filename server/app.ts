@@ -17,6 +17,8 @@ import { casesRoutes } from './cases/cases.routes';
 import { weatherRoutes } from './weather/weather.routes';
 import { boardRoutes } from './board/board.routes';
 import { seasonRoutes } from './season/season.routes';
+import { flagsRoutes } from './flags/flags.routes';
+import { bulletinsRoutes } from './bulletins/bulletins.routes';
 
 export interface BroodcastApp extends Express {
   locals: Express['locals'] & { routes: RouteDef[] };
@@ -56,6 +58,8 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...casesRoutes(ctx),
     ...seasonRoutes(ctx),
     ...boardRoutes(ctx),
+    ...flagsRoutes(ctx),
+    ...bulletinsRoutes(ctx),
   ];
   app.locals.routes = routes;
 

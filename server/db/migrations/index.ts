@@ -5,6 +5,7 @@ import { Foundation1796164188542 } from './1796164188542-Foundation';
 import { casesMigrations } from '../../cases/cases.migrations';
 import { weatherMigrations } from '../../weather/weather.migrations';
 import { seasonMigrations } from '../../season/season.migrations';
+import { flagsMigrations } from '../../flags/flags.migrations';
 
 // Each feature keeps its own list; TypeORM runs them all in timestamp order.
-export const migrations: Function[] = [Foundation1796164188542, ...weatherMigrations, ...casesMigrations, ...seasonMigrations];
+export const migrations: Function[] = [Foundation1796164188542, ...weatherMigrations, ...casesMigrations, ...seasonMigrations, ...flagsMigrations];

@@ -1,4 +1,19 @@
-import type { AccessTable } from './who';
+import { ALL_SIGNED_IN, type AccessTable } from './who';
 
-/** Routes of the weather feature and who may call them. */
-export const weatherAccess: AccessTable = {};
+const EDITORS: AccessTable[string] = ['admin', 'officer'];
+
+/** Routes of the weather feature and who may call them (DESIGN.md §2: upload or correct weather, manage stations). */
+export const weatherAccess: AccessTable = {
+  'GET /weather/stations': ALL_SIGNED_IN,
+  'POST /weather/stations': EDITORS,
+  'PATCH /weather/stations/:id': EDITORS,
+  'GET /weather/stations/:id/days': ALL_SIGNED_IN,
+  'GET /weather/stations/:id/revisions': EDITORS,
+  'POST /weather/uploads': EDITORS,
+  'GET /weather/uploads': EDITORS,
+  'GET /weather/uploads/:id': EDITORS,
+  'GET /weather/uploads/:id/issues': EDITORS,
+  'PUT /weather/observations': EDITORS,
+  'POST /weather/feed/pull': EDITORS,
+  'GET /weather/districts/:id/series': ALL_SIGNED_IN,
+};

@@ -1,0 +1,92 @@
+import type { DriverDto } from '../../shared/api/board.schema';
+import { type ActionDto } from '../../shared/api/flags.schema';
+import type { Tier } from '../../shared/tier';
+import type { AppContext } from '../app-context';
+import type { Principal } from '../auth/principal';
+import { presentBoard } from '../board/board.presenter';
+import { BoardRepository } from '../board/board.repository';
+import { DistrictFileService } from '../board/district-file.service';
+import { actionsOf } from '../flags/flag-texts';
+
+export interface CaseWeek {
+  week: number;
+  count: number | null;
+  lower: number | null;
+  centre: number | null;
+  upper: number | null;
+}
+
+/** Everything one district's bulletin says, read from stored results (nothing is recomputed). */
+export interface BulletinData {
+  district: { id: string; code: string; name: string; isDemo: boolean };
+  epiYear: number;
+  epiWeek: number;
+  asOf: string | null;
+  tier: { tier: Tier; tierLow: Tier; tierHigh: Tier; score: number; confidence: string; drivers: DriverDto[]; notes: string[] } | null;
+  ranking: { rank: number; code: string; name: string; tier: Tier; score: number; confidence: string; isThis: boolean }[];
+  tierHistory: { week: number; tier: Tier; score: number }[];
+  cases: { diseaseName: string; weeks: CaseWeek[] }[];
+  advisories: { issuedAt: string; tier: Tier | null; message: string }[];
+  actions: ActionDto[];
+}
+
+/** The District file service reads as an admin would; the bulletin is written by the system, not a person. */
+const SYSTEM: Principal = { userId: '00000000-0000-0000-0000-000000000000', sessionId: '', email: '', displayName: 'Broodcast', role: 'admin', districtIds: [] };
+
+/** What to do at each tier, in the bulletin (advisories carry their own, chosen at sign-off). */
+export function actionsForTier(tier: Tier | null): ActionDto[] {
+  if (!tier || tier === 'baseline') return actionsOf(['source-reduction']);
+  if (tier === 'raised') return actionsOf(['source-reduction', 'larval-survey']);
+  if (tier === 'high') return actionsOf(['source-reduction', 'community-clean-up', 'larval-survey']);
+  return actionsOf(['source-reduction', 'community-clean-up', 'larval-survey', 'case-finding']);
+}
+
+export class BulletinDataReader {
+  private readonly board: BoardRepository;
+  private readonly files: DistrictFileService;
+
+  constructor(private readonly ctx: AppContext) {
+    this.board = new BoardRepository(ctx.ds);
+    this.files = new DistrictFileService(ctx);
+  }
+
+  /** The Ladder as it stands: its week, and every district ranked. */
+  async ranking() {
+    return presentBoard(await this.board.rows());
+  }
+
+  async read(districtId: string, board?: Awaited<ReturnType<BulletinDataReader['ranking']>>): Promise<BulletinData | null> {
+    const ladder = board ?? (await this.ranking());
+    if (ladder.epiYear === null || ladder.epiWeek === null) return null;
+    const file = await this.files.file(SYSTEM, districtId, ladder.epiYear);
+    const week = ladder.epiWeek;
+    const tierRow = file.tiers.find((t) => t.epiYear === ladder.epiYear && t.epiWeek === week) ?? null;
+    const advisories: { issued_at: Date; tier: Tier | null; message: string }[] = await this.ctx.ds.query(
+      `SELECT issued_at, tier, message FROM advisories WHERE district_id = $1 AND expires_at > now() ORDER BY issued_at DESC`,
+      [districtId],
+    );
+    const cases = file.cases
+      .map((c) => ({
+        diseaseName: c.diseaseName,
+        weeks: c.weeks.filter((w) => w <= week).map((w, i) => ({
+          week: w, count: c.counts[i], lower: c.channel.lower[i], centre: c.channel.centre[i], upper: c.channel.upper[i],
+        })),
+      }))
+      // The disease with the most cases in the bulletin's week first.
+      .sort((a, b) => (b.weeks[week - 1]?.count ?? -1) - (a.weeks[week - 1]?.count ?? -1));
+    return {
+      district: { id: file.district.id, code: file.district.code, name: file.district.name, isDemo: file.district.isDemo },
+      epiYear: ladder.epiYear,
+      epiWeek: week,
+      asOf: ladder.asOf,
+      tier: tierRow
+        ? { tier: tierRow.tier, tierLow: tierRow.tierLow, tierHigh: tierRow.tierHigh, score: tierRow.score, confidence: tierRow.confidence, drivers: tierRow.drivers, notes: tierRow.notes }
+        : null,
+      ranking: ladder.rows.map((r) => ({ rank: r.rank, code: r.code, name: r.name, tier: r.tier, score: r.score, confidence: r.confidence, isThis: r.districtId === districtId })),
+      tierHistory: file.tiers.filter((t) => t.epiWeek <= week).map((t) => ({ week: t.epiWeek, tier: t.tier, score: t.score })),
+      cases,
+      advisories: advisories.map((a) => ({ issuedAt: new Date(a.issued_at).toISOString(), tier: a.tier, message: a.message })),
+      actions: actionsForTier(tierRow?.tier ?? null),
+    };
+  }
+}

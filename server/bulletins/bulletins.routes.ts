@@ -1,0 +1,61 @@
+import { bulletinPreviewQuery, bulletinQuery, outboxQuery, subscriptionsBody, unsubscribeParams } from '../../shared/api/bulletins.schema';
+import type { AppContext } from '../app-context';
+import { defineRoute, type RouteDef } from '../http/route';
+import { OutboxService } from '../outbox/outbox.service';
+import { BulletinsService } from './bulletins.service';
+import { SubscriptionsService } from './subscriptions.service';
+
+/**
+ * The preview is served as its own small HTML document for an <iframe>: mail HTML needs inline styles,
+ * which the app's own policy forbids, so this answer gets a locked-down policy of its own (no scripts,
+ * no requests, sandboxed).
+ */
+const PREVIEW_CSP = "default-src 'none'; style-src 'unsafe-inline'; img-src data:; frame-ancestors 'self'; sandbox";
+
+/** Bulletin preview and send, subscriptions and one-click unsubscribe, and the mail delivery log. */
+export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
+  const bulletins = new BulletinsService(ctx);
+  const subscriptions = new SubscriptionsService(ctx);
+  const outbox = new OutboxService(ctx);
+  return [
+    defineRoute({
+      method: 'get', path: '/bulletins/preview', access: ['supervisor'], query: bulletinPreviewQuery,
+      handler: ({ query }) => bulletins.preview(query.districtId),
+    }),
+    defineRoute({
+      method: 'get', path: '/bulletins/preview/html', access: ['supervisor'], query: bulletinQuery,
+      handler: async ({ query }, _req, res) => {
+        const html = await bulletins.previewHtml(query.districtId);
+        res.setHeader('Content-Security-Policy', PREVIEW_CSP);
+        res.setHeader('X-Frame-Options', 'SAMEORIGIN');
+        res.type('html').send(html);
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/bulletins/preview/pdf', access: ['supervisor'], query: bulletinQuery,
+      handler: async ({ query }, _req, res) => {
+        const { filename, pdf } = await bulletins.previewPdf(query.districtId);
+        res.type('application/pdf').setHeader('Content-Disposition', `attachment; filename="${filename}"`);
+        res.send(pdf);
+      },
+    }),
+    defineRoute({
+      method: 'post', path: '/bulletins/send', access: ['admin', 'supervisor'],
+      handler: ({ principal }) => bulletins.sendNow(principal),
+    }),
+    defineRoute({ method: 'get', path: '/subscriptions/me', access: 'signed-in', handler: ({ principal }) => subscriptions.mine(principal) }),
+    defineRoute({
+      method: 'put', path: '/subscriptions/me', access: 'signed-in', body: subscriptionsBody,
+      handler: ({ principal, body }) => subscriptions.save(principal, body),
+    }),
+    defineRoute({
+      // One click from a mail (the landing page posts it; mail programs post it per RFC 8058), no sign-in.
+      method: 'post', path: '/unsubscribe/:token', access: 'public', params: unsubscribeParams,
+      handler: ({ params }) => subscriptions.unsubscribe(params.token),
+    }),
+    defineRoute({
+      method: 'get', path: '/outbox', access: ['admin', 'supervisor'], query: outboxQuery,
+      handler: ({ query }) => outbox.log(query),
+    }),
+  ];
+}

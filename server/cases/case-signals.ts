@@ -1,0 +1,146 @@
+import {
+  aberration,
+  channelZone,
+  cusum,
+  DEFAULT_SD_FLOOR,
+  endemicChannel,
+  growthSeries,
+  incidencePer100k,
+  logLinearGrowth,
+  mean,
+  sampleSd,
+  type ChannelBand,
+  type ChannelMethod,
+  type ChannelZoneId,
+} from '../../shared/signals';
+
+/**
+ * The case signals of one district, disease and season, assembled from the pure statistics of
+ * shared/signals (docs/case-ledger.md, "Signals"). No I/O: the service loads the counts and calls this.
+ */
+
+/** Seasons Bortman (1999) recommends for the channel: the 5 to 7 most recent prior seasons. */
+export const CHANNEL_MAX_SEASONS = 7;
+export const CHANNEL_RECOMMENDED_SEASONS = 5;
+/** Weeks of the log-linear doubling-time fit (docs/signals.md: 3 to 6 is typical). */
+export const FIT_WEEKS = 4;
+
+export interface SignalsInput {
+  year: number;
+  /** Weeks of the target season to compute (up to the current week in the current season). */
+  lastWeek: number;
+  /** Weeks in the target week-year (52 or 53). */
+  weeksInTargetYear: number;
+  /** Counts by week-year: index 0 is week 1; null where nothing was reported. */
+  counts: Map<number, (number | null)[]>;
+  excludedYears: number[];
+  method: ChannelMethod;
+  cusum: { k: number; h: number };
+  population: number | null;
+}
+
+export interface WeekSignal {
+  week: number;
+  cases: number | null;
+  incidence: number | null;
+  channel: ChannelBand | null;
+  seasons: number;
+  zone: ChannelZoneId | null;
+  c1: { statistic: number | null; alarm: boolean | null };
+  c2: { statistic: number | null; alarm: boolean | null };
+  c3: { statistic: number | null; alarm: boolean | null };
+  cusum: { statistic: number | null; alarm: boolean | null };
+  growth: { ratio: number | null; percent: number | null; doublingWeeks: number | null };
+}
+
+export interface SignalsResult {
+  seasonsUsed: number[];
+  weeks: WeekSignal[];
+  fittedGrowth: { weeks: number; ratio: number; doublingWeeks: number | null } | null;
+  notes: string[];
+}
+
+/** The count of week `w` in a season; week 53 falls back to week 52 in a 52-week season. */
+function valueAt(season: (number | null)[] | undefined, w: number): number | null {
+  if (!season) return null;
+  const v = season[w - 1];
+  if (v !== undefined && v !== null) return v;
+  if (w === 53) return season[51] ?? null;
+  return null;
+}
+
+export function buildSignals(input: SignalsInput): SignalsResult {
+  const notes: string[] = [];
+  const excluded = new Set(input.excludedYears);
+  const seasonsUsed = [...input.counts.keys()]
+    .filter((y) => y < input.year && !excluded.has(y) && input.counts.get(y)!.some((v) => v !== null))
+    .sort((a, b) => b - a)
+    .slice(0, CHANNEL_MAX_SEASONS);
+  if (seasonsUsed.length < 2) notes.push('Fewer than two prior seasons are on record: no endemic channel can be drawn.');
+  else if (seasonsUsed.length < CHANNEL_RECOMMENDED_SEASONS)
+    notes.push(`Only ${seasonsUsed.length} prior seasons are on record (5 to 7 are recommended): read the channel as wide and unsteady.`);
+  if (input.excludedYears.length) notes.push(`Left out of the channel as epidemic years: ${[...input.excludedYears].sort().join(', ')}.`);
+
+  const current = input.counts.get(input.year) ?? [];
+  const weeks = Array.from({ length: input.lastWeek }, (_, i) => i + 1);
+  // Missing weeks count as zero in the series statistics; the completeness figure says how many are missing.
+  const thisSeason = weeks.map((w) => current[w - 1] ?? null);
+  const filled = thisSeason.map((v) => v ?? 0);
+
+  // C1–C3 need up to 11 weeks of lead-in: the previous season's weeks go in front of this one's.
+  const previous = input.counts.get(input.year - 1) ?? [];
+  const previousWeeks = Math.max(previous.length, 52);
+  const lead = Array.from({ length: previousWeeks }, (_, i) => previous[i] ?? 0).slice(-11);
+  const continuous = [...lead, ...filled];
+  const tail = <T>(xs: T[]) => xs.slice(lead.length);
+  const tests = (['c1', 'c2', 'c3'] as const).map((m) => {
+    const r = aberration(m, continuous);
+    return { statistic: tail(r.statistic), alarm: tail(r.alarm) };
+  });
+
+  const histories = weeks.map((w) =>
+    seasonsUsed.map((y) => valueAt(input.counts.get(y), w)).filter((v): v is number => v !== null),
+  );
+  const bands = histories.map((h) => (h.length >= 2 ? endemicChannel(input.method, h) : null));
+
+  // CUSUM of the counts standardised week by week against the same week of the prior seasons:
+  // z_t = (x_t − μ_t) / max(σ_t, sd floor), then the tabular CUSUM with μ = 0 and σ = 1.
+  const z = filled.map((x, i) => {
+    const h = histories[i];
+    if (h.length < 2) return 0;
+    return (x - mean(h)) / Math.max(sampleSd(h), DEFAULT_SD_FLOOR);
+  });
+  const cs = cusum({ series: z, mean: 0, sd: 1, k: input.cusum.k, h: input.cusum.h });
+  const growth = growthSeries(filled);
+
+  let fittedGrowth: SignalsResult['fittedGrowth'] = null;
+  const reported = thisSeason.map((v, i) => ({ v, i })).filter((x) => x.v !== null);
+  const window = filled.slice(-FIT_WEEKS);
+  if (reported.length >= FIT_WEEKS && window.every((v) => v > 0)) {
+    const fit = logLinearGrowth(window);
+    fittedGrowth = { weeks: FIT_WEEKS, ratio: fit.ratio, doublingWeeks: fit.doublingWeeks };
+  }
+
+  return {
+    seasonsUsed,
+    fittedGrowth,
+    notes,
+    weeks: weeks.map((w, i) => {
+      const cases = thisSeason[i];
+      const band = bands[i];
+      return {
+        week: w,
+        cases,
+        incidence: cases === null || input.population === null ? null : incidencePer100k(cases, input.population),
+        channel: band,
+        seasons: histories[i].length,
+        zone: cases === null || band === null ? null : channelZone(cases, band),
+        c1: { statistic: tests[0].statistic[i], alarm: tests[0].alarm[i] },
+        c2: { statistic: tests[1].statistic[i], alarm: tests[1].alarm[i] },
+        c3: { statistic: tests[2].statistic[i], alarm: tests[2].alarm[i] },
+        cusum: { statistic: cs.statistic[i], alarm: cs.alarm[i] },
+        growth: growth[i],
+      };
+    }),
+  };
+}

@@ -1,0 +1,24 @@
+import { idParams } from '../../shared/api/common.schema';
+import { surveyBody } from '../../shared/api/surveys.schema';
+import type { AppContext } from '../app-context';
+import { defineRoute } from '../http/route';
+import { LarvalSurveysService } from './larval-surveys.service';
+
+/** Larval surveys from the field. */
+export function surveysRoutes(ctx: AppContext) {
+  const service = new LarvalSurveysService(ctx);
+  return [
+    defineRoute({
+      method: 'post', path: '/surveys', access: ['officer', 'worker'], body: surveyBody,
+      handler: async ({ principal, body }, _req, res) => {
+        const { created, survey } = await service.submit(principal, body);
+        // 201 the first time, 200 with the stored survey when the browser sends the same id again.
+        res.status(created ? 201 : 200).json(survey);
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/districts/:id/surveys', access: 'signed-in', params: idParams,
+      handler: ({ principal, params }) => service.listForDistrict(principal, params.id),
+    }),
+  ];
+}

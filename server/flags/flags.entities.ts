@@ -1,0 +1,16 @@
+import { AdvisoryEntity } from '../advisories/advisory.entity';
+import { BulletinEntity } from '../bulletins/bulletin.entity';
+import { SubscriptionEntity } from '../bulletins/subscription.entity';
+import { OutboxAttemptEntity } from '../outbox/outbox-attempt.entity';
+import { OutboxMessageEntity } from '../outbox/outbox-message.entity';
+import { FlagEntity } from './flag.entity';
+
+/** Flags, sign-off, advisories, subscriptions, bulletins and the mail outbox (issue 7). */
+export const flagsEntities: Function[] = [
+  FlagEntity,
+  AdvisoryEntity,
+  SubscriptionEntity,
+  BulletinEntity,
+  OutboxMessageEntity,
+  OutboxAttemptEntity,
+];

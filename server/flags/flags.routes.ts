@@ -1,0 +1,38 @@
+import { advisoriesQuery, approveFlagBody, flagsQuery, raiseFlagBody, rejectFlagBody } from '../../shared/api/flags.schema';
+import { idParams } from '../../shared/api/common.schema';
+import { AdvisoriesService } from '../advisories/advisories.service';
+import type { AppContext } from '../app-context';
+import { defineRoute, type RouteDef } from '../http/route';
+import { FlagsService } from './flags.service';
+
+/** Flags (raise by hand, the sign-off queue, approve / reject) and the advisories they became. */
+export function flagsRoutes(ctx: AppContext): RouteDef[] {
+  const flags = new FlagsService(ctx);
+  const advisories = new AdvisoriesService(ctx);
+  return [
+    defineRoute({
+      method: 'get', path: '/flags', access: ['admin', 'officer', 'epidemiologist', 'supervisor'], query: flagsQuery,
+      handler: ({ query }) => flags.list(query),
+    }),
+    defineRoute({
+      method: 'post', path: '/flags', access: ['officer', 'epidemiologist'], body: raiseFlagBody, status: 201,
+      handler: ({ principal, body }) => flags.raise(principal, body),
+    }),
+    defineRoute({
+      method: 'get', path: '/flags/:id', access: ['admin', 'officer', 'epidemiologist', 'supervisor'], params: idParams,
+      handler: ({ params }) => flags.detail(params.id),
+    }),
+    defineRoute({
+      method: 'post', path: '/flags/:id/approve', access: ['supervisor'], params: idParams, body: approveFlagBody,
+      handler: ({ principal, params, body }) => flags.approve(principal, params.id, body),
+    }),
+    defineRoute({
+      method: 'post', path: '/flags/:id/reject', access: ['supervisor'], params: idParams, body: rejectFlagBody,
+      handler: ({ principal, params, body }) => flags.reject(principal, params.id, body),
+    }),
+    defineRoute({
+      method: 'get', path: '/advisories', access: 'signed-in', query: advisoriesQuery,
+      handler: ({ principal, query }) => advisories.list(principal, query),
+    }),
+  ];
+}

@@ -1,0 +1,122 @@
+import type { AppContext } from '../app-context';
+import type { Mailer } from '../mail/mailer';
+
+export type SendOutcome = 'sent' | 'retry' | 'failed';
+
+interface ClaimedRow {
+  id: string;
+  kind: string;
+  message_id: string;
+  to_address: string;
+  subject: string;
+  text_body: string;
+  html_body: string;
+  headers: Record<string, string>;
+  attempts: number;
+  pdf: Buffer | null;
+  pdf_name: string | null;
+}
+
+/**
+ * Sends the outbox, one message per short transaction:
+ *
+ *   BEGIN; SELECT … FOR UPDATE SKIP LOCKED (one due row); send over SMTP; mark sent (or set the
+ *   back-off) and log the attempt; COMMIT.
+ *
+ * The row stays locked while it is sent, so any number of workers (in this process or others) never
+ * send the same row at once, and a worker that dies releases its row with its connection. The one
+ * window left is a death after the SMTP server accepted the mail and before COMMIT: the row is still
+ * pending and is sent again, with the same Message-ID, so the copy is recognisably the same message.
+ * That is at-least-once delivery with duplicates detectable by Message-ID — the honest best without
+ * a transactional mail server (docs/flags-and-bulletins.md).
+ */
+export class OutboxWorker {
+  private readonly mailer: Mailer;
+  private stopped = false;
+
+  constructor(private readonly ctx: AppContext, opts: { mailer?: Mailer } = {}) {
+    this.mailer = opts.mailer ?? ctx.mailer;
+  }
+
+  /** Ask a running drain to stop after the message it is sending (a drill for "the worker died"). */
+  stop() {
+    this.stopped = true;
+  }
+
+  /** Send due messages one by one until none is due, `max` were tried, or stop() was called. */
+  async drain(opts: { max?: number } = {}): Promise<Record<SendOutcome, number>> {
+    const counts: Record<SendOutcome, number> = { sent: 0, retry: 0, failed: 0 };
+    const max = opts.max ?? 1000;
+    for (let i = 0; i < max && !this.stopped; i++) {
+      const outcome = await this.sendNext();
+      if (!outcome) break;
+      counts[outcome] += 1;
+    }
+    return counts;
+  }
+
+  /** Claim one due message, send it and record the outcome; null when nothing is due. */
+  async sendNext(): Promise<SendOutcome | null> {
+    const { config } = this.ctx;
+    const runner = this.ctx.ds.createQueryRunner();
+    await runner.connect();
+    try {
+      await runner.startTransaction();
+      const [row]: ClaimedRow[] = await runner.query(
+        `SELECT m.id, m.kind, m.message_id, m.to_address, m.subject, m.text_body, m.html_body, m.headers, m.attempts,
+                b.pdf, CASE WHEN b.id IS NULL THEN NULL
+                            ELSE 'broodcast-bulletin-' || d.code || '-' || b.epi_year || '-w' || lpad(b.epi_week::text, 2, '0') || '.pdf' END AS pdf_name
+           FROM outbox_messages m
+           LEFT JOIN bulletins b ON b.id = m.bulletin_id
+           LEFT JOIN districts d ON d.id = b.district_id
+          WHERE m.status = 'pending' AND m.next_attempt_at <= now()
+          ORDER BY m.next_attempt_at, m.created_at
+          LIMIT 1
+          FOR UPDATE OF m SKIP LOCKED`,
+      );
+      if (!row) {
+        await runner.commitTransaction();
+        return null;
+      }
+      const started = Date.now();
+      let error: string | null = null;
+      try {
+        await this.mailer.send({
+          to: row.to_address,
+          subject: row.subject,
+          text: row.text_body,
+          html: row.html_body,
+          messageId: row.message_id,
+          headers: row.headers,
+          attachments: row.pdf ? [{ filename: row.pdf_name!, content: row.pdf, contentType: 'application/pdf' }] : undefined,
+        });
+      } catch (err) {
+        error = (err as Error).message?.slice(0, 1000) || 'unknown error';
+      }
+      const attempts = row.attempts + 1;
+      const outcome: SendOutcome = error === null ? 'sent' : attempts >= config.OUTBOX_MAX_ATTEMPTS ? 'failed' : 'retry';
+      const backoff = Math.min(config.OUTBOX_BACKOFF_SECONDS * 2 ** (attempts - 1), config.OUTBOX_BACKOFF_MAX_SECONDS);
+      await runner.query(
+        `UPDATE outbox_messages
+            SET attempts = $2, last_error = $3,
+                status = CASE $4 WHEN 'sent' THEN 'sent' WHEN 'failed' THEN 'failed' ELSE 'pending' END,
+                sent_at = CASE WHEN $4 = 'sent' THEN now() ELSE NULL END,
+                next_attempt_at = CASE WHEN $4 = 'retry' THEN now() + make_interval(secs => $5) ELSE next_attempt_at END
+          WHERE id = $1`,
+        [row.id, attempts, error, outcome, backoff],
+      );
+      await runner.query(
+        `INSERT INTO outbox_attempts (message_id, outcome, error, duration_ms) VALUES ($1, $2, $3, $4)`,
+        [row.id, outcome, error, Date.now() - started],
+      );
+      await runner.commitTransaction();
+      if (outcome !== 'sent') this.ctx.logger.warn({ message: row.id, kind: row.kind, attempts, err: error }, `mail ${outcome === 'failed' ? 'failed for good' : 'will be retried'}`);
+      return outcome;
+    } catch (err) {
+      if (runner.isTransactionActive) await runner.rollbackTransaction().catch(() => undefined);
+      throw err;
+    } finally {
+      await runner.release();
+    }
+  }
+}

@@ -1,0 +1,43 @@
+import { Check, Column, Entity, Index, PrimaryGeneratedColumn, JoinColumn, ManyToOne } from 'typeorm';
+import { WeatherUploadEntity } from './weather-upload.entity';
+
+/** One line of an intake's row-level report: a rejected or flagged value and why. */
+@Entity({ name: 'weather_upload_issues' })
+@Check('weather_upload_issues_severity_check', "severity IN ('rejected', 'flagged', 'filled')")
+@Index('weather_upload_issues_upload_idx', ['uploadId', 'rowNumber'])
+export class WeatherUploadIssueEntity {
+  @PrimaryGeneratedColumn({ type: 'bigint' })
+  id: string;
+
+  @Column({ name: 'upload_id', type: 'uuid' })
+  uploadId: string;
+
+  /** Row of the file (the header is row 1); null for a finding about a day rather than a row. */
+  @Column({ name: 'row_number', type: 'integer', nullable: true })
+  rowNumber: number | null;
+
+  @Column({ type: 'text', nullable: true })
+  station: string | null;
+
+  @Column({ type: 'text', nullable: true })
+  date: string | null;
+
+  @Column({ type: 'text' })
+  column: string;
+
+  @Column({ type: 'text', nullable: true })
+  value: string | null;
+
+  @Column({ type: 'text' })
+  severity: 'rejected' | 'flagged' | 'filled';
+
+  @Column({ type: 'text' })
+  rule: string;
+
+  @Column({ type: 'text' })
+  reason: string;
+
+  @ManyToOne(() => WeatherUploadEntity, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'upload_id' })
+  upload?: WeatherUploadEntity;
+}

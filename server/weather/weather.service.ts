@@ -1,0 +1,221 @@
+import type { Response } from 'express';
+import type {
+  CorrectionBody, DistrictWeatherSource, IssueDto, StationCreateBody, StationUpdateBody,
+} from '../../shared/api/weather.schema';
+import { csvCell } from '../../shared/weather/qc';
+import type { AppContext } from '../app-context';
+import { recordAudit } from '../audit/audit.repository';
+import { assertDistrictVisible, type Principal, seesAllDistricts } from '../auth/principal';
+import { DistrictEntity } from '../districts/district.entity';
+import { badRequest, conflict, forbidden, notFound } from '../http/errors';
+import { recomputeDistrictSeries } from './district-series.repository';
+import { refreshAssignments } from './weather-geo';
+import { recordsSource, WeatherIntakeService } from './weather-intake.service';
+import { WeatherStationEntity } from './weather-station.entity';
+import { WeatherUploadEntity } from './weather-upload.entity';
+import { presentStation, presentUpload } from './weather.presenter';
+import { WeatherRepository } from './weather.repository';
+
+const isUniqueViolation = (err: unknown) => (err as { code?: string })?.code === '23505';
+const today = () => new Date().toISOString().slice(0, 10);
+const daysBefore = (iso: string, n: number) => new Date(Date.parse(iso) - n * 86_400_000).toISOString().slice(0, 10);
+
+export class WeatherService {
+  readonly intake: WeatherIntakeService;
+  private readonly repo: WeatherRepository;
+
+  constructor(private readonly ctx: AppContext) {
+    this.intake = new WeatherIntakeService(ctx);
+    this.repo = new WeatherRepository(ctx.ds);
+  }
+
+  // ---- stations
+  async stations(p: Principal) {
+    const rows = await this.repo.stations(seesAllDistricts(p) ? undefined : p.districtIds);
+    return { stations: rows.map(presentStation) };
+  }
+
+  private async visibleStation(p: Principal, id: string) {
+    const row = await this.repo.station(id);
+    if (!row) throw notFound('The station');
+    if (!seesAllDistricts(p) && !(await this.repo.stationFeeds(id, p.districtIds))) throw forbidden('This station does not feed your district.');
+    return row;
+  }
+
+  async createStation(actor: Principal, body: StationCreateBody) {
+    try {
+      const id = await this.ctx.ds.transaction(async (manager) => {
+        const saved = await manager.save(WeatherStationEntity, manager.create(WeatherStationEntity, { ...body, isDemo: false, districtId: null }));
+        await this.afterStationChange(manager);
+        await recordAudit(manager, { actorId: actor.userId, action: 'weather.station-created', entity: 'weather_station', entityId: saved.id, after: body });
+        return saved.id;
+      });
+      return presentStation((await this.repo.station(id))!);
+    } catch (err) {
+      if (isUniqueViolation(err)) throw conflict('code_taken', 'Another station already has this code.');
+      throw err;
+    }
+  }
+
+  async updateStation(actor: Principal, id: string, body: StationUpdateBody) {
+    await this.ctx.ds.transaction(async (manager) => {
+      const current = await manager.findOneBy(WeatherStationEntity, { id });
+      if (!current) throw notFound('The station');
+      const next = { ...current, ...body };
+      if (next.activeFrom && next.activeTo && next.activeFrom > next.activeTo)
+        throw badRequest('invalid_input', 'The last active date is before the first.', [{ path: 'activeTo', message: 'must not be before the first active date' }]);
+      await manager.update(WeatherStationEntity, { id }, body);
+      await this.afterStationChange(manager);
+      const { name, latitude, longitude, elevation, activeFrom, activeTo } = current;
+      await recordAudit(manager, {
+        actorId: actor.userId, action: 'weather.station-updated', entity: 'weather_station', entityId: id,
+        before: { name, latitude, longitude, elevation, activeFrom, activeTo }, after: body,
+      });
+    });
+    return presentStation((await this.repo.station(id))!);
+  }
+
+  /** A station moved, appeared or changed: re-place stations in districts and recompute the districts concerned. */
+  private async afterStationChange(manager: Parameters<typeof refreshAssignments>[0]) {
+    const touched = await refreshAssignments(manager, this.ctx.config.WEATHER_IDW_STATIONS);
+    await recomputeDistrictSeries(manager, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
+  }
+
+  async stationDays(p: Principal, id: string, range: { from?: string; to?: string }) {
+    const station = await this.visibleStation(p, id);
+    const to = range.to ?? station.last_date ?? today();
+    const from = range.from ?? daysBefore(to, 365);
+    const rows = await this.repo.observations(id, from, to);
+    return {
+      station: presentStation(station),
+      days: rows.map((r: any) => ({
+        date: r.date, tmin: r.tmin, tmax: r.tmax, rh: r.rh, rain: r.rain, flags: r.flags, uploadId: r.upload_id, revisions: r.revisions,
+      })),
+    };
+  }
+
+  async revisions(id: string, date?: string) {
+    if (!(await this.repo.station(id))) throw notFound('The station');
+    const rows = await this.repo.revisions(id, date);
+    return {
+      revisions: rows.map((r: any) => ({
+        date: r.date, tmin: r.tmin, tmax: r.tmax, rh: r.rh, rain: r.rain, flags: r.flags,
+        previousUploadId: r.previous_upload_id, replacedByUploadId: r.replaced_by_upload_id, replacedBy: r.replaced_by,
+        replacedAt: new Date(r.replaced_at).toISOString(),
+      })),
+    };
+  }
+
+  // ---- uploads
+  async acceptFile(actor: Principal, file: Express.Multer.File | undefined, form: { tempUnit: 'C' | 'F'; rainUnit: 'mm' | 'in' }, wait: boolean) {
+    if (!file)
+      throw badRequest('no_file', 'Choose a CSV file to upload.', [{ path: 'file', message: 'is required (a CSV file)' }]);
+    (file as Express.Multer.File & { taken?: boolean }).taken = true; // from here on, runFile deletes it
+    const upload = await this.intake.start({
+      source: 'upload', fileName: file.originalname.slice(0, 200), tempUnit: form.tempUnit, rainUnit: form.rainUnit,
+      bytesTotal: file.size, actorId: actor.userId,
+    });
+    const done = this.intake.runFile(upload, file.path);
+    if (wait) await done;
+    else done.catch((err) => this.ctx.logger.error({ err }, 'weather upload crashed'));
+    return this.upload(upload.id);
+  }
+
+  async uploads() {
+    await this.intake.sweepStale();
+    const list = await this.ctx.ds.getRepository(WeatherUploadEntity).find({ order: { createdAt: 'DESC' }, take: 50 });
+    const counts = await this.repo.issueCounts(list.map((u) => u.id));
+    return { uploads: list.map((u) => presentUpload(u, counts.get(u.id) ?? 0)) };
+  }
+
+  /** One intake's state. Reading it also marks failed an intake whose process died (see sweepStale). */
+  async upload(id: string) {
+    await this.intake.sweepStale();
+    const u = await this.ctx.ds.getRepository(WeatherUploadEntity).findOneBy({ id });
+    if (!u) throw notFound('The upload');
+    return presentUpload(u, (await this.repo.issueCounts([id])).get(id) ?? 0);
+  }
+
+  async issues(id: string, offset: number, limit: number): Promise<{ total: number; issues: IssueDto[] }> {
+    const u = await this.upload(id);
+    const rows = await this.repo.issuesPage(id, offset, limit);
+    return {
+      total: u.issueCount,
+      issues: rows.map((r: any) => ({
+        rowNumber: r.row_number, station: r.station, date: r.date, column: r.column, value: r.value, severity: r.severity, rule: r.rule, reason: r.reason,
+      })),
+    };
+  }
+
+  /** The row report as a CSV download, streamed page by page; every cell spreadsheet-safe. */
+  async issuesCsv(id: string, res: Response) {
+    const u = await this.upload(id);
+    res.status(200);
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', `attachment; filename="intake-report-${u.id.slice(0, 8)}.csv"`);
+    res.write('row,station,date,column,value,outcome,rule,reason\n');
+    let after = '0';
+    for (;;) {
+      const rows = await this.repo.issues(id, after, 5000);
+      if (!rows.length) break;
+      let chunk = '';
+      for (const r of rows)
+        chunk += [r.row_number, r.station, r.date, r.column, r.value, r.severity, r.rule, r.reason].map(csvCell).join(',') + '\n';
+      if (!res.write(chunk)) await new Promise((resolve) => res.once('drain', resolve));
+      after = rows[rows.length - 1].id;
+    }
+    res.end();
+  }
+
+  /** One corrected day: a one-row intake through the same checks; a rejected row is a 400 with the reasons. */
+  async correct(actor: Principal, body: CorrectionBody) {
+    const upload = await this.intake.start({
+      source: 'correction', fileName: null, tempUnit: body.tempUnit, rainUnit: body.rainUnit, bytesTotal: 0, actorId: actor.userId,
+    });
+    const s = (v: number | null | undefined) => (v === null || v === undefined ? '' : String(v));
+    await this.intake.run(upload, recordsSource(
+      ['station', 'date', 'tmin', 'tmax', 'rh', 'dewpoint', 'rain'],
+      [[body.station, body.date, s(body.tmin), s(body.tmax), s(body.rh), s(body.dewpoint), s(body.rain)]],
+    ));
+    const result = await this.upload(upload.id);
+    if (result.status === 'failed') throw badRequest('correction_failed', result.message ?? 'The correction could not be saved.');
+    if (result.rowsRejected > 0) {
+      const { issues } = await this.issues(upload.id, 0, 50);
+      throw badRequest('row_rejected', `The corrected row was not accepted: ${issues.map((i) => i.reason).join(' ')}`,
+        issues.map((i) => ({ path: i.column, message: i.reason })));
+    }
+    return result;
+  }
+
+  // ---- district series
+  async districtSeries(p: Principal, districtId: string, range: { from?: string; to?: string }) {
+    assertDistrictVisible(p, districtId);
+    const district = await this.ctx.ds.getRepository(DistrictEntity).findOne({
+      where: { id: districtId }, select: { id: true, code: true, name: true, isDemo: true },
+    });
+    if (!district) throw notFound('The district');
+    const srcRows = await this.repo.sources(districtId);
+    const stations = srcRows.map((r: any) => ({ id: r.id, code: r.code, name: r.name, distanceKm: Math.round(r.distance_km * 10) / 10, weight: Math.round(r.weight * 1000) / 1000 }));
+    const source: DistrictWeatherSource = !srcRows.length
+      ? { kind: 'none', stations: [] }
+      : srcRows[0].method === 'inside' ? { kind: 'stations', stations } : { kind: 'interpolated', stations };
+    const [{ last }] = await this.ctx.ds.query(`SELECT to_char(max(date), 'YYYY-MM-DD') AS last FROM district_weather_days WHERE district_id = $1`, [districtId]);
+    const to = range.to ?? last ?? today();
+    const from = range.from ?? daysBefore(to, 365);
+    const rows = await this.repo.seriesDays(districtId, from, to);
+    const days = rows.map((r: any) => ({
+      date: r.date, tmin: r.tmin, tmax: r.tmax, rh: r.rh, rain: r.rain, filled: r.filled,
+      missing: r.tmin === null || r.tmax === null, stationCount: r.station_count,
+    }));
+    return {
+      district: { id: district.id, code: district.code, name: district.name, isDemo: district.isDemo },
+      source,
+      summary: {
+        days: days.length, filled: days.filter((d: { filled: boolean }) => d.filled).length,
+        missing: days.filter((d: { missing: boolean }) => d.missing).length,
+        first: days[0]?.date ?? null, last: days[days.length - 1]?.date ?? null,
+      },
+      days,
+    };
+  }
+}

@@ -1,0 +1,146 @@
+import { z } from 'zod';
+import { TIERS } from '../tier/tier-settings';
+import { driverDto } from './board.schema';
+import { uuid } from './common.schema';
+
+/** Why a flag was raised. The season run raises the first three; people raise the last. */
+export const FLAG_REASONS = ['tier-rise', 'channel-above', 'case-alarm', 'manual'] as const;
+export type FlagReason = (typeof FLAG_REASONS)[number];
+export const FLAG_REASON_LABELS: Record<FlagReason, string> = {
+  'tier-rise': 'Tier went up',
+  'channel-above': 'Cases above the endemic channel',
+  'case-alarm': 'Case alarm (C2 test)',
+  manual: 'Raised by hand',
+};
+
+export const FLAG_STATUSES = ['open', 'approved', 'rejected'] as const;
+export type FlagStatus = (typeof FLAG_STATUSES)[number];
+export const FLAG_STATUS_LABELS: Record<FlagStatus, string> = { open: 'Waiting for sign-off', approved: 'Approved', rejected: 'Rejected' };
+
+/**
+ * The actions a flag may suggest, in Broodcast's own words. Each is general public-health practice for
+ * mosquito-borne disease; none names a product or a dose, and every one carries ACTION_CAUTION.
+ */
+export const ACTION_IDS = ['source-reduction', 'community-clean-up', 'larval-survey', 'case-finding'] as const;
+export type ActionId = (typeof ACTION_IDS)[number];
+export const ACTIONS: Record<ActionId, { title: string; text: string }> = {
+  'source-reduction': {
+    title: 'Remove breeding water',
+    text: 'Go round homes, schools and markets and get rid of standing water where mosquitoes lay eggs: cover water jars and tanks, empty and turn over buckets, tyres and pots, and clear blocked drains and gutters. Do it again every week while the tier stays up.',
+  },
+  'community-clean-up': {
+    title: 'Hold a neighbourhood clean-up',
+    text: 'Plan a clean-up day with local leaders and volunteers to collect rubbish that traps rainwater (tins, plastic, old tyres), and tell households in plain words why it matters and what they can do at home.',
+  },
+  'larval-survey': {
+    title: 'Survey for larvae this week',
+    text: 'Ask community workers to inspect houses and containers in the worst-affected areas and record what they find in Broodcast, so the larval indices show where breeding is heaviest.',
+  },
+  'case-finding': {
+    title: 'Look actively for cases',
+    text: 'Ask clinics and community workers to watch for people with fever, send them to a clinician for assessment and testing, and report weekly counts on time to the district epidemiologist.',
+  },
+};
+/** Said with every suggested action, wherever it is shown or sent. */
+export const ACTION_CAUTION =
+  'Any use of larvicides, insecticides or fogging is work for trained staff only, following local regulations and the product label.';
+
+export const actionDto = z.object({ id: z.enum(ACTION_IDS), title: z.string(), text: z.string() });
+export type ActionDto = z.infer<typeof actionDto>;
+
+const person = z.object({ id: uuid, displayName: z.string() }).nullable();
+const tier = z.enum(TIERS);
+
+export const flagDto = z.object({
+  id: uuid,
+  districtId: uuid,
+  districtCode: z.string(),
+  districtName: z.string(),
+  reason: z.enum(FLAG_REASONS),
+  source: z.enum(['season-run', 'manual']),
+  status: z.enum(FLAG_STATUSES),
+  tier: tier.nullable(),
+  previousTier: tier.nullable(),
+  epiYear: z.number().int().nullable(),
+  epiWeek: z.number().int().nullable(),
+  drivers: z.array(driverDto),
+  suggestedMessage: z.string(),
+  actions: z.array(actionDto),
+  caution: z.string(),
+  note: z.string().nullable(),
+  raisedBy: person,
+  createdAt: z.string(),
+  decidedBy: person,
+  decidedAt: z.string().nullable(),
+  decisionReason: z.string().nullable(),
+  finalMessage: z.string().nullable(),
+  advisoryId: uuid.nullable(),
+  version: z.number().int(),
+});
+export type FlagDto = z.infer<typeof flagDto>;
+
+export const flagHistoryEntry = z.object({
+  at: z.string(),
+  action: z.string(),
+  actor: person,
+  reason: z.string().nullable(),
+  before: z.unknown(),
+  after: z.unknown(),
+});
+export type FlagHistoryEntry = z.infer<typeof flagHistoryEntry>;
+
+export const flagsResponse = z.object({ flags: z.array(flagDto) });
+export const flagDetailResponse = z.object({ flag: flagDto, history: z.array(flagHistoryEntry) });
+export type FlagDetailResponse = z.infer<typeof flagDetailResponse>;
+
+export const flagsQuery = z.strictObject({
+  status: z.enum([...FLAG_STATUSES, 'all']).default('open'),
+  districtId: uuid.optional(),
+});
+
+const message = z.string().trim().min(10, { message: 'must be at least 10 characters' }).max(2000, { message: 'must be at most 2,000 characters' });
+const version = z.number().int().min(1).optional();
+
+export const raiseFlagBody = z.strictObject({
+  districtId: uuid,
+  /** Why the flag is raised: what the person saw. */
+  note: z.string().trim().min(3, { message: 'must say why (3 characters or more)' }).max(1000),
+  /** The message proposed for the advisory; Broodcast writes one from the tier and drivers when left out. */
+  message: message.optional(),
+  actions: z.array(z.enum(ACTION_IDS)).min(1, { message: 'choose at least one action' }).max(ACTION_IDS.length).optional(),
+});
+export type RaiseFlagBody = z.infer<typeof raiseFlagBody>;
+
+export const approveFlagBody = z.strictObject({
+  /** The advisory text, edited by the supervisor; the suggested message when left out. */
+  message: message.optional(),
+  /** The version the supervisor saw; a flag changed since then is refused with 409. */
+  version,
+});
+export type ApproveFlagBody = z.infer<typeof approveFlagBody>;
+
+export const rejectFlagBody = z.strictObject({
+  reason: z.string().trim().min(3, { message: 'must say why (3 characters or more)' }).max(500),
+  version,
+});
+export type RejectFlagBody = z.infer<typeof rejectFlagBody>;
+
+export const advisoryDto = z.object({
+  id: uuid,
+  flagId: uuid,
+  districtId: uuid,
+  districtCode: z.string(),
+  districtName: z.string(),
+  tier: tier.nullable(),
+  message: z.string(),
+  actions: z.array(actionDto),
+  caution: z.string(),
+  issuedBy: person,
+  issuedAt: z.string(),
+  expiresAt: z.string(),
+  current: z.boolean(),
+  recipients: z.number().int(),
+});
+export type AdvisoryDto = z.infer<typeof advisoryDto>;
+export const advisoriesResponse = z.object({ advisories: z.array(advisoryDto) });
+export const advisoriesQuery = z.strictObject({ districtId: uuid.optional() });

@@ -1,0 +1,168 @@
+import { z } from 'zod';
+import { uuid } from './common.schema';
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a date written YYYY-MM-DD' });
+const stationCode = z.string().trim().regex(/^[A-Za-z0-9_.-]{2,32}$/, {
+  message: 'must be 2–32 letters, digits, dots, hyphens or underscores',
+});
+
+export const stationCreateBody = z.strictObject({
+  code: stationCode,
+  name: z.string().trim().min(1, { message: 'is required' }).max(120, { message: 'is too long' }),
+  latitude: z.number({ message: 'must be a number' }).min(-90).max(90),
+  longitude: z.number({ message: 'must be a number' }).min(-180).max(180),
+  elevation: z.number({ message: 'must be a number of metres' }).min(-500).max(9000).nullable().default(null),
+  activeFrom: isoDate.nullable().default(null),
+  activeTo: isoDate.nullable().default(null),
+}).refine((b) => !b.activeFrom || !b.activeTo || b.activeFrom <= b.activeTo, {
+  message: 'must not be before the first active date', path: ['activeTo'],
+});
+export type StationCreateBody = z.infer<typeof stationCreateBody>;
+
+export const stationUpdateBody = z.strictObject({
+  name: z.string().trim().min(1).max(120).optional(),
+  latitude: z.number().min(-90).max(90).optional(),
+  longitude: z.number().min(-180).max(180).optional(),
+  elevation: z.number().min(-500).max(9000).nullable().optional(),
+  activeFrom: isoDate.nullable().optional(),
+  activeTo: isoDate.nullable().optional(),
+}).refine((b) => Object.keys(b).length > 0, { message: 'nothing to change' });
+export type StationUpdateBody = z.infer<typeof stationUpdateBody>;
+
+export const stationDto = z.object({
+  id: uuid,
+  code: z.string(),
+  name: z.string(),
+  latitude: z.number(),
+  longitude: z.number(),
+  elevation: z.number().nullable(),
+  activeFrom: z.string().nullable(),
+  activeTo: z.string().nullable(),
+  isDemo: z.boolean(),
+  district: z.object({ id: uuid, code: z.string(), name: z.string() }).nullable(),
+  lastDate: z.string().nullable(),
+  days: z.number(),
+});
+export type StationDto = z.infer<typeof stationDto>;
+export const stationsResponse = z.object({ stations: z.array(stationDto) });
+
+export const rangeQuery = z.strictObject({ from: isoDate.optional(), to: isoDate.optional() });
+
+export const observationDto = z.object({
+  date: z.string(),
+  tmin: z.number(),
+  tmax: z.number(),
+  rh: z.number().nullable(),
+  rain: z.number().nullable(),
+  flags: z.array(z.string()),
+  uploadId: z.string().nullable(),
+  revisions: z.number(),
+});
+export const stationDaysResponse = z.object({ station: stationDto, days: z.array(observationDto) });
+
+export const revisionDto = z.object({
+  date: z.string(),
+  tmin: z.number(),
+  tmax: z.number(),
+  rh: z.number().nullable(),
+  rain: z.number().nullable(),
+  flags: z.array(z.string()),
+  previousUploadId: z.string().nullable(),
+  replacedByUploadId: z.string().nullable(),
+  replacedBy: z.string().nullable(),
+  replacedAt: z.string(),
+});
+export const revisionsQuery = z.strictObject({ date: isoDate.optional() });
+export const revisionsResponse = z.object({ revisions: z.array(revisionDto) });
+
+export const TEMP_UNITS = ['C', 'F'] as const;
+export const RAIN_UNITS = ['mm', 'in'] as const;
+
+/** The form fields beside the file (multipart). */
+export const uploadForm = z.strictObject({
+  tempUnit: z.enum(TEMP_UNITS, { message: 'must be C or F' }).default('C'),
+  rainUnit: z.enum(RAIN_UNITS, { message: 'must be mm or in' }).default('mm'),
+});
+export const uploadQuery = z.strictObject({ wait: z.enum(['true', 'false']).optional() });
+
+export const uploadDto = z.object({
+  id: uuid,
+  source: z.enum(['upload', 'feed', 'correction']),
+  fileName: z.string().nullable(),
+  status: z.enum(['processing', 'done', 'failed']),
+  tempUnit: z.enum(TEMP_UNITS),
+  rainUnit: z.enum(RAIN_UNITS),
+  bytesTotal: z.number(),
+  bytesProcessed: z.number(),
+  rowsProcessed: z.number(),
+  rowsAccepted: z.number(),
+  rowsFlagged: z.number(),
+  rowsRejected: z.number(),
+  rowsReplaced: z.number(),
+  issueCount: z.number(),
+  message: z.string().nullable(),
+  createdAt: z.string(),
+  finishedAt: z.string().nullable(),
+});
+export type UploadDto = z.infer<typeof uploadDto>;
+export const uploadsResponse = z.object({ uploads: z.array(uploadDto) });
+
+export const issueDto = z.object({
+  rowNumber: z.number().nullable(),
+  station: z.string().nullable(),
+  date: z.string().nullable(),
+  column: z.string(),
+  value: z.string().nullable(),
+  severity: z.enum(['rejected', 'flagged', 'filled']),
+  rule: z.string(),
+  reason: z.string(),
+});
+export type IssueDto = z.infer<typeof issueDto>;
+export const issuesQuery = z.strictObject({
+  offset: z.coerce.number().int().min(0).default(0),
+  limit: z.coerce.number().int().min(1).max(5000).default(500),
+});
+export const issuesResponse = z.object({ total: z.number(), issues: z.array(issueDto) });
+
+/** One corrected day of one station, in the units given; it goes through the same checks as an upload. */
+export const correctionBody = z.strictObject({
+  station: z.string().trim().min(1, { message: 'is required' }),
+  date: z.string().trim().min(1, { message: 'is required' }),
+  tmin: z.number({ message: 'must be a number' }),
+  tmax: z.number({ message: 'must be a number' }),
+  rh: z.number().nullable().optional(),
+  dewpoint: z.number().nullable().optional(),
+  rain: z.number().nullable().optional(),
+  tempUnit: z.enum(TEMP_UNITS).default('C'),
+  rainUnit: z.enum(RAIN_UNITS).default('mm'),
+});
+export type CorrectionBody = z.infer<typeof correctionBody>;
+
+const sourceStation = z.object({ id: uuid, code: z.string(), name: z.string(), distanceKm: z.number(), weight: z.number() });
+export const districtWeatherSource = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('stations'), stations: z.array(sourceStation) }),
+  z.object({ kind: z.literal('interpolated'), stations: z.array(sourceStation) }),
+  z.object({ kind: z.literal('none'), stations: z.array(sourceStation) }),
+]);
+export type DistrictWeatherSource = z.infer<typeof districtWeatherSource>;
+
+export const seriesDayDto = z.object({
+  date: z.string(),
+  tmin: z.number().nullable(),
+  tmax: z.number().nullable(),
+  rh: z.number().nullable(),
+  rain: z.number().nullable(),
+  filled: z.boolean(),
+  missing: z.boolean(),
+  stationCount: z.number(),
+});
+export type SeriesDayDto = z.infer<typeof seriesDayDto>;
+export const districtSeriesResponse = z.object({
+  district: z.object({ id: uuid, code: z.string(), name: z.string(), isDemo: z.boolean() }),
+  source: districtWeatherSource,
+  summary: z.object({ days: z.number(), filled: z.number(), missing: z.number(), first: z.string().nullable(), last: z.string().nullable() }),
+  days: z.array(seriesDayDto),
+});
+export type DistrictSeriesResponse = z.infer<typeof districtSeriesResponse>;
+
+export const feedPullResponse = uploadDto;

@@ -1,0 +1,99 @@
+import ReactEChartsCore from 'echarts-for-react/esm/core';
+import { BarChart, LineChart } from 'echarts/charts';
+import { GridComponent, LegendComponent, TooltipComponent } from 'echarts/components';
+import * as echarts from 'echarts/core';
+import { CanvasRenderer } from 'echarts/renderers';
+import type { SignalsResponse } from '../../../../shared/api/cases.schema';
+
+// Only the charts and components this chart uses (STACK.md: tree-shaken ECharts).
+echarts.use([BarChart, LineChart, GridComponent, LegendComponent, TooltipComponent, CanvasRenderer]);
+
+/** Broodcast's accent scale (sequential, readable in grayscale); no traffic-light colours. */
+const INK = '#1d2026';
+const BAND = '#b5bde2';
+const CENTRE = '#3a4890';
+const SEASON = '#26305e';
+const PRIOR = '#8c98cf';
+
+/**
+ * This season's weekly cases (bars) against the endemic channel (shaded band from the lower to the upper
+ * bound, centre line dashed) and the prior seasons (thin lines, hidden until chosen in the legend).
+ */
+export function ChannelChart({ data }: { data: SignalsResponse }) {
+  const weeksInYear = Math.max(data.weeks.length, ...data.priorSeasons.map((s) => s.weeks.length));
+  const categories = Array.from({ length: weeksInYear }, (_, i) => `W${i + 1}`);
+  const byWeek = new Map(data.weeks.map((w) => [w.week, w]));
+  const at = (i: number) => byWeek.get(i + 1);
+  const lower = categories.map((_, i) => at(i)?.channel?.lower ?? null);
+  const width = categories.map((_, i) => {
+    const c = at(i)?.channel;
+    return c ? c.upper - c.lower : null;
+  });
+  const centre = categories.map((_, i) => at(i)?.channel?.centre ?? null);
+  const season = categories.map((_, i) => at(i)?.cases ?? null);
+  const priorNames = data.priorSeasons.map((s) => `${s.year}${data.excludedYears.includes(s.year) ? ' (left out)' : ''}`);
+
+  const option = {
+    aria: { enabled: true },
+    animation: false,
+    textStyle: { fontFamily: 'Lato, system-ui, sans-serif', color: INK },
+    grid: { left: 44, right: 16, top: 56, bottom: 36 },
+    color: [BAND, BAND, CENTRE, SEASON, PRIOR],
+    legend: {
+      top: 0,
+      type: 'scroll',
+      data: ['Endemic channel', 'Channel centre', `${data.year} cases`, ...priorNames],
+      selected: Object.fromEntries(priorNames.map((n) => [n, false])),
+    },
+    tooltip: {
+      trigger: 'axis',
+      // Text only (no HTML from data): the band is shown as its bounds, not as the stacked width.
+      formatter: (params: { dataIndex: number; seriesName: string; value: unknown }[]) => {
+        const i = params[0]?.dataIndex ?? 0;
+        const w = at(i);
+        const fmt = (v: number | null | undefined) => (v === null || v === undefined ? '—' : v.toFixed(v % 1 ? 1 : 0));
+        const lines = [
+          `Week ${i + 1}`,
+          `${data.year}: ${fmt(season[i])} cases`,
+          w?.channel ? `Channel ${fmt(w.channel.lower)} – ${fmt(w.channel.upper)}, centre ${fmt(w.channel.centre)}` : 'No channel',
+          ...params.filter((p) => priorNames.includes(p.seriesName)).map((p) => `${p.seriesName}: ${fmt(p.value as number | null)}`),
+        ];
+        return lines.join('<br>');
+      },
+    },
+    xAxis: { type: 'category', data: categories, axisLabel: { interval: 3 } },
+    yAxis: { type: 'value', name: 'cases per week', nameTextStyle: { align: 'left' }, minInterval: 1 },
+    series: [
+      { name: 'Channel lower bound', type: 'line', data: lower, stack: 'channel', symbol: 'none', lineStyle: { width: 0 }, itemStyle: { color: BAND } },
+      {
+        name: 'Endemic channel',
+        type: 'line',
+        data: width,
+        stack: 'channel',
+        symbol: 'none',
+        lineStyle: { width: 0 },
+        areaStyle: { color: BAND, opacity: 0.7 },
+        itemStyle: { color: BAND },
+      },
+      { name: 'Channel centre', type: 'line', data: centre, symbol: 'none', lineStyle: { color: CENTRE, type: 'dashed', width: 1.5 }, itemStyle: { color: CENTRE } },
+      { name: `${data.year} cases`, type: 'bar', data: season, itemStyle: { color: SEASON }, barMaxWidth: 12 },
+      ...data.priorSeasons.map((s, i) => ({
+        name: priorNames[i],
+        type: 'line',
+        data: s.weeks,
+        symbol: 'none',
+        lineStyle: { width: 1, color: PRIOR, type: data.excludedYears.includes(s.year) ? 'dotted' : 'solid' },
+        itemStyle: { color: PRIOR },
+      })),
+    ],
+  };
+  return (
+    <ReactEChartsCore
+      echarts={echarts}
+      option={option}
+      notMerge
+      style={{ height: 340, width: '100%' }}
+      opts={{ renderer: 'canvas' }}
+    />
+  );
+}

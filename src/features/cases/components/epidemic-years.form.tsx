@@ -1,0 +1,40 @@
+import { useState, type FormEvent } from 'react';
+import type { SignalsResponse } from '../../../../shared/api/cases.schema';
+import { CheckboxGroup, FormMessage } from '../../../components/form';
+import { formErrorText } from '../../../lib/form-errors';
+import { useSetChannelSettings } from '../api/channel-settings.api';
+
+/** Which prior seasons the district's channel leaves out as epidemic years (per district and disease). */
+export function EpidemicYearsForm({ data }: { data: SignalsResponse }) {
+  const save = useSetChannelSettings();
+  const [years, setYears] = useState(data.excludedYears.map(String));
+  const [message, setMessage] = useState<{ kind: 'success' | 'error'; text: string } | null>(null);
+  const onSubmit = async (event: FormEvent) => {
+    event.preventDefault();
+    try {
+      const result = await save.mutateAsync({ districtId: data.district.id, body: { diseaseId: data.disease.id, excludedYears: years.map(Number) } });
+      setMessage({ kind: 'success', text: result.excludedYears.length ? `Left out: ${result.excludedYears.join(', ')}.` : 'Every prior season counts.' });
+    } catch (error) {
+      setMessage({ kind: 'error', text: formErrorText(error) });
+    }
+  };
+  return (
+    <form onSubmit={onSubmit} className="card space-y-2" aria-labelledby="epidemic-years-title">
+      <h2 id="epidemic-years-title" className="section-title">
+        Epidemic years
+      </h2>
+      {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
+      <CheckboxGroup
+        legend={`Seasons to leave out of the ${data.disease.name} channel`}
+        hint="An epidemic season would raise the channel and hide the next epidemic."
+        options={data.priorSeasons.map((s) => ({ value: String(s.year), label: String(s.year) }))}
+        value={years}
+        onChange={setYears}
+        emptyText="No prior seasons on record."
+      />
+      <button type="submit" className="btn btn-secondary btn-small" disabled={save.isPending}>
+        Save the epidemic years
+      </button>
+    </form>
+  );
+}

@@ -1,0 +1,79 @@
+import { useId, useState } from 'react';
+import type { FlagDto } from '../../../../shared/api/flags.schema';
+import { FormMessage } from '../../../components/form';
+import { isApiError } from '../../../lib/api-client';
+import { useSession } from '../../../app/session';
+import { useApproveFlag, useRejectFlag } from '../api/decide-flag.api';
+
+/**
+ * Sign-off of one open flag: approve (the message can be edited first) or reject with a reason. The flag's
+ * version goes with the decision, so a flag another supervisor decided meanwhile is refused, and said so.
+ */
+export function DecisionForm({ flag }: { flag: FlagDto }) {
+  const id = useId();
+  const me = useSession();
+  const approve = useApproveFlag();
+  const reject = useRejectFlag();
+  const [message, setMessage] = useState(flag.suggestedMessage);
+  const [reason, setReason] = useState('');
+  const [mode, setMode] = useState<'approve' | 'reject'>('approve');
+  if (flag.status !== 'open') return null;
+  if (flag.raisedBy?.id === me.id) return <FormMessage kind="info">You raised this flag, so another supervisor signs it off.</FormMessage>;
+
+  const error = approve.error ?? reject.error;
+  const errorText = error
+    ? isApiError(error) && (error.code === 'flag_decided' || error.code === 'flag_changed')
+      ? `${error.message}`
+      : error.message
+    : null;
+  const busy = approve.isPending || reject.isPending;
+  const done = approve.isSuccess ? 'Approved: the advisory is on its way to the district’s subscribers.' : reject.isSuccess ? 'Rejected.' : null;
+
+  return (
+    <div className="space-y-3 border-t border-line pt-3">
+      <FormMessage kind="error">{errorText}</FormMessage>
+      <FormMessage kind="success">{done}</FormMessage>
+      <div role="radiogroup" aria-label="Decision" className="flex gap-4">
+        <label className="flex items-center gap-2">
+          <input type="radio" name={`${id}-mode`} checked={mode === 'approve'} onChange={() => setMode('approve')} /> Approve
+        </label>
+        <label className="flex items-center gap-2">
+          <input type="radio" name={`${id}-mode`} checked={mode === 'reject'} onChange={() => setMode('reject')} /> Reject
+        </label>
+      </div>
+      {mode === 'approve' ? (
+        <form
+          className="space-y-2"
+          onSubmit={(e) => {
+            e.preventDefault();
+            approve.mutate({ id: flag.id, body: { version: flag.version, ...(message.trim() !== flag.suggestedMessage ? { message: message.trim() } : {}) } });
+          }}
+        >
+          <label htmlFor={`${id}-message`} className="field-label">
+            Advisory message (edit before approving if needed)
+          </label>
+          <textarea id={`${id}-message`} className="input min-h-32" value={message} onChange={(e) => setMessage(e.currentTarget.value)} maxLength={2000} />
+          <button type="submit" className="btn btn-primary" disabled={busy || message.trim().length < 10}>
+            {approve.isPending ? 'Approving…' : 'Approve and send the advisory'}
+          </button>
+        </form>
+      ) : (
+        <form
+          className="space-y-2"
+          onSubmit={(e) => {
+            e.preventDefault();
+            reject.mutate({ id: flag.id, body: { version: flag.version, reason: reason.trim() } });
+          }}
+        >
+          <label htmlFor={`${id}-reason`} className="field-label">
+            Why reject it? (kept in the flag’s history)
+          </label>
+          <textarea id={`${id}-reason`} className="input" value={reason} onChange={(e) => setReason(e.currentTarget.value)} maxLength={500} />
+          <button type="submit" className="btn btn-secondary" disabled={busy || reason.trim().length < 3}>
+            {reject.isPending ? 'Rejecting…' : 'Reject the flag'}
+          </button>
+        </form>
+      )}
+    </div>
+  );
+}

@@ -1,0 +1,117 @@
+import type { SurveyBody, SurveyDto } from '../../../shared/api/surveys.schema';
+import { surveyDto } from '../../../shared/api/surveys.schema';
+import { errorFromResponse } from '../../lib/api-client';
+
+/**
+ * The offline-first outbox of larval surveys. A survey is written to the browser's storage (localStorage)
+ * before anything is sent, and leaves it only when the server has accepted it (201 the first time, 200
+ * when it already had that id). The id is made in the browser when the survey is saved, so sending it
+ * again — after a lost answer, a reload or a second tab — never stores it twice. A survey the server
+ * refuses (400/403/409) stays in the outbox with the reason, for the user to fix or discard: nothing is
+ * lost silently. Hand-written (about a hundred lines) because the product needs only this one queue;
+ * a general offline-sync library would bring a service worker and a schema of its own.
+ */
+
+export const OUTBOX_KEY = 'broodcast.surveys.outbox.v1';
+
+export type OutboxItem = {
+  survey: SurveyBody;
+  queuedAt: string;
+  attempts: number;
+  /** Why the last attempt failed: `offline` (try again later) or `refused` (the server said no). */
+  problem: { kind: 'offline' | 'refused'; message: string; fields?: { path: string; message: string }[] } | null;
+};
+
+export type FlushResult = { sent: SurveyDto[]; kept: number };
+
+type Storage = Pick<globalThis.Storage, 'getItem' | 'setItem'>;
+type Fetch = typeof fetch;
+
+export class SurveyOutbox {
+  private flushing: Promise<FlushResult> | null = null;
+  private readonly listeners = new Set<() => void>();
+
+  constructor(
+    private readonly storage: Storage = globalThis.localStorage,
+    private readonly fetchFn: Fetch = (...args) => globalThis.fetch(...args),
+  ) {}
+
+  items(): OutboxItem[] {
+    try {
+      const raw = this.storage.getItem(OUTBOX_KEY);
+      const parsed = raw ? (JSON.parse(raw) as OutboxItem[]) : [];
+      return Array.isArray(parsed) ? parsed : [];
+    } catch {
+      return [];
+    }
+  }
+
+  private write(items: OutboxItem[]) {
+    this.storage.setItem(OUTBOX_KEY, JSON.stringify(items));
+    for (const l of this.listeners) l();
+  }
+
+  subscribe(listener: () => void): () => void {
+    this.listeners.add(listener);
+    return () => this.listeners.delete(listener);
+  }
+
+  /** Keep a survey (before any network). Adding the same id twice keeps one copy, the newer. */
+  add(survey: SurveyBody): void {
+    const others = this.items().filter((i) => i.survey.id !== survey.id);
+    this.write([...others, { survey, queuedAt: new Date().toISOString(), attempts: 0, problem: null }]);
+  }
+
+  discard(id: string): void {
+    this.write(this.items().filter((i) => i.survey.id !== id));
+  }
+
+  /**
+   * Send every kept survey, oldest first. One flush at a time: a second call while one runs gets the
+   * same promise, so an `online` event and a button press never send a survey twice at once.
+   */
+  flush(): Promise<FlushResult> {
+    this.flushing ??= this.run().finally(() => {
+      this.flushing = null;
+    });
+    return this.flushing;
+  }
+
+  private async run(): Promise<FlushResult> {
+    const sent: SurveyDto[] = [];
+    for (const item of this.items()) {
+      const id = item.survey.id;
+      const update = (problem: OutboxItem['problem']) =>
+        this.write(this.items().map((i) => (i.survey.id === id ? { ...i, attempts: i.attempts + 1, problem } : i)));
+      let response: Response;
+      try {
+        response = await this.fetchFn('/api/surveys', {
+          method: 'POST',
+          headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
+          body: JSON.stringify(item.survey),
+          credentials: 'same-origin',
+        });
+      } catch {
+        update({ kind: 'offline', message: 'Not sent yet: no connection. It will be sent when the browser is back online.' });
+        break; // no point trying the rest while offline
+      }
+      if (response.status === 200 || response.status === 201) {
+        const parsed = surveyDto.safeParse(await response.json().catch(() => null));
+        this.write(this.items().filter((i) => i.survey.id !== id));
+        if (parsed.success) sent.push(parsed.data);
+        continue;
+      }
+      const error = await errorFromResponse(response);
+      if (response.status === 401 || response.status >= 500 || response.status === 0) {
+        update({ kind: 'offline', message: response.status === 401 ? 'Not sent yet: sign in again to send it.' : `Not sent yet: ${error.message}` });
+        break;
+      }
+      update({ kind: 'refused', message: error.message, fields: error.fields });
+    }
+    return { sent, kept: this.items().length };
+  }
+}
+
+let shared: SurveyOutbox | null = null;
+/** The browser's one outbox. */
+export const surveyOutbox = () => (shared ??= new SurveyOutbox());
