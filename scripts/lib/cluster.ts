@@ -115,7 +115,10 @@ export async function startCluster(opts: {
   }
   // Already running on this port (another command of this checkout started it): share it.
   if (!isRunning(dataDir)) {
-    runPg('pg_ctl', ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-o', `-p ${opts.port}`, '-w', '-t', '60', 'start'], {
+    // The throw-away test cluster runs without autovacuum: its workers belong to no role the app may
+    // signal, so they would block `DROP DATABASE … WITH (FORCE)` between test files.
+    const serverOptions = `-p ${opts.port}${opts.durable ? '' : ' -c autovacuum=off'}`;
+    runPg('pg_ctl', ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-o', serverOptions, '-w', '-t', '60', 'start'], {
       quiet: true,
     });
   }

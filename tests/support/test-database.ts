@@ -14,7 +14,16 @@ export async function freshTestDatabase(): Promise<string> {
   const client = new pg.Client({ connectionString: url.toString() });
   await client.connect();
   try {
-    await client.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+    // A backend of the previous file may still be closing: try again briefly before giving up.
+    for (let attempt = 1; ; attempt++) {
+      try {
+        await client.query(`DROP DATABASE IF EXISTS "${name}" WITH (FORCE)`);
+        break;
+      } catch (err) {
+        if (attempt >= 5) throw err;
+        await new Promise((r) => setTimeout(r, 300 * attempt));
+      }
+    }
     await client.query(`CREATE DATABASE "${name}" TEMPLATE "${templateName}"`);
   } finally {
     await client.end();
