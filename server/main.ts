@@ -6,7 +6,7 @@ import { createLogger } from './logger';
 import { createMailer } from './mail/mailer';
 import { allJobs } from '../jobs/index';
 import { startScheduler } from '../jobs/scheduler';
-import { SeasonRunService } from './season/season-run.service';
+import { startupRuns } from './season/season-run.service';
 
 let config;
 try {
@@ -27,7 +27,7 @@ const app = createApp(ctx);
 const scheduler = startScheduler(ctx, allJobs(config));
 if (config.SEASON_RUN_ON_START) {
   // Incremental: districts whose inputs did not change since the last run are skipped.
-  void new SeasonRunService(ctx).runLocked({ kind: 'manual' }).catch((err) => logger.error({ err: err.message }, 'start-up season run failed'));
+  void startupRuns(ctx).catch((err) => logger.error({ err: err.message }, 'start-up season run failed'));
 }
 const server = app.listen(config.PORT, config.HOST, () => {
   logger.info({ port: config.PORT, host: config.HOST }, 'Broodcast API listening');

@@ -1,4 +1,4 @@
-import { epiWeek } from '../../shared/model';
+import { epiWeek, epiWeekEnd } from '../../shared/model';
 import type { AppContext } from '../app-context';
 import { conflict, notFound } from '../http/errors';
 import { withAdvisoryLock } from '../../jobs/advisory-lock';
@@ -196,6 +196,24 @@ const minTier = (a: string, b: string) => (tierRank(a as never) <= tierRank(b as
 const maxTier = (a: string, b: string) => (tierRank(a as never) >= tierRank(b as never) ? a : b);
 function isoMinusDays(iso: string, days: number) {
   return new Date(Date.parse(iso) - days * 86_400_000).toISOString().slice(0, 10);
+}
+
+/**
+ * At start: when no tier exists yet (a fresh installation), compute the tiers of the last `weeks`
+ * epidemiological weeks first (each as of its last day), so the Ladder has a "since last week" and the
+ * District file a tier history; then the usual incremental run for today.
+ */
+export async function startupRuns(ctx: AppContext, weeks = 8) {
+  const service = new SeasonRunService(ctx);
+  const [{ n }] = await ctx.ds.query('SELECT count(*)::int AS n FROM district_tiers');
+  if (n === 0) {
+    const today = todayIn(ctx.config.TIMEZONE);
+    for (let k = weeks; k >= 1; k--) {
+      const w = epiWeek(isoMinusDays(today, 7 * k), ctx.config.EPI_WEEK_SYSTEM);
+      await service.runLocked({ kind: 'manual', full: true, asOf: epiWeekEnd(w.year, w.week, ctx.config.EPI_WEEK_SYSTEM) });
+    }
+  }
+  return service.runLocked({ kind: 'manual' });
 }
 
 /** For tests and the demo: one full run now, waiting for it. */
