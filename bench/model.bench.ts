@@ -9,6 +9,7 @@
 import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { computeSeasonColumns, createSeasonColumns, compileProfile, profiles } from '../shared/model';
+import { seededRandom } from '../sample/random';
 
 interface Config {
   districts: number;
@@ -16,17 +17,8 @@ interface Config {
   seed: number;
 }
 
-/** mulberry32: small, fast, seeded PRNG. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The demo's seeded generator (mulberry32), so the bench weather is the same on every machine. */
+const prng = seededRandom;
 
 interface Weather {
   first: number;
