@@ -20,7 +20,8 @@ const EDITORS = ['admin', 'officer'] as const;
 export function weatherRoutes(ctx: AppContext) {
   const service = new WeatherService(ctx);
   const feed = new WeatherFeedService(ctx);
-  const dir = ctx.config.WEATHER_UPLOAD_DIR ?? path.join(os.tmpdir(), 'broodcast-uploads');
+  // One folder per system user: a shared name under /tmp breaks when another user created it first.
+  const dir = ctx.config.WEATHER_UPLOAD_DIR ?? path.join(os.tmpdir(), `broodcast-uploads-${os.userInfo().username}`);
   mkdirSync(dir, { recursive: true, mode: 0o700 });
   // Disk storage under a generated name (never the client's file name), so a 200 MB file is never held in memory.
   const upload = multer({
