@@ -1,11 +1,11 @@
 import type { DistrictFileResponse } from '../../shared/api/board.schema';
-import { findProfile } from '../../shared/model';
-import { aggregateLarvalIndices, endemicChannel } from '../../shared/signals';
+import { findProfile, weeksInYear } from '../../shared/model';
+import { aggregateLarvalIndices } from '../../shared/signals';
+import { buildSignals, CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
 import type { AppContext } from '../app-context';
 import { assertDistrictVisible, type Principal } from '../auth/principal';
 import { notFound } from '../http/errors';
 
-const PRIOR_YEARS = 7;
 
 /** Everything the District file shows, in one answer, from stored data (no recomputation). */
 export class DistrictFileService {
@@ -39,7 +39,7 @@ export class DistrictFileService {
                 rvc, rvc_low, rvc_high, season_open, complete
            FROM vector_clock_days WHERE district_id = $1 AND date BETWEEN $2 AND $3 ORDER BY profile_id, date`, [districtId, from, to]),
       q(`SELECT c.disease_id, d.name AS disease_name, c.epi_year, c.epi_week, c.cases FROM case_counts c JOIN diseases d ON d.id = c.disease_id
-          WHERE c.district_id = $1 AND c.epi_year BETWEEN $2 AND $3`, [districtId, seasonYear - PRIOR_YEARS, seasonYear]),
+          WHERE c.district_id = $1 AND c.epi_year BETWEEN $2 AND $3`, [districtId, seasonYear - CHANNEL_LOOKBACK_YEARS, seasonYear]),
       q(`SELECT epi_year, epi_week, houses_inspected AS "housesInspected", houses_positive AS "housesPositive",
                 containers_inspected AS "containersInspected", containers_positive AS "containersPositive", pupae
            FROM larval_surveys WHERE district_id = $1 AND epi_year = $2 ORDER BY epi_year, epi_week`, [districtId, seasonYear]),
@@ -63,32 +63,29 @@ export class DistrictFileService {
     }
 
     const excluded = new Map<string, number[]>(excludedRows.map((r: { disease_id: string; excluded_years: number[] }) => [r.disease_id, r.excluded_years]));
-    const diseases = new Map<string, { name: string; counts: Map<string, number> }>();
+    const diseases = new Map<string, { name: string; counts: Map<number, (number | null)[]> }>();
     for (const r of caseRows) {
       if (!diseases.has(r.disease_id)) diseases.set(r.disease_id, { name: r.disease_name, counts: new Map() });
-      diseases.get(r.disease_id)!.counts.set(`${r.epi_year}:${r.epi_week}`, r.cases);
+      const years = diseases.get(r.disease_id)!.counts;
+      if (!years.has(r.epi_year)) years.set(r.epi_year, []);
+      years.get(r.epi_year)![r.epi_week - 1] = r.cases;
     }
-    const weeks = Array.from({ length: 53 }, (_, i) => i + 1);
+    const system = this.ctx.config.EPI_WEEK_SYSTEM;
+    const lastWeek = weeksInYear(seasonYear, system);
+    const weeks = Array.from({ length: lastWeek }, (_, i) => i + 1);
+    // The channel exactly as the district cases page draws it (the case ledger's signals).
     const cases = [...diseases.entries()].map(([diseaseId, d]) => {
-      const skip = excluded.get(diseaseId) ?? [];
-      const channel = { lower: [] as (number | null)[], centre: [] as (number | null)[], upper: [] as (number | null)[], method: this.ctx.config.CHANNEL_METHOD };
-      for (const w of weeks) {
-        const history: number[] = [];
-        for (let y = seasonYear - 1; y >= seasonYear - PRIOR_YEARS; y--) {
-          const v = d.counts.get(`${y}:${w}`);
-          if (v !== undefined && !skip.includes(y)) history.push(v);
-        }
-        const band = history.length >= 2 ? endemicChannel(this.ctx.config.CHANNEL_METHOD, history) : null;
-        channel.lower.push(band ? round(band.lower) : null);
-        channel.centre.push(band ? round(band.centre) : null);
-        channel.upper.push(band ? round(band.upper) : null);
-      }
-      const priorSeasons = [];
-      for (let y = seasonYear - 1; y >= seasonYear - PRIOR_YEARS; y--) {
-        const counts = weeks.map((w) => d.counts.get(`${y}:${w}`) ?? null);
-        if (counts.some((c) => c !== null)) priorSeasons.push({ year: y, counts });
-      }
-      return { diseaseId, diseaseName: d.name, weeks, counts: weeks.map((w) => d.counts.get(`${seasonYear}:${w}`) ?? null), channel, priorSeasons };
+      const signals = buildSignals({
+        year: seasonYear, lastWeek, weeksInTargetYear: lastWeek, counts: d.counts, excludedYears: excluded.get(diseaseId) ?? [],
+        method: this.ctx.config.CHANNEL_METHOD, cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H }, population: null,
+      });
+      const band = (f: 'lower' | 'centre' | 'upper') => signals.weeks.map((w) => (w.channel ? round(w.channel[f]) : null));
+      const channel = { lower: band('lower'), centre: band('centre'), upper: band('upper'), method: this.ctx.config.CHANNEL_METHOD };
+      const priorSeasons = [...d.counts.keys()]
+        .filter((y) => y < seasonYear)
+        .sort((a, b) => b - a)
+        .map((year) => ({ year, counts: weeks.map((w) => d.counts.get(year)![w - 1] ?? null) }));
+      return { diseaseId, diseaseName: d.name, weeks, counts: weeks.map((w) => d.counts.get(seasonYear)?.[w - 1] ?? null), channel, priorSeasons };
     });
 
     const larvalByWeek = new Map<string, typeof surveyRows>();

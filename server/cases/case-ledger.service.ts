@@ -22,7 +22,7 @@ import { CaseCountRevisionEntity } from './case-count-revision.entity';
 import { CaseCountEntity } from './case-count.entity';
 import { CaseLedgerRepository } from './case-ledger.repository';
 import { completenessOf, presentCount, presentDisease, presentRevision } from './case-ledger.presenter';
-import { buildSignals } from './case-signals';
+import { buildSignals, CHANNEL_LOOKBACK_YEARS } from './case-signals';
 import { currentWeek, deadlineOf, isDue, todayIn, weekKey, weekRef, weeksEndingWith } from './case-weeks';
 import { CaseWeekClosureEntity } from './case-week-closure.entity';
 import { DiseaseEntity } from './disease.entity';
@@ -343,7 +343,7 @@ export class CaseLedgerService {
       throw badRequest('future_season', `The ${year} season has not started yet.`, [{ path: 'year', message: 'is in the future' }]);
     const n = weeksInYear(year, this.system);
     const lastWeek = year === now.year ? now.week : n;
-    const firstYear = year - 8;
+    const firstYear = year - CHANNEL_LOOKBACK_YEARS;
     const [counts, closures, excludedYears, populations] = await Promise.all([
       this.repo.countsBetween([district.id], disease.id, weekKey(firstYear, 1), weekKey(year, 53)),
       this.repo.closuresBetween([district.id], weekKey(year, 1), weekKey(year, 53)),

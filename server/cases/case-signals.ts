@@ -22,6 +22,8 @@ import {
 /** Seasons Bortman (1999) recommends for the channel: the 5 to 7 most recent prior seasons. */
 export const CHANNEL_MAX_SEASONS = 7;
 export const CHANNEL_RECOMMENDED_SEASONS = 5;
+/** Years of counts to load before a season: the 7 channel seasons plus one that may be left out as epidemic. */
+export const CHANNEL_LOOKBACK_YEARS = 8;
 /** Weeks of the log-linear doubling-time fit (docs/signals.md: 3 to 6 is typical). */
 export const FIT_WEEKS = 4;
 

@@ -6,7 +6,8 @@ import {
   computeSeasonColumns, createSeasonColumns, epiWeek, type EpiWeekSystem, getProfile, type SeasonColumns, type SeasonColumnsInput,
   type SeasonInputDay, weeksInYear,
 } from '../../shared/model';
-import { aggregateLarvalIndices, c2, channelZone, endemicChannel } from '../../shared/signals';
+import { aggregateLarvalIndices } from '../../shared/signals';
+import { buildSignals } from '../cases/case-signals';
 import { computeTier, type TierInputs, type TierResult, type TierSettings } from '../../shared/tier';
 import type { CaseRow, DistrictForRun, SurveyRow, VectorClockRows } from './season.repository';
 
@@ -23,6 +24,7 @@ export interface DistrictSeasonInput {
   settings: TierSettings;
   epiSystem: EpiWeekSystem;
   channelMethod: 'geometric' | 'quartile' | 'mean-2sd';
+  cusum: { k: number; h: number };
 }
 
 export interface DistrictSeasonResult {
@@ -38,7 +40,6 @@ export interface DistrictSeasonResult {
 }
 
 const mean = (xs: number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
-const lastN = <T>(xs: T[], n: number) => xs.slice(Math.max(0, xs.length - n));
 const DAY = 86_400_000;
 const daysBetween = (a: string, b: string) => Math.round((Date.parse(b) - Date.parse(a)) / DAY);
 const isoPlus = (iso: string, n: number) => new Date(Date.parse(iso) + n * DAY).toISOString().slice(0, 10);
@@ -85,14 +86,28 @@ function generationsRatio(input: DistrictSeasonInput, profileId: string, biofix:
   return usual && usual > 0 ? now / usual : null;
 }
 
+/** Weekly counts by disease and epidemiological year, as the case ledger's signals take them. */
+function countsByDisease(cases: CaseRow[]): Map<string, Map<number, (number | null)[]>> {
+  const out = new Map<string, Map<number, (number | null)[]>>();
+  for (const r of cases) {
+    let years = out.get(r.diseaseId);
+    if (!years) out.set(r.diseaseId, (years = new Map()));
+    let weeks = years.get(r.epiYear);
+    if (!weeks) years.set(r.epiYear, (weeks = []));
+    weeks[r.epiWeek - 1] = r.cases;
+  }
+  return out;
+}
+
+/**
+ * The case driver's inputs: the newest reported week up to the as-of week, and for each disease its
+ * channel zone, C2 alarm and growth from the case ledger's own signals (server/cases/case-signals.ts),
+ * so the tier reads the same figures as the district cases page. The disease with the strongest signal wins.
+ */
 function caseInputs(input: DistrictSeasonInput) {
   const now = epiWeek(input.asOf, input.epiSystem);
-  const byDisease = new Map<string, Map<string, number>>();
   let latest: { year: number; week: number } | null = null;
   for (const r of input.cases) {
-    let m = byDisease.get(r.diseaseId);
-    if (!m) byDisease.set(r.diseaseId, (m = new Map()));
-    m.set(`${r.epiYear}:${r.epiWeek}`, r.cases);
     const beforeNow = r.epiYear < now.year || (r.epiYear === now.year && r.epiWeek <= now.week);
     if (beforeNow && (!latest || r.epiYear > latest.year || (r.epiYear === latest.year && r.epiWeek > latest.week)))
       latest = { year: r.epiYear, week: r.epiWeek };
@@ -101,28 +116,18 @@ function caseInputs(input: DistrictSeasonInput) {
   const ageWeeks = latest.year === now.year ? now.week - latest.week : now.week + weeksInYear(latest.year, input.epiSystem) - latest.week;
   let best: { rank: number; zone: 'below' | 'within' | 'above' | null; alarm: boolean | null; growth: number | null } | null = null;
   let total = 0;
-  for (const [diseaseId, counts] of byDisease) {
-    const x = counts.get(`${latest.year}:${latest.week}`);
-    if (x === undefined) continue;
+  for (const [diseaseId, counts] of countsByDisease(input.cases)) {
+    const x = counts.get(latest.year)?.[latest.week - 1];
+    if (x === undefined || x === null) continue;
     total += x;
-    const excluded = input.excludedYears.get(`${input.district.id}:${diseaseId}`) ?? [];
-    const history: number[] = [];
-    for (let y = latest.year - 1; y >= latest.year - 7 && history.length < 7; y--) {
-      const h = counts.get(`${y}:${latest.week}`);
-      if (h !== undefined && !excluded.includes(y)) history.push(h);
-    }
-    const zone = history.length >= 2 ? channelZone(x, endemicChannel(input.channelMethod, history)) : null;
-    // The reported weeks in order, up to the latest (a week nobody reported is left out, not read as zero).
-    const series = [...counts.entries()]
-      .map(([k, v]) => ({ k: k.split(':').map(Number), v }))
-      .filter(({ k }) => k[0] < latest!.year || (k[0] === latest!.year && k[1] <= latest!.week))
-      .sort((a, b) => a.k[0] - b.k[0] || a.k[1] - b.k[1])
-      .map((e) => e.v);
-    const recent = lastN(series, 20);
-    const alarms = recent.length >= 10 ? c2(recent).alarm : [];
-    const alarm = alarms.length ? alarms[alarms.length - 1] : null;
-    const prev = recent.length >= 2 ? recent[recent.length - 2] : null;
-    const growth = prev !== null && prev > 0 ? x / prev : null;
+    const week = buildSignals({
+      year: latest.year, lastWeek: latest.week, weeksInTargetYear: weeksInYear(latest.year, input.epiSystem), counts,
+      excludedYears: input.excludedYears.get(`${input.district.id}:${diseaseId}`) ?? [], method: input.channelMethod,
+      cusum: input.cusum, population: null,
+    }).weeks[latest.week - 1];
+    const { zone } = week;
+    const alarm = week.c2.alarm;
+    const growth = week.growth.ratio;
     const rank = (zone === 'above' ? 4 : zone === 'within' ? 2 : 0) + (alarm ? 2 : 0) + Math.min(1, Math.max(0, (growth ?? 1) - 1));
     if (!best || rank > best.rank) best = { rank, zone, alarm, growth };
   }

@@ -8,6 +8,7 @@ import { DistrictTierEntity } from './district-tier.entity';
 import { emptyVectorClockRows, SeasonRepository } from './season.repository';
 import { SeasonRunEntity } from './season-run.entity';
 import { TierSettingsService } from './tier-settings.service';
+import { CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
 import { changedDriver, tierRank } from '../../shared/tier';
 import { raiseSeasonFlags } from '../flags/flags.service';
 
@@ -102,7 +103,7 @@ export class SeasonRunService {
       const seasonYear = Number(asOf.slice(0, 4));
       const seasonStart = `${seasonYear}-01-01`;
       const week = epiWeek(asOf, this.ctx.config.EPI_WEEK_SYSTEM);
-      const caseFromYear = seasonYear - 8;
+      const caseFromYear = seasonYear - CHANNEL_LOOKBACK_YEARS;
       const districts = await this.repo.districts();
       const fingerprints = await this.repo.fingerprints(seasonStart, asOf, caseFromYear);
       const states = await this.repo.runStates();
@@ -140,6 +141,7 @@ export class SeasonRunService {
             cases: cases.filter((c) => c.districtId === district.id), excludedYears: excluded,
             surveys: surveys.filter((s) => s.districtId === district.id), settings,
             epiSystem: this.ctx.config.EPI_WEEK_SYSTEM, channelMethod: this.ctx.config.CHANNEL_METHOD,
+            cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H },
           }, emptyVectorClockRows());
           const before = previous.get(district.id);
           // One transaction per district: its stored season, its tier and its fingerprint land together.
