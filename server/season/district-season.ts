@@ -3,7 +3,7 @@
  * tier inputs (docs/tier.md) and the tier with low / central / high variants.
  */
 import {
-  computeSeasonColumns, createSeasonColumns, epiWeek, type EpiWeekSystem, getProfile, type SeasonColumns, type SeasonColumnsInput,
+  computeSeasonColumns, createSeasonColumns, epiWeek, formatIsoDate, isLeapYear, parseIsoDate, type EpiWeekSystem, getProfile, type SeasonColumns, type SeasonColumnsInput,
   type SeasonInputDay, weeksInYear,
 } from '../../shared/model';
 import { aggregateLarvalIndices } from '../../shared/signals';
@@ -40,9 +40,7 @@ export interface DistrictSeasonResult {
 }
 
 const mean = (xs: number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
-const DAY = 86_400_000;
-const daysBetween = (a: string, b: string) => Math.round((Date.parse(b) - Date.parse(a)) / DAY);
-const isoPlus = (iso: string, n: number) => new Date(Date.parse(iso) + n * DAY).toISOString().slice(0, 10);
+const daysBetween = (a: string, b: string) => parseIsoDate(b) - parseIsoDate(a);
 const biofixFor = (monthDay: string | null, year: number) => (monthDay ? `${year}-${monthDay}` : undefined);
 const orNull = (x: number) => (Number.isNaN(x) ? null : x);
 
@@ -79,7 +77,7 @@ function generationsRatio(input: DistrictSeasonInput, profileId: string, biofix:
   const prior: number[] = [];
   for (const [year, days] of input.priorWeather) {
     if (days.length < 300) continue; // an earlier season needs most of its days to be "usual"
-    const c = columnsFor(profileId, input.district.lat, biofixFor(biofix, year), toColumns(days, `${year}-01-01`, `${year}-${md}`));
+    const c = columnsFor(profileId, input.district.lat, biofixFor(biofix, year), toColumns(days, `${year}-01-01`, `${year}-${md === '02-29' && !isLeapYear(year) ? '02-28' : md}`));
     prior.push(c.generations[c.length - 1]);
   }
   const usual = mean(prior);
@@ -155,9 +153,10 @@ export function computeDistrictSeason(input: DistrictSeasonInput, rows: VectorCl
     if (input.weather.length === 0 || district.lat === null) continue;
     const c = columnsFor(profileId, district.lat, biofixFor(biofix, input.seasonYear), weatherCols);
     const n = c.length;
+    const firstDay = parseIsoDate(weatherCols.startDate);
     for (let i = 0; i < n; i++) {
       rows.profileId.push(profileId);
-      rows.date.push(isoPlus(weatherCols.startDate, i));
+      rows.date.push(formatIsoDate(firstDay + i));
       rows.degreeDays.push(orNull(c.degreeDays[i]));
       rows.cumulativeDegreeDays.push(c.cumulativeDegreeDays[i]);
       rows.complete.push(c.complete[i] === 1);

@@ -1,4 +1,4 @@
-import { epiWeek, epiWeekEnd } from '../../shared/model';
+import { epiWeek, epiWeekEnd, formatIsoDate, parseIsoDate } from '../../shared/model';
 import type { AppContext } from '../app-context';
 import { conflict, notFound } from '../http/errors';
 import { withAdvisoryLock } from '../../jobs/advisory-lock';
@@ -196,9 +196,7 @@ export class SeasonRunService {
 
 const minTier = (a: string, b: string) => (tierRank(a as never) <= tierRank(b as never) ? a : b);
 const maxTier = (a: string, b: string) => (tierRank(a as never) >= tierRank(b as never) ? a : b);
-function isoMinusDays(iso: string, days: number) {
-  return new Date(Date.parse(iso) - days * 86_400_000).toISOString().slice(0, 10);
-}
+const isoMinusDays = (iso: string, days: number) => formatIsoDate(parseIsoDate(iso) - days);
 
 /**
  * At start: when no tier exists yet (a fresh installation), compute the tiers of the last `weeks`

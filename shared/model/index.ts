@@ -35,7 +35,7 @@ export {
 export { epiWeek, epiWeekStart, epiWeekEnd, weeksInYear, weekOneStart, epiWeekOfDay, EPI_WEEK_SYSTEMS } from './epi-week';
 export type { EpiWeek, EpiWeekSystem } from './epi-week';
 
-export { parseIsoDate, formatIsoDate, isIsoDate, dayOfYear, weekday } from './dates';
+export { parseIsoDate, formatIsoDate, isIsoDate, isLeapYear, dayOfYear, weekday } from './dates';
 
 export {
   profileSchema,
