@@ -29,6 +29,7 @@ export default defineConfig({
           name: 'client',
           environment: 'happy-dom',
           include: ['tests/client/**/*.test.tsx'],
+          setupFiles: ['tests/client/support/setup.ts'],
         },
       }),
       {
