@@ -35,7 +35,10 @@ try {
   const feedKey = `test-feed-${Date.now().toString(36)}`;
   const feed = await startFakeFeed({ port: ports.testFeed, key: feedKey });
   try {
-    await buildClient();
+    // The browser tests serve the built client; a run of named test files outside tests/browser skips the build.
+    const files = process.argv.slice(2).filter((a) => a.startsWith('tests/'));
+    if (files.length === 0 || files.some((f) => f.startsWith('tests/browser'))) await buildClient();
+    else console.log('› no browser test named: the client build is skipped');
     console.log(`› test set-up took ${((Date.now() - t0) / 1000).toFixed(1)} s`);
     exitCode = await new Promise<number>((resolve) => {
       const child = spawn(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)], {

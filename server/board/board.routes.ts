@@ -11,8 +11,12 @@ export function boardRoutes(ctx: AppContext) {
   return [
     defineRoute({
       method: 'get', path: '/board', access: 'signed-in',
-      handler: async ({ principal }, _req, res) => {
-        res.type('application/json').send(await board.boardJson(principal));
+      handler: async ({ principal }, req, res) => {
+        const body = await board.boardBody(principal, req.acceptsEncodings('gzip') === 'gzip');
+        // Express answers 304 itself when If-None-Match matches this ETag.
+        res.set({ ETag: body.etag, Vary: 'Accept-Encoding', 'Cache-Control': 'private, no-cache' });
+        if (body.gzip) res.set('Content-Encoding', 'gzip');
+        res.type('application/json').send(body.data);
       },
     }),
     defineRoute({

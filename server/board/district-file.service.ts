@@ -35,9 +35,16 @@ export class DistrictFileService {
           WHERE district_id = $1 AND date BETWEEN $2 AND $3 ORDER BY date`, [districtId, from, to]),
       q(`SELECT s.method, s.distance_km, s.weight, st.code FROM district_weather_sources s JOIN weather_stations st ON st.id = s.station_id
           WHERE s.district_id = $1 ORDER BY s.weight DESC`, [districtId]),
-      q(`SELECT profile_id, to_char(date, 'YYYY-MM-DD') AS date, cumulative_degree_days, generations, eip_days, survival_through_eip,
-                rvc, rvc_low, rvc_high, season_open, complete
-           FROM vector_clock_days WHERE district_id = $1 AND date BETWEEN $2 AND $3 ORDER BY profile_id, date`, [districtId, from, to]),
+      // The stored seasons (one row of arrays per profile and season) given back as one row per day.
+      q(`SELECT s.profile_id, to_char(s.start_date + (u.i - 1)::int, 'YYYY-MM-DD') AS date, u.cumulative_degree_days, u.generations,
+                u.eip_days, u.survival_through_eip, u.rvc, u.rvc_low, u.rvc_high, u.season_open, u.complete
+           FROM vector_clock_seasons s,
+                unnest(s.cumulative_degree_days, s.generations, s.eip_days, s.survival_through_eip, s.rvc, s.rvc_low, s.rvc_high,
+                       s.season_open, s.complete) WITH ORDINALITY
+                  AS u(cumulative_degree_days, generations, eip_days, survival_through_eip, rvc, rvc_low, rvc_high, season_open, complete, i)
+          WHERE s.district_id = $1 AND s.season_year BETWEEN extract(year FROM $2::date) AND extract(year FROM $3::date)
+            AND s.start_date + (u.i - 1)::int BETWEEN $2::date AND $3::date
+          ORDER BY s.profile_id, s.start_date + (u.i - 1)::int`, [districtId, from, to]),
       q(`SELECT c.disease_id, d.name AS disease_name, c.epi_year, c.epi_week, c.cases FROM case_counts c JOIN diseases d ON d.id = c.disease_id
           WHERE c.district_id = $1 AND c.epi_year BETWEEN $2 AND $3`, [districtId, seasonYear - CHANNEL_LOOKBACK_YEARS, seasonYear]),
       q(`SELECT epi_year, epi_week, houses_inspected AS "housesInspected", houses_positive AS "housesPositive",

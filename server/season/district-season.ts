@@ -9,15 +9,16 @@ import {
 import { aggregateLarvalIndices } from '../../shared/signals';
 import { buildSignals } from '../cases/case-signals';
 import { computeTier, type TierInputs, type TierResult, type TierSettings } from '../../shared/tier';
-import type { CaseRow, DistrictForRun, SurveyRow, VectorClockRows } from './season.repository';
+import type { CaseRow, DistrictForRun, SurveyRow, VectorClockSeries, WeatherColumns } from './season.repository';
 
 export interface DistrictSeasonInput {
   district: DistrictForRun;
   asOf: string;
   seasonYear: number;
-  weather: SeasonInputDay[];
-  /** Weather of earlier seasons (for "generations against the usual"), by year. */
-  priorWeather: Map<number, SeasonInputDay[]>;
+  /** This season's daily weather from 1 January to the as-of date, dense (NaN where unknown). */
+  weather: WeatherColumns;
+  /** Weather of earlier seasons (for "generations against the usual"), by year, each from 1 January. */
+  priorWeather: Map<number, WeatherColumns>;
   cases: CaseRow[];
   excludedYears: Map<string, number[]>;
   surveys: SurveyRow[];
@@ -28,7 +29,8 @@ export interface DistrictSeasonInput {
 }
 
 export interface DistrictSeasonResult {
-  rows: VectorClockRows;
+  /** The vector clock of each profile over the season (copied out of the shared scratch columns). */
+  series: VectorClockSeries[];
   tier: TierResult;
   tierLow: TierResult;
   tierHigh: TierResult;
@@ -44,24 +46,6 @@ const daysBetween = (a: string, b: string) => parseIsoDate(b) - parseIsoDate(a);
 const biofixFor = (monthDay: string | null, year: number) => (monthDay ? `${year}-${monthDay}` : undefined);
 const orNull = (x: number) => (Number.isNaN(x) ? null : x);
 
-/** Dense daily columns from `from` to `to`: a day without a row is a gap (NaN), never zero heat. */
-function toColumns(days: SeasonInputDay[], from: string, to: string): SeasonColumnsInput {
-  const n = daysBetween(from, to) + 1;
-  const tmin = new Float64Array(n).fill(Number.NaN);
-  const tmax = new Float64Array(n).fill(Number.NaN);
-  const rh = new Float64Array(n).fill(Number.NaN);
-  const filled = new Uint8Array(n);
-  for (const d of days) {
-    const i = daysBetween(from, d.date);
-    if (i < 0 || i >= n || d.tmin === null || d.tmax === null) continue;
-    tmin[i] = d.tmin;
-    tmax[i] = d.tmax;
-    rh[i] = d.rh ?? Number.NaN;
-    filled[i] = d.filled ? 1 : 0;
-  }
-  return { startDate: from, tmin, tmax, rh, filled, length: n };
-}
-
 // One output buffer per process, reused for every district and profile (the season run is sequential).
 let scratch: SeasonColumns | null = null;
 function columnsFor(profileId: string, lat: number, biofix: string | undefined, input: SeasonColumnsInput): SeasonColumns {
@@ -76,8 +60,9 @@ function generationsRatio(input: DistrictSeasonInput, profileId: string, biofix:
   const md = input.asOf.slice(5);
   const prior: number[] = [];
   for (const [year, days] of input.priorWeather) {
-    if (days.length < 300) continue; // an earlier season needs most of its days to be "usual"
-    const c = columnsFor(profileId, input.district.lat, biofixFor(biofix, year), toColumns(days, `${year}-01-01`, `${year}-${md === '02-29' && !isLeapYear(year) ? '02-28' : md}`));
+    if (days.rows < 300) continue; // an earlier season needs most of its days to be "usual"
+    const upTo = daysBetween(days.startDate, `${year}-${md === '02-29' && !isLeapYear(year) ? '02-28' : md}`) + 1;
+    const c = columnsFor(profileId, input.district.lat, biofixFor(biofix, year), { ...days, length: Math.min(upTo, days.length) });
     prior.push(c.generations[c.length - 1]);
   }
   const usual = mean(prior);
@@ -138,38 +123,30 @@ function caseInputs(input: DistrictSeasonInput) {
   };
 }
 
-export function computeDistrictSeason(input: DistrictSeasonInput, rows: VectorClockRows): DistrictSeasonResult {
+export function computeDistrictSeason(input: DistrictSeasonInput): DistrictSeasonResult {
+  const series: VectorClockSeries[] = [];
   const warnings: DistrictSeasonResult['warnings'] = [];
   const { district } = input;
   if (district.profiles.length === 0) warnings.push({ code: 'no_profiles', message: `${district.code}: no vector profile assigned.` });
-  if (input.weather.length === 0) warnings.push({ code: 'missing_weather', message: `${district.code}: no weather this season.` });
+  if (input.weather.rows === 0) warnings.push({ code: 'missing_weather', message: `${district.code}: no weather this season.` });
   if (district.lat === null) warnings.push({ code: 'no_position', message: `${district.code}: no boundary, so no latitude for day length.` });
 
   type Candidate = { profileId: string; biofix: string | null; rvc: number | null; rvcLow: number | null; rvcHigh: number | null;
     seasonOpen: boolean; eipShare: number | null; eipShareLow: number | null; eipShareHigh: number | null; generations: number };
   const candidates: Candidate[] = [];
-  const weatherCols = toColumns(input.weather, `${input.seasonYear}-01-01`, input.asOf);
+  const weatherCols = input.weather;
   for (const { profileId, biofix } of district.profiles) {
-    if (input.weather.length === 0 || district.lat === null) continue;
+    if (input.weather.rows === 0 || district.lat === null) continue;
     const c = columnsFor(profileId, district.lat, biofixFor(biofix, input.seasonYear), weatherCols);
     const n = c.length;
-    const firstDay = parseIsoDate(weatherCols.startDate);
-    for (let i = 0; i < n; i++) {
-      rows.profileId.push(profileId);
-      rows.date.push(formatIsoDate(firstDay + i));
-      rows.degreeDays.push(orNull(c.degreeDays[i]));
-      rows.cumulativeDegreeDays.push(c.cumulativeDegreeDays[i]);
-      rows.complete.push(c.complete[i] === 1);
-      rows.generations.push(c.generations[i]);
-      rows.eipDays.push(orNull(c.eipDays[i]));
-      rows.survival.push(orNull(c.survival[i]));
-      rows.survivalThroughEip.push(orNull(c.survivalThroughEip[i]));
-      rows.eipShare.push(orNull(c.eipShareInLifetime[i]));
-      rows.rvc.push(orNull(c.relativeVectorialCapacity[i]));
-      rows.rvcLow.push(orNull(c.relativeVectorialCapacityLow[i]));
-      rows.rvcHigh.push(orNull(c.relativeVectorialCapacityHigh[i]));
-      rows.seasonOpen.push(c.seasonOpen[i] === 1);
-    }
+    const f32 = (col: Float64Array) => Float32Array.from(col.subarray(0, n));
+    series.push({
+      profileId, startDay: parseIsoDate(weatherCols.startDate), length: n,
+      degreeDays: f32(c.degreeDays), cumulativeDegreeDays: f32(c.cumulativeDegreeDays), complete: c.complete.slice(0, n),
+      generations: f32(c.generations), eipDays: f32(c.eipDays), survival: f32(c.survival), survivalThroughEip: f32(c.survivalThroughEip),
+      eipShare: f32(c.eipShareInLifetime), rvc: f32(c.relativeVectorialCapacity), rvcLow: f32(c.relativeVectorialCapacityLow),
+      rvcHigh: f32(c.relativeVectorialCapacityHigh), seasonOpen: c.seasonOpen.slice(0, n),
+    });
     const recent = (col: Float64Array) => mean([...col.subarray(Math.max(0, n - 14), n)].filter((v) => !Number.isNaN(v)));
     candidates.push({
       profileId, biofix,
@@ -183,7 +160,13 @@ export function computeDistrictSeason(input: DistrictSeasonInput, rows: VectorCl
   const primary = candidates.sort((a, b) => (b.rvc ?? -1) - (a.rvc ?? -1))[0] ?? null;
   const larval = input.surveys.length ? aggregateLarvalIndices(input.surveys as never) : null;
   const cases = caseInputs(input);
-  const latestWeather = [...input.weather].reverse().find((d) => d.tmin !== null && d.tmax !== null)?.date ?? null;
+  let latestWeather: string | null = null;
+  for (let i = input.weather.length - 1; i >= 0; i--) {
+    if (input.weather.tmin[i] === input.weather.tmin[i]) {
+      latestWeather = formatIsoDate(parseIsoDate(input.weather.startDate) + i);
+      break;
+    }
+  }
 
   const genRatio = primary ? generationsRatio(input, primary.profileId, primary.biofix, primary.generations) : null;
   const build = (variant: 'central' | 'low' | 'high'): TierInputs => {
@@ -208,7 +191,7 @@ export function computeDistrictSeason(input: DistrictSeasonInput, rows: VectorCl
   const tier = computeTier(central, input.settings);
   if (tier.confidence !== 'ok') warnings.push({ code: `tier_${tier.confidence}`, message: `${district.code}: ${tier.notes.join(' ')}` });
   return {
-    rows,
+    series,
     tier,
     tierLow: computeTier(build('low'), input.settings),
     tierHigh: computeTier(build('high'), input.settings),

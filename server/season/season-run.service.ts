@@ -5,7 +5,7 @@ import { withAdvisoryLock } from '../../jobs/advisory-lock';
 import { computeDistrictSeason } from './district-season';
 import { DistrictRunStateEntity } from './district-run-state.entity';
 import { DistrictTierEntity } from './district-tier.entity';
-import { emptyVectorClockRows, SeasonRepository } from './season.repository';
+import { emptyWeatherColumns, SeasonRepository, weatherByYear } from './season.repository';
 import { SeasonRunEntity } from './season-run.entity';
 import { TierSettingsService } from './tier-settings.service';
 import { CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
@@ -128,21 +128,19 @@ export class SeasonRunService {
           this.repo.surveys(ids, isoMinusDays(asOf, 28), asOf),
           this.repo.previousTiers(ids, week.year, week.week),
         ]);
+        const casesOf = groupBy(cases, (c) => c.districtId);
+        const surveysOf = groupBy(surveys, (s) => s.districtId);
         for (const district of batch) {
           if (opts.failAfter !== undefined && run.districtsDone >= opts.failAfter) throw new Error('drill: stopped part-way');
-          const priorWeather = new Map<number, typeof weather extends Map<string, infer V> ? V : never>();
-          for (const d of prior.get(district.id) ?? []) {
-            const y = Number(d.date.slice(0, 4));
-            if (!priorWeather.has(y)) priorWeather.set(y, []);
-            priorWeather.get(y)!.push(d);
-          }
+          const priorRange = prior.get(district.id);
+          const priorWeather = priorRange ? weatherByYear(priorRange) : new Map();
           const result = computeDistrictSeason({
-            district, asOf, seasonYear, weather: weather.get(district.id) ?? [], priorWeather,
-            cases: cases.filter((c) => c.districtId === district.id), excludedYears: excluded,
-            surveys: surveys.filter((s) => s.districtId === district.id), settings,
+            district, asOf, seasonYear, weather: weather.get(district.id) ?? emptyWeatherColumns(seasonStart, isoDaysBetween(seasonStart, asOf) + 1), priorWeather,
+            cases: casesOf.get(district.id) ?? [], excludedYears: excluded,
+            surveys: surveysOf.get(district.id) ?? [], settings,
             epiSystem: this.ctx.config.EPI_WEEK_SYSTEM, channelMethod: this.ctx.config.CHANNEL_METHOD,
             cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H },
-          }, emptyVectorClockRows());
+          });
           const before = previous.get(district.id);
           // One transaction per district: its stored season, its tier and its fingerprint land together.
           const written = await this.ctx.ds.transaction(async (manager) => {
@@ -150,7 +148,7 @@ export class SeasonRunService {
             // unchanged; a crash can only lose the newest commits, whose fingerprints go with them,
             // so the next run redoes those districts.
             await manager.query('SET LOCAL synchronous_commit = off');
-            const n = await this.repo.replaceVectorClock(manager, district.id, seasonStart, result.rows);
+            const n = await this.repo.replaceVectorClock(manager, district.id, seasonYear, result.series);
             await manager.upsert(DistrictTierEntity, {
               districtId: district.id, epiYear: week.year, epiWeek: week.week, runId: run.id, computedAt: new Date(), asOf,
               score: result.tier.score, tier: result.tier.tier, tierLow: minTier(result.tierLow.tier, result.tierHigh.tier),
@@ -197,6 +195,17 @@ export class SeasonRunService {
 const minTier = (a: string, b: string) => (tierRank(a as never) <= tierRank(b as never) ? a : b);
 const maxTier = (a: string, b: string) => (tierRank(a as never) >= tierRank(b as never) ? a : b);
 const isoMinusDays = (iso: string, days: number) => formatIsoDate(parseIsoDate(iso) - days);
+function groupBy<T>(xs: T[], key: (x: T) => string): Map<string, T[]> {
+  const out = new Map<string, T[]>();
+  for (const x of xs) {
+    const k = key(x);
+    const list = out.get(k);
+    if (list) list.push(x);
+    else out.set(k, [x]);
+  }
+  return out;
+}
+const isoDaysBetween = (a: string, b: string) => parseIsoDate(b) - parseIsoDate(a);
 
 /**
  * At start: when no tier exists yet (a fresh installation), compute the tiers of the last `weeks`

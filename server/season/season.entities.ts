@@ -3,11 +3,11 @@ import { DistrictRunStateEntity } from './district-run-state.entity';
 import { DistrictTierEntity } from './district-tier.entity';
 import { SeasonRunEntity } from './season-run.entity';
 import { TierSettingsVersionEntity } from './tier-settings-version.entity';
-import { VectorClockDayEntity } from './vector-clock-day.entity';
+import { VectorClockSeasonEntity } from './vector-clock-season.entity';
 
 export const seasonEntities: Function[] = [
   SeasonRunEntity,
-  VectorClockDayEntity,
+  VectorClockSeasonEntity,
   DistrictTierEntity,
   DistrictProfileEntity,
   TierSettingsVersionEntity,

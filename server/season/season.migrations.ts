@@ -1,4 +1,5 @@
 import { SeasonRun1796165312435 } from './migrations/1796165312435-SeasonRun';
+import { VectorClockSeasons1796192751564 } from './migrations/1796192751564-VectorClockSeasons';
 
 /** Reviewed migrations of the season run and tiers. */
-export const seasonMigrations: Function[] = [SeasonRun1796165312435];
+export const seasonMigrations: Function[] = [SeasonRun1796165312435, VectorClockSeasons1796192751564];

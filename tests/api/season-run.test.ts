@@ -26,7 +26,7 @@ describe('the season run', () => {
     expect(run!.error).toBeNull();
     expect(run!.status).toBe('succeeded');
     expect(run!.districtsDone).toBe(2);
-    const days = await t.ds.query(`SELECT count(*)::int AS n FROM vector_clock_days WHERE district_id = $1`, [warm.id]);
+    const days = await t.ds.query(`SELECT coalesce(sum(days), 0)::int AS n FROM vector_clock_seasons WHERE district_id = $1`, [warm.id]);
     expect(days[0].n).toBe(232); // 2026-01-01 … 2026-08-20
     const [tier] = await t.ds.query(`SELECT * FROM district_tiers WHERE district_id = $1`, [warm.id]);
     expect(tier.epi_week).toBe(33);
@@ -66,11 +66,11 @@ describe('the season run', () => {
 
   it('when a run dies part-way, then it is marked failed, finished districts keep whole results, and the next run completes the rest', async () => {
     await t.ds.query(`DELETE FROM district_run_state`);
-    const before = await countRows(t.ds, 'vector_clock_days');
+    const before = await countRows(t.ds, 'vector_clock_seasons');
     const failed = await new SeasonRunService(t.ctx).runLocked({ kind: 'manual', asOf: AS_OF, failAfter: 1 });
     expect(failed!.status).toBe('failed');
     expect(failed!.districtsDone).toBe(1);
-    expect(await countRows(t.ds, 'vector_clock_days')).toEqual(before); // replaced whole, never half
+    expect(await countRows(t.ds, 'vector_clock_seasons')).toEqual(before); // replaced whole, never half
     const next = await new SeasonRunService(t.ctx).runLocked({ kind: 'nightly', asOf: AS_OF });
     expect(next!.status).toBe('succeeded');
     expect(next!.districtsDone).toBe(1);
@@ -98,6 +98,21 @@ describe('the board', () => {
     const worker = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'worker', districtIds: [cool.id] })).email);
     const mine = await worker.get('/api/board');
     expect(mine.body.rows.map((r: { districtId: string }) => r.districtId)).toEqual([cool.id]);
+  });
+
+  it('when the client accepts gzip, then the board comes compressed with an ETag, and the same ETag again gets a 304', async () => {
+    const officer = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'officer' })).email);
+    const plain = await officer.get('/api/board').set('Accept-Encoding', 'identity');
+    expect(plain.headers['content-encoding']).toBeUndefined();
+    const zipped = await officer.get('/api/board').set('Accept-Encoding', 'gzip, deflate, br');
+    expect(zipped.status).toBe(200);
+    expect(zipped.headers['content-encoding']).toBe('gzip');
+    expect(zipped.headers.vary).toMatch(/Accept-Encoding/);
+    expect(zipped.body).toEqual(plain.body); // supertest inflates it
+    const etag = zipped.headers.etag;
+    expect(etag).toMatch(/^W\/"board-/);
+    const again = await officer.get('/api/board').set('If-None-Match', etag);
+    expect(again.status).toBe(304);
   });
 
   it('when a new run lands, then the cached board changes with it', async () => {
