@@ -2,10 +2,10 @@ import { epiWeek, epiWeekEnd, formatIsoDate, parseIsoDate } from '../../shared/m
 import type { AppContext } from '../app-context';
 import { conflict, notFound } from '../http/errors';
 import { withAdvisoryLock } from '../../jobs/advisory-lock';
-import { computeDistrictSeason } from './district-season';
+import { computeDistrictSeason, type DistrictSeasonResult } from './district-season';
 import { DistrictRunStateEntity } from './district-run-state.entity';
 import { DistrictTierEntity } from './district-tier.entity';
-import { emptyWeatherColumns, SeasonRepository, weatherByYear } from './season.repository';
+import { type DistrictForRun, emptyWeatherColumns, SeasonRepository, weatherByYear } from './season.repository';
 import { SeasonRunEntity } from './season-run.entity';
 import { TierSettingsService } from './tier-settings.service';
 import { CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
@@ -14,6 +14,8 @@ import { raiseSeasonFlags } from '../flags/flags.service';
 
 export const SEASON_RUN_LOCK = 'season-run';
 const BATCH = 25;
+
+type PreviousTier = { district_id: string; tier: string; score: number; drivers: unknown };
 const PRIOR_SEASONS = 3;
 
 const todayIn = (timeZone: string) => new Intl.DateTimeFormat('en-CA', { timeZone }).format(new Date());
@@ -117,7 +119,12 @@ export class SeasonRunService {
       run.districtsSkipped = districts.length - todo.length;
       await runs.update(run.id, { districtsTotal: run.districtsTotal, districtsSkipped: run.districtsSkipped });
 
-      for (let i = 0; i < todo.length; i += BATCH) {
+      // Pipelined: while a batch's transaction is in PostgreSQL, the next batch is read and computed
+      // (on two cores the model and the database work at the same time). At most one write is in flight.
+      let inflight: Promise<void> | null = null;
+      let computed = 0;
+      let stop: Error | null = null;
+      for (let i = 0; i < todo.length && !stop; i += BATCH) {
         const batch = todo.slice(i, i + BATCH);
         const ids = batch.map((d) => d.id);
         const [weather, prior, cases, excluded, surveys, previous] = await Promise.all([
@@ -130,49 +137,34 @@ export class SeasonRunService {
         ]);
         const casesOf = groupBy(cases, (c) => c.districtId);
         const surveysOf = groupBy(surveys, (s) => s.districtId);
+        const results: { district: DistrictForRun; result: DistrictSeasonResult; before: PreviousTier | undefined }[] = [];
         for (const district of batch) {
-          if (opts.failAfter !== undefined && run.districtsDone >= opts.failAfter) throw new Error('drill: stopped part-way');
+          if (opts.failAfter !== undefined && computed >= opts.failAfter) {
+            stop = new Error('drill: stopped part-way');
+            break;
+          }
           const priorRange = prior.get(district.id);
-          const priorWeather = priorRange ? weatherByYear(priorRange) : new Map();
           const result = computeDistrictSeason({
-            district, asOf, seasonYear, weather: weather.get(district.id) ?? emptyWeatherColumns(seasonStart, isoDaysBetween(seasonStart, asOf) + 1), priorWeather,
+            district, asOf, seasonYear, weather: weather.get(district.id) ?? emptyWeatherColumns(seasonStart, isoDaysBetween(seasonStart, asOf) + 1),
+            priorWeather: priorRange ? weatherByYear(priorRange) : new Map(),
             cases: casesOf.get(district.id) ?? [], excludedYears: excluded,
             surveys: surveysOf.get(district.id) ?? [], settings,
             epiSystem: this.ctx.config.EPI_WEEK_SYSTEM, channelMethod: this.ctx.config.CHANNEL_METHOD,
             cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H },
           });
-          const before = previous.get(district.id);
-          // One transaction per district: its stored season, its tier and its fingerprint land together.
-          const written = await this.ctx.ds.transaction(async (manager) => {
-            // Derived data, recomputable: the commit need not wait for the WAL flush. Atomicity is
-            // unchanged; a crash can only lose the newest commits, whose fingerprints go with them,
-            // so the next run redoes those districts.
-            await manager.query('SET LOCAL synchronous_commit = off');
-            const n = await this.repo.replaceVectorClock(manager, district.id, seasonYear, result.series);
-            await manager.upsert(DistrictTierEntity, {
-              districtId: district.id, epiYear: week.year, epiWeek: week.week, runId: run.id, computedAt: new Date(), asOf,
-              score: result.tier.score, tier: result.tier.tier, tierLow: minTier(result.tierLow.tier, result.tierHigh.tier),
-              tierHigh: maxTier(result.tierLow.tier, result.tierHigh.tier), confidence: result.tier.confidence,
-              drivers: result.tier.drivers, notes: result.tier.notes, leadingDriver: result.tier.leadingDriver,
-              changedDriver: changedDriver(result.tier.drivers, (before?.drivers as never) ?? null),
-              profileId: result.profileId, casesThisWeek: result.casesThisWeek, channelZone: result.channelZone,
-              latestWeather: result.latestWeather,
-            }, ['districtId', 'epiYear', 'epiWeek']);
-            await raiseSeasonFlags(manager, {
-              runId: run.id, districtId: district.id, epiYear: week.year, epiWeek: week.week, tier: result.tier,
-              previousTier: before?.tier ?? null, previousDrivers: (before?.drivers as never) ?? null, channelZone: result.channelZone,
-            });
-            await manager.upsert(DistrictRunStateEntity, {
-              districtId: district.id, seasonYear, asOf, fingerprint: fingerprints.get(district.id) ?? '', runId: run.id,
-            }, ['districtId']);
-            return n;
-          });
-          run.districtsDone += 1;
-          run.rowsWritten += written;
-          run.warnings.push(...result.warnings.map((w) => ({ ...w, districtId: district.id })));
+          results.push({ district, result, before: previous.get(district.id) });
+          computed++;
         }
-        await runs.update(run.id, { districtsDone: run.districtsDone, rowsWritten: run.rowsWritten });
+        if (inflight) await inflight;
+        if (results.length === 0) break;
+        inflight = this.writeBatch(run, { seasonYear, asOf, week, fingerprints }, results).then(async () => {
+          await runs.update(run.id, { districtsDone: run.districtsDone, rowsWritten: run.rowsWritten });
+        });
+        // A failed write is reported by the next await; keep Node from calling it unhandled meanwhile.
+        inflight.catch(() => undefined);
       }
+      if (inflight) await inflight;
+      if (stop) throw stop;
       run.status = 'succeeded';
       run.finishedAt = new Date();
       await runs.update(run.id, { status: run.status, finishedAt: run.finishedAt, warnings: run.warnings.slice(0, 1000) });
@@ -189,6 +181,48 @@ export class SeasonRunService {
       this.ctx.logger.error({ run: run.id, err: run.error }, 'season run failed');
       return run;
     }
+  }
+
+  /**
+   * One transaction per batch: each district's stored season (all profiles), its tier and its
+   * fingerprint land together with the batch's others — a district is never half-written, and a
+   * failure leaves the whole batch's old results and fingerprints in place for the next run.
+   */
+  private async writeBatch(
+    run: SeasonRunEntity,
+    at: { seasonYear: number; asOf: string; week: { year: number; week: number }; fingerprints: Map<string, string> },
+    results: { district: DistrictForRun; result: DistrictSeasonResult; before: PreviousTier | undefined }[],
+  ): Promise<void> {
+    const written = await this.ctx.ds.transaction(async (manager) => {
+      // Derived data, recomputable: the commit need not wait for the WAL flush. Atomicity is
+      // unchanged; a crash can only lose the newest commits, whose fingerprints go with them,
+      // so the next run redoes those districts.
+      await manager.query('SET LOCAL synchronous_commit = off');
+      const n = await this.repo.replaceVectorClock(manager, at.seasonYear, results.map((r) => ({ districtId: r.district.id, series: r.result.series })));
+      const computedAt = new Date();
+      await manager.upsert(DistrictTierEntity, results.map(({ district, result, before }) => ({
+        districtId: district.id, epiYear: at.week.year, epiWeek: at.week.week, runId: run.id, computedAt, asOf: at.asOf,
+        score: result.tier.score, tier: result.tier.tier, tierLow: minTier(result.tierLow.tier, result.tierHigh.tier),
+        tierHigh: maxTier(result.tierLow.tier, result.tierHigh.tier), confidence: result.tier.confidence,
+        drivers: result.tier.drivers, notes: result.tier.notes, leadingDriver: result.tier.leadingDriver,
+        changedDriver: changedDriver(result.tier.drivers, (before?.drivers as never) ?? null),
+        profileId: result.profileId, casesThisWeek: result.casesThisWeek, channelZone: result.channelZone,
+        latestWeather: result.latestWeather,
+      })), ['districtId', 'epiYear', 'epiWeek']);
+      for (const { district, result, before } of results) {
+        await raiseSeasonFlags(manager, {
+          runId: run.id, districtId: district.id, epiYear: at.week.year, epiWeek: at.week.week, tier: result.tier,
+          previousTier: before?.tier ?? null, previousDrivers: (before?.drivers as never) ?? null, channelZone: result.channelZone,
+        });
+      }
+      await manager.upsert(DistrictRunStateEntity, results.map(({ district }) => ({
+        districtId: district.id, seasonYear: at.seasonYear, asOf: at.asOf, fingerprint: at.fingerprints.get(district.id) ?? '', runId: run.id,
+      })), ['districtId']);
+      return n;
+    });
+    run.districtsDone += results.length;
+    run.rowsWritten += written;
+    for (const { district, result } of results) run.warnings.push(...result.warnings.map((w) => ({ ...w, districtId: district.id })));
   }
 }
 

@@ -88,24 +88,30 @@ export class SeasonRepository {
 
   /**
    * A fingerprint of each district's inputs for the season: weather days, case counts of the years
-   * the channel reads, surveys and profiles. md5 in the database, one pass over each table.
+   * the channel reads, surveys and profiles. Each input row is hashed from its binary values
+   * (hash_record_extended: no number is turned into text) and a district's rows are combined with
+   * bit_xor and counted — the date or week is in every hashed row, so the same values on other days
+   * give another fingerprint. JIT is off for this query: compiling it cost more than running it.
    */
   async fingerprints(from: string, to: string, fromYear: number): Promise<Map<string, string>> {
-    const rows: { id: string; fp: string }[] = await this.ds.query(
-      `WITH w AS (SELECT district_id, md5(string_agg(concat_ws(':', date, tmin, tmax, rh, filled), ',' ORDER BY date)) h
-                    FROM district_weather_days WHERE date BETWEEN $1 AND $2 GROUP BY district_id),
-            c AS (SELECT district_id, md5(string_agg(concat_ws(':', disease_id, epi_year, epi_week, cases), ',' ORDER BY disease_id, epi_year, epi_week)) h
-                    FROM case_counts WHERE epi_year >= $3 GROUP BY district_id),
-            s AS (SELECT district_id, md5(string_agg(concat_ws(':', id, houses_inspected, houses_positive, containers_inspected, containers_positive, pupae), ',' ORDER BY id)) h
-                    FROM larval_surveys WHERE survey_date BETWEEN ($1::date - 28) AND $2 GROUP BY district_id),
-            p AS (SELECT district_id, string_agg(concat_ws(':', profile_id, biofix), ',' ORDER BY profile_id) h
-                    FROM district_profiles GROUP BY district_id)
-       SELECT d.id, md5(concat_ws('|', d.centroid_lat, w.h, c.h, s.h, p.h)) AS fp
-         FROM districts d
-         LEFT JOIN w ON w.district_id = d.id LEFT JOIN c ON c.district_id = d.id
-         LEFT JOIN s ON s.district_id = d.id LEFT JOIN p ON p.district_id = d.id`,
-      [from, to, fromYear],
-    );
+    const rows: { id: string; fp: string }[] = await this.ds.transaction(async (m) => {
+      await m.query('SET LOCAL jit = off');
+      return m.query(
+        `WITH w AS (SELECT district_id, bit_xor(hash_record_extended((date, tmin, tmax, rh, filled), 0)) || ':' || count(*) h
+                      FROM district_weather_days WHERE date BETWEEN $1 AND $2 GROUP BY district_id),
+              c AS (SELECT district_id, bit_xor(hash_record_extended((disease_id, epi_year, epi_week, cases), 0)) || ':' || count(*) h
+                      FROM case_counts WHERE epi_year >= $3 GROUP BY district_id),
+              s AS (SELECT district_id, bit_xor(hash_record_extended((id, houses_inspected, houses_positive, containers_inspected, containers_positive, pupae), 0)) || ':' || count(*) h
+                      FROM larval_surveys WHERE survey_date BETWEEN ($1::date - 28) AND $2 GROUP BY district_id),
+              p AS (SELECT district_id, string_agg(concat_ws(':', profile_id, biofix), ',' ORDER BY profile_id) h
+                      FROM district_profiles GROUP BY district_id)
+         SELECT d.id, md5(concat_ws('|', d.centroid_lat, w.h, c.h, s.h, p.h)) AS fp
+           FROM districts d
+           LEFT JOIN w ON w.district_id = d.id LEFT JOIN c ON c.district_id = d.id
+           LEFT JOIN s ON s.district_id = d.id LEFT JOIN p ON p.district_id = d.id`,
+        [from, to, fromYear],
+      );
+    });
     return new Map(rows.map((r) => [r.id, r.fp]));
   }
 
@@ -187,16 +193,17 @@ export class SeasonRepository {
   }
 
   /**
-   * Replace one district's stored season in the caller's transaction: all of it or none. One row per
-   * profile (arrays of days), sent in PostgreSQL's binary COPY format: no number is turned into text
+   * Replace these districts' stored season in the caller's transaction: all of it or none. One row per
+   * district and profile (arrays of days), sent in PostgreSQL's binary COPY format: no number is turned into text
    * and back, and a full run inserts 5 tuples per district instead of about 1,700.
    */
-  async replaceVectorClock(manager: EntityManager, districtId: string, seasonYear: number, series: VectorClockSeries[]): Promise<number> {
-    await manager.query('DELETE FROM vector_clock_seasons WHERE district_id = $1 AND season_year = $2', [districtId, seasonYear]);
-    if (series.length === 0) return 0;
-    const w = new BinaryCopyWriter(series.length * series[0].length * 60 + 1024);
+  async replaceVectorClock(manager: EntityManager, seasonYear: number, districts: { districtId: string; series: VectorClockSeries[] }[]): Promise<number> {
+    await manager.query('DELETE FROM vector_clock_seasons WHERE district_id = ANY($1) AND season_year = $2', [districts.map((d) => d.districtId), seasonYear]);
+    const all = districts.flatMap((d) => d.series.map((s) => ({ districtId: d.districtId, s })));
+    if (all.length === 0) return 0;
+    const w = new BinaryCopyWriter(all.length * all[0].s.length * 60 + 1024);
     let days = 0;
-    for (const s of series) {
+    for (const { districtId, s } of all) {
       const n = s.length;
       days += n;
       w.row(17).uuid(districtId).text(s.profileId).int4(seasonYear).date(s.startDay).int4(n)
