@@ -1,8 +1,15 @@
-import { ACTION_CAUTION, type ActionDto } from '../../shared/api/flags.schema';
-import { TIER_LABELS, type Tier } from '../../shared/tier';
-import { MAIL_CAUTIONS, escapeHtml, mailFooter } from '../bulletins/bulletin-texts';
+import type { ActionDto } from '../../shared/api/flags.schema';
+import type { Tier } from '../../shared/tier';
+import { cautionsFor, escapeHtml, mailFooter } from '../bulletins/bulletin-texts';
+import { DEFAULT_LANGUAGE, textsFor, type Language } from '../i18n';
 
-/** The advisory as mailed to one subscriber: plain text and HTML with the same words. */
+/** A suggested action in the reader's language (by its id; the stored title and text are the English ones). */
+export function actionIn(language: Language, a: Pick<ActionDto, 'id'>): { title: string; text: string } {
+  const t = textsFor(language, 'common');
+  return { title: t(`actions.${a.id}.title`), text: t(`actions.${a.id}.text`) };
+}
+
+/** The advisory as mailed to one subscriber, in their language: plain text and HTML with the same words. */
 export function advisoryMail(input: {
   districtName: string;
   districtCode: string;
@@ -12,35 +19,44 @@ export function advisoryMail(input: {
   issuedBy: string;
   unsubscribeUrl: string;
   preferencesUrl: string;
+  language?: Language;
 }) {
-  const tier = input.tier ? ` — ${TIER_LABELS[input.tier]} tier` : '';
-  const subject = `Broodcast advisory: ${input.districtName}${tier}`;
-  const footer = mailFooter(input.districtName, input.unsubscribeUrl, input.preferencesUrl);
+  const language = input.language ?? DEFAULT_LANGUAGE;
+  const t = textsFor(language, 'advisory');
+  const c = textsFor(language, 'common');
+  const vars = { district: input.districtName, code: input.districtCode, tier: input.tier ? c(`tiers.${input.tier}`) : '' };
+  const subject = t(input.tier ? 'subjectWithTier' : 'subject', vars);
+  const heading = t(input.tier ? 'headingWithTier' : 'heading', vars);
+  const actions = input.actions.map((a) => actionIn(language, a));
+  const cautions = cautionsFor(language);
+  const caution = c('actionCaution');
+  const signed = t('signedOffBy', { name: input.issuedBy });
+  const footer = mailFooter(input.districtName, input.unsubscribeUrl, input.preferencesUrl, language);
   const text = [
-    `Advisory for ${input.districtName} (${input.districtCode})${tier}`,
+    heading,
     '',
     input.message,
     '',
-    'What to do',
-    ...input.actions.map((a) => `- ${a.title}: ${a.text}`),
-    `  ${ACTION_CAUTION}`,
+    c('whatToDo'),
+    ...actions.map((a) => `- ${c('labelled', { label: a.title, text: a.text })}`),
+    `  ${caution}`,
     '',
-    `Signed off by ${input.issuedBy}.`,
+    signed,
     '',
-    'Please keep in mind',
-    ...MAIL_CAUTIONS.map((c) => `- ${c}`),
+    c('keepInMind'),
+    ...cautions.map((x) => `- ${x}`),
     '',
     footer.text,
   ].join('\n');
-  const html = `<!doctype html><html><body style="font-family:Arial,Helvetica,sans-serif;color:#1d2026;max-width:640px">
-<h1 style="font-size:20px">Advisory for ${escapeHtml(input.districtName)} (${escapeHtml(input.districtCode)})${escapeHtml(tier)}</h1>
+  const html = `<!doctype html><html lang="${language}"><body style="font-family:Arial,Helvetica,sans-serif;color:#1d2026;max-width:640px">
+<h1 style="font-size:20px">${escapeHtml(heading)}</h1>
 <p>${escapeHtml(input.message)}</p>
-<h2 style="font-size:16px">What to do</h2>
-<ul>${input.actions.map((a) => `<li><strong>${escapeHtml(a.title)}.</strong> ${escapeHtml(a.text)}</li>`).join('')}</ul>
-<p><em>${escapeHtml(ACTION_CAUTION)}</em></p>
-<p>Signed off by ${escapeHtml(input.issuedBy)}.</p>
-<h2 style="font-size:16px">Please keep in mind</h2>
-<ul>${MAIL_CAUTIONS.map((c) => `<li>${escapeHtml(c)}</li>`).join('')}</ul>
+<h2 style="font-size:16px">${escapeHtml(c('whatToDo'))}</h2>
+<ul>${actions.map((a) => `<li><strong>${escapeHtml(a.title)}.</strong> ${escapeHtml(a.text)}</li>`).join('')}</ul>
+<p><em>${escapeHtml(caution)}</em></p>
+<p>${escapeHtml(signed)}</p>
+<h2 style="font-size:16px">${escapeHtml(c('keepInMind'))}</h2>
+<ul>${cautions.map((x) => `<li>${escapeHtml(x)}</li>`).join('')}</ul>
 ${footer.html}
 </body></html>`;
   return { subject, text, html };

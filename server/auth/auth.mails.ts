@@ -1,33 +1,27 @@
+import type { Role } from '../../shared/roles';
+import { DEFAULT_LANGUAGE, textsFor, type Language } from '../i18n';
+
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
-function linkMail(subject: string, greeting: string, lines: string[], link: string, linkLabel: string) {
-  const text = [greeting, '', ...lines, '', `${linkLabel}: ${link}`, '', '— Broodcast'].join('\n');
+function linkMail(language: Language, subject: string, greeting: string, lines: string[], link: string, linkLabel: string) {
+  const signature = textsFor(language, 'common')('signature');
+  const text = [greeting, '', ...lines, '', `${linkLabel}: ${link}`, '', signature].join('\n');
   const html = `<p>${escapeHtml(greeting)}</p>${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}
-<p><a href="${escapeHtml(link)}">${escapeHtml(linkLabel)}</a></p><p>— Broodcast</p>`;
-  return { subject, text, html };
+<p><a href="${escapeHtml(link)}">${escapeHtml(linkLabel)}</a></p><p>${escapeHtml(signature)}</p>`;
+  // Content-Language (RFC 3282) says which language the mail is written in.
+  return { subject, text, html, headers: { 'Content-Language': language } };
 }
 
-export const passwordResetMail = (name: string, link: string, ttlHours: number) =>
-  linkMail(
-    'Broodcast: set a new password',
-    `Hello ${name},`,
-    [
-      'Someone asked to set a new password for your Broodcast account. If it was you, use the link below.',
-      `The link works once and for ${ttlHours} hour${ttlHours === 1 ? '' : 's'}. If it was not you, ignore this message; your password stays as it is.`,
-    ],
-    link,
-    'Set a new password',
-  );
+/** The password-reset mail, in the account's language. */
+export function passwordResetMail(name: string, link: string, ttlHours: number, language: Language = DEFAULT_LANGUAGE) {
+  const t = textsFor(language, 'auth');
+  return linkMail(language, t('reset.subject'), t('greeting', { name }), [t('reset.asked'), t('reset.validity', { count: ttlHours })], link, t('reset.link'));
+}
 
-export const inviteMail = (name: string, roleLabel: string, link: string, ttlHours: number) =>
-  linkMail(
-    'Broodcast: your invitation',
-    `Hello ${name},`,
-    [
-      `You have been given a Broodcast account as ${roleLabel}. Choose your password with the link below to start.`,
-      `The link works once and for ${ttlHours} hours.`,
-    ],
-    link,
-    'Choose your password',
-  );
+/** The invitation, in the language the admin chose for the invitee (English when none). */
+export function inviteMail(name: string, role: Role, link: string, ttlHours: number, language: Language = DEFAULT_LANGUAGE) {
+  const t = textsFor(language, 'auth');
+  const roleLabel = textsFor(language, 'common')(`roles.${role}`);
+  return linkMail(language, t('invite.subject'), t('greeting', { name }), [t('invite.given', { role: roleLabel }), t('invite.validity', { count: ttlHours })], link, t('invite.link'));
+}

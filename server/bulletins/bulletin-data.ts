@@ -1,12 +1,16 @@
 import type { DriverDto } from '../../shared/api/board.schema';
 import { type ActionDto } from '../../shared/api/flags.schema';
 import type { Tier } from '../../shared/tier';
+import type { EntityManager } from 'typeorm';
 import type { AppContext } from '../app-context';
 import type { Principal } from '../auth/principal';
 import { presentBoard } from '../board/board.presenter';
 import { BoardRepository } from '../board/board.repository';
 import { DistrictFileService } from '../board/district-file.service';
-import { actionsOf } from '../flags/flag-texts';
+import { actionsOf, type SuggestionInput } from '../flags/flag-texts';
+import type { Language } from '../i18n';
+import { BulletinTranslationEntity } from './bulletin-translation.entity';
+import { bulletinHtml, bulletinPdf, bulletinSubject, bulletinText } from './bulletin.render';
 
 export interface CaseWeek {
   week: number;
@@ -26,7 +30,8 @@ export interface BulletinData {
   ranking: { rank: number; code: string; name: string; tier: Tier; score: number; confidence: string; isThis: boolean }[];
   tierHistory: { week: number; tier: Tier; score: number }[];
   cases: { diseaseName: string; weeks: CaseWeek[] }[];
-  advisories: { issuedAt: string; tier: Tier | null; message: string }[];
+  /** Open advisories; `flag` holds the facts its message was written from (to write it again in the reader's language). */
+  advisories: { issuedAt: string; tier: Tier | null; message: string; flag: Omit<SuggestionInput, 'language'> | null }[];
   actions: ActionDto[];
 }
 
@@ -61,8 +66,13 @@ export class BulletinDataReader {
     const file = await this.files.file(SYSTEM, districtId, ladder.epiYear);
     const week = ladder.epiWeek;
     const tierRow = file.tiers.find((t) => t.epiYear === ladder.epiYear && t.epiWeek === week) ?? null;
-    const advisories: { issued_at: Date; tier: Tier | null; message: string }[] = await this.ctx.ds.query(
-      `SELECT issued_at, tier, message FROM advisories WHERE district_id = $1 AND expires_at > now() ORDER BY issued_at DESC`,
+    const advisories: {
+      issued_at: Date; tier: Tier | null; message: string; reason: SuggestionInput['reason'] | null; flag_tier: Tier | null;
+      previous_tier: Tier | null; drivers: SuggestionInput['drivers'] | null; note: string | null;
+    }[] = await this.ctx.ds.query(
+      `SELECT a.issued_at, a.tier, a.message, f.reason, f.tier AS flag_tier, f.previous_tier, f.drivers, f.note
+         FROM advisories a LEFT JOIN flags f ON f.id = a.flag_id
+        WHERE a.district_id = $1 AND a.expires_at > now() ORDER BY a.issued_at DESC`,
       [districtId],
     );
     const cases = file.cases
@@ -85,8 +95,43 @@ export class BulletinDataReader {
       ranking: ladder.rows.map((r) => ({ rank: r.rank, code: r.code, name: r.name, tier: r.tier, score: r.score, confidence: r.confidence, isThis: r.districtId === districtId })),
       tierHistory: file.tiers.filter((t) => t.epiWeek <= week).map((t) => ({ week: t.epiWeek, tier: t.tier, score: t.score })),
       cases,
-      advisories: advisories.map((a) => ({ issuedAt: new Date(a.issued_at).toISOString(), tier: a.tier, message: a.message })),
+      advisories: advisories.map((a) => ({
+        issuedAt: new Date(a.issued_at).toISOString(), tier: a.tier, message: a.message,
+        flag: a.reason
+          ? { districtName: file.district.name, reason: a.reason, tier: a.flag_tier, previousTier: a.previous_tier, drivers: a.drivers ?? [], note: a.note }
+          : null,
+      })),
       actions: actionsForTier(tierRow?.tier ?? null),
     };
   }
+}
+
+/** One bulletin as written in one language. */
+export interface BulletinVersion {
+  language: Language;
+  subject: string;
+  html: string;
+  text: string;
+  pdf: Buffer;
+}
+
+export async function renderBulletin(d: BulletinData, language: Language): Promise<BulletinVersion> {
+  return { language, subject: bulletinSubject(d, language), html: bulletinHtml(d, language), text: bulletinText(d, language), pdf: await bulletinPdf(d, language) };
+}
+
+/**
+ * The bulletin in every language its recipients read, in the caller's transaction: the default
+ * version is the `bulletins` row itself; each other language is written to bulletin_translations.
+ */
+export async function bulletinVersions(
+  manager: EntityManager, bulletinId: string, d: BulletinData, base: BulletinVersion, languages: Language[],
+): Promise<Map<Language, BulletinVersion>> {
+  const out = new Map<Language, BulletinVersion>([[base.language, base]]);
+  for (const language of new Set(languages)) {
+    if (out.has(language)) continue;
+    const v = await renderBulletin(d, language);
+    await manager.insert(BulletinTranslationEntity, { bulletinId, language, subject: v.subject, html: v.html, text: v.text, pdf: v.pdf });
+    out.set(language, v);
+  }
+  return out;
 }

@@ -1,22 +1,31 @@
-/** Broodcast's cautions as every advisory and bulletin says them (DESIGN.md §5), in its own words. */
-export const MAIL_CAUTIONS = [
-  'Broodcast estimates how favourable conditions are for mosquitoes and for transmission, from weather, reported cases and larval surveys. It does not diagnose anyone, count mosquitoes or say for certain how many cases will come.',
-  'Decisions on warnings and on the response belong to the national health authority; follow its guidelines.',
-  'Larvicides, insecticides and fogging are for trained staff only, used under local regulations and as the product label directs.',
-  'Questions about someone\u2019s illness or treatment go to a licensed clinician.',
-] as const;
+import { DEFAULT_LANGUAGE, textsFor, type Language } from '../i18n';
+
+const CAUTION_KEYS = ['estimate', 'authority', 'trainedStaff', 'clinicians'] as const;
+
+/**
+ * Broodcast's cautions as every advisory and bulletin says them (DESIGN.md §5), in its own words and in
+ * the reader's language (server/i18n/locales/<language>/common.json, "cautions").
+ */
+export const cautionsFor = (language: Language): string[] => {
+  const t = textsFor(language, 'common');
+  return CAUTION_KEYS.map((k) => t(`cautions.${k}`));
+};
+
+/** The cautions in English (the default language). */
+export const MAIL_CAUTIONS: readonly string[] = cautionsFor(DEFAULT_LANGUAGE);
 
 export const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** The per-recipient end of every subscription mail: why they get it, one-click unsubscribe, preferences. */
-export function mailFooter(districtName: string, unsubscribeUrl: string, preferencesUrl: string) {
-  const why = `You receive this because you are subscribed to ${districtName} in Broodcast.`;
+export function mailFooter(districtName: string, unsubscribeUrl: string, preferencesUrl: string, language: Language = DEFAULT_LANGUAGE) {
+  const t = textsFor(language, 'common');
+  const why = t('footer.why', { district: districtName });
   return {
-    text: [`— Broodcast`, why, `Stop mail for ${districtName} (one click): ${unsubscribeUrl}`, `Choose which districts you receive: ${preferencesUrl}`].join('\n'),
-    html: `<hr style="border:none;border-top:1px solid #ccc"><p style="font-size:12px;color:#555">— Broodcast. ${escapeHtml(why)}<br>
-<a href="${escapeHtml(unsubscribeUrl)}">Stop mail for ${escapeHtml(districtName)}</a> (one click, no sign-in) ·
-<a href="${escapeHtml(preferencesUrl)}">Choose which districts you receive</a></p>`,
+    text: [t('signature'), why, t('footer.stopText', { district: districtName, url: unsubscribeUrl }), t('footer.chooseText', { url: preferencesUrl })].join('\n'),
+    html: `<hr style="border:none;border-top:1px solid #ccc"><p style="font-size:12px;color:#555">${escapeHtml(t('signature'))}. ${escapeHtml(why)}<br>
+<a href="${escapeHtml(unsubscribeUrl)}">${escapeHtml(t('footer.stopLink', { district: districtName }))}</a> ${escapeHtml(t('footer.oneClick'))} ·
+<a href="${escapeHtml(preferencesUrl)}">${escapeHtml(t('footer.chooseLink'))}</a></p>`,
   };
 }
 
@@ -25,3 +34,9 @@ export const unsubscribeHeaders = (apiUnsubscribeUrl: string) => ({
   'List-Unsubscribe': `<${apiUnsubscribeUrl}>`,
   'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click',
 });
+
+/**
+ * The language a mail is written in (RFC 3282 Content-Language). The outbox also reads it to attach the
+ * bulletin PDF of that language.
+ */
+export const languageHeaders = (language: Language) => ({ 'Content-Language': language });

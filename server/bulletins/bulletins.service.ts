@@ -5,8 +5,9 @@ import type { Principal } from '../auth/principal';
 import { conflict, notFound } from '../http/errors';
 import { withAdvisoryLock } from '../../jobs/advisory-lock';
 import { enqueueMail } from '../outbox/outbox.repository';
-import { BulletinDataReader, type BulletinData } from './bulletin-data';
-import { mailFooter } from './bulletin-texts';
+import { DEFAULT_LANGUAGE } from '../i18n';
+import { BulletinDataReader, bulletinVersions, renderBulletin, type BulletinData } from './bulletin-data';
+import { languageHeaders, mailFooter } from './bulletin-texts';
 import { bulletinHtml, bulletinPdf, bulletinSubject, bulletinText, withFooter } from './bulletin.render';
 import { BulletinEntity } from './bulletin.entity';
 import { recipientsOf, subscriberLinks } from './subscriptions.service';
@@ -82,10 +83,8 @@ export class BulletinsService {
         continue;
       }
       const d = (await this.reader.read(row.districtId, board))!;
-      const subject = bulletinSubject(d);
-      const html = bulletinHtml(d);
-      const text = bulletinText(d);
-      const pdf = await bulletinPdf(d);
+      const base = await renderBulletin(d, DEFAULT_LANGUAGE);
+      const { subject, html, text, pdf } = base;
       const queued = await this.ctx.ds.transaction(async (manager) => {
         const inserted = await manager.createQueryBuilder().insert().into(BulletinEntity)
           .values({ districtId: d.district.id, epiYear: d.epiYear, epiWeek: d.epiWeek, subject, html, text, pdf, createdBy: actor?.userId ?? null })
@@ -93,12 +92,15 @@ export class BulletinsService {
         const bulletinId: string | undefined = inserted.raw[0]?.id;
         if (!bulletinId) return null; // another process wrote it first
         const recipients = await recipientsOf(manager, d.district.id, 'bulletin');
+        // Each recipient reads the bulletin (and its PDF) in their own language.
+        const versions = await bulletinVersions(manager, bulletinId, d, base, recipients.map((r) => r.language));
         const n = await enqueueMail(manager, this.ctx.config, recipients.map((r) => {
           const links = subscriberLinks(this.ctx.config, r.userId, d.district.id);
-          const footer = mailFooter(d.district.name, links.unsubscribeUrl, links.preferencesUrl);
+          const v = versions.get(r.language)!;
+          const footer = mailFooter(d.district.name, links.unsubscribeUrl, links.preferencesUrl, r.language);
           return {
-            kind: 'bulletin' as const, to: r.email, userId: r.userId, subject, text: `${text}\n\n${footer.text}`,
-            html: withFooter(html, footer.html), headers: links.headers, bulletinId,
+            kind: 'bulletin' as const, to: r.email, userId: r.userId, subject: v.subject, text: `${v.text}\n\n${footer.text}`,
+            html: withFooter(v.html, footer.html), headers: { ...links.headers, ...languageHeaders(r.language) }, bulletinId,
           };
         }));
         await recordAudit(manager, {

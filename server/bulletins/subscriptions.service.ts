@@ -2,6 +2,7 @@ import jwt from 'jsonwebtoken';
 import type { EntityManager } from 'typeorm';
 import type { MailKind, SubscriptionsBody, SubscriptionsResponse } from '../../shared/api/bulletins.schema';
 import type { Role } from '../../shared/roles';
+import type { Language } from '../../shared/api/auth.schema';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import { type Principal, seesAllDistricts } from '../auth/principal';
@@ -17,6 +18,8 @@ export interface Recipient {
   userId: string;
   email: string;
   displayName: string;
+  /** The language their mail is written in (user preference). */
+  language: Language;
 }
 
 /**
@@ -30,7 +33,7 @@ const DEFAULT_SQL = `(u.role IN ('officer', 'supervisor')
 /** Who receives `kind` for a district now, in the caller's transaction. */
 export async function recipientsOf(manager: EntityManager, districtId: string, kind: MailKind): Promise<Recipient[]> {
   return manager.query(
-    `SELECT u.id AS "userId", u.email, u.display_name AS "displayName" FROM users u
+    `SELECT u.id AS "userId", u.email, u.display_name AS "displayName", u.language FROM users u
       WHERE u.active
         AND CASE WHEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id)
                  THEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id AND s.district_id = $1 AND s.active AND $2 = ANY (s.kinds))

@@ -1,6 +1,12 @@
 import { ACTIONS, type ActionDto, type ActionId, type FlagReason } from '../../shared/api/flags.schema';
-import { TIER_LABELS, tierRank, type DriverResult, type Tier } from '../../shared/tier';
+import { LANGUAGES } from '../../shared/api/auth.schema';
+import { tierRank, type DriverResult, type Tier } from '../../shared/tier';
+import { DEFAULT_LANGUAGE, formatFor, textsFor, type Language } from '../i18n';
 
+/**
+ * The actions as stored with a flag and an advisory: id, and the English title and text (the API's
+ * words). Mails and bulletins show them in the reader's language by id (advisory.mails.ts actionIn).
+ */
 export const actionsOf = (ids: readonly ActionId[]): ActionDto[] => ids.map((id) => ({ id, ...ACTIONS[id] }));
 
 /** The actions a flag suggests: case finding when cases lead, breeding-site work when the tier rises. */
@@ -10,38 +16,61 @@ export function suggestedActions(reason: FlagReason, tier: Tier | null): ActionD
   return actionsOf(['source-reduction', 'larval-survey']);
 }
 
-const pct = (x: number) => `${Math.round(x * 100)}%`;
-
-/** The drivers that weigh most, in words: "Case signal (41% of the score), Climate suitability (30%)". */
-export function topDrivers(drivers: DriverResult[], n = 2): string {
+/** The drivers that weigh most, in words: "Case signal (41% of the score) and Climate suitability (30%)". */
+export function topDrivers(drivers: Pick<DriverResult, 'id' | 'contribution'>[], n = 2, language: Language = DEFAULT_LANGUAGE): string {
+  const t = textsFor(language, 'flags');
+  const c = textsFor(language, 'common');
+  const f = formatFor(language);
   const used = [...drivers].filter((d) => d.contribution > 0).sort((a, b) => b.contribution - a.contribution).slice(0, n);
   const total = drivers.reduce((a, d) => a + d.contribution, 0) || 1;
-  return used.map((d, i) => `${d.label} (${pct(d.contribution / total)}${i === 0 ? ' of the score' : ''})`).join(' and ');
+  return used
+    .map((d, i) => t(i === 0 ? 'driverFirst' : 'driverOther', { driver: c(`drivers.${d.id}`), share: f.percent(d.contribution / total) }))
+    .join(t('and'));
 }
 
-/** The advisory Broodcast proposes for a flag; the supervisor may edit it before approving. */
-export function suggestedMessage(input: {
+const WHY_KEY: Record<FlagReason, string> = { 'tier-rise': 'why.tierRise', 'channel-above': 'why.channelAbove', 'case-alarm': 'why.caseAlarm', manual: 'why.manual' };
+
+export interface SuggestionInput {
   districtName: string;
   reason: FlagReason;
   tier: Tier | null;
   previousTier: Tier | null;
-  drivers: DriverResult[];
+  drivers: Pick<DriverResult, 'id' | 'contribution'>[];
   note?: string | null;
-}): string {
-  const tierWords = input.tier ? `${TIER_LABELS[input.tier]}${input.previousTier && input.previousTier !== input.tier ? ` (up from ${TIER_LABELS[input.previousTier]})` : ''}` : null;
-  const why: Record<FlagReason, string> = {
-    'tier-rise': `Broodcast's weekly estimate for ${input.districtName} has moved up to the ${tierWords ?? 'next'} tier.`,
-    'channel-above': `Reported cases in ${input.districtName} are above the usual range for this time of year (the endemic channel).`,
-    'case-alarm': `Reported cases in ${input.districtName} rose faster than recent weeks would lead us to expect.`,
-    manual: `Health staff have raised a concern about ${input.districtName}${input.note ? `: ${input.note}` : '.'}`,
-  };
-  const lines = [why[input.reason]];
-  if (input.reason !== 'tier-rise' && tierWords) lines.push(`The district's risk tier is ${tierWords}.`);
-  const top = topDrivers(input.drivers);
-  if (top) lines.push(`What weighs most this week: ${top}.`);
-  lines.push(
-    'Conditions favour mosquitoes and the spread of infection. Please act on the steps below now, keep water containers covered and see a clinician early with any fever.',
-    'This is an estimate to guide local action, not a forecast; follow the national health authority and its guidelines.',
-  );
+  /** The language to write in; English by default (the season run writes its flags in it). */
+  language?: Language;
+}
+
+/** The advisory Broodcast proposes for a flag; the supervisor may edit it before approving. */
+export function suggestedMessage(input: SuggestionInput): string {
+  const language = input.language ?? DEFAULT_LANGUAGE;
+  const t = textsFor(language, 'flags');
+  const c = textsFor(language, 'common');
+  const tierWords = input.tier
+    ? input.previousTier && input.previousTier !== input.tier
+      ? t('tierUp', { tier: c(`tiers.${input.tier}`), previous: c(`tiers.${input.previousTier}`) })
+      : c(`tiers.${input.tier}`)
+    : null;
+  const district = input.districtName;
+  let why: string;
+  if (input.reason === 'tier-rise') why = tierWords ? t('why.tierRise', { district, tier: tierWords }) : t('why.tierRiseNext', { district });
+  else if (input.reason === 'manual') why = input.note ? t('why.manualNote', { district, note: input.note }) : t('why.manual', { district });
+  else why = t(WHY_KEY[input.reason], { district });
+  const lines = [why];
+  if (input.reason !== 'tier-rise' && tierWords) lines.push(t('tierIs', { tier: tierWords }));
+  const top = topDrivers(input.drivers, 2, language);
+  if (top) lines.push(t('weighsMost', { drivers: top }));
+  lines.push(t('act'), t('estimate'));
   return lines.join(' ');
+}
+
+/**
+ * The advisory's message for one reader. A message the supervisor approved as Broodcast suggested it
+ * (in any of the languages) is written again in the reader's language from the flag's own facts; a
+ * message a person wrote or edited is sent exactly as approved.
+ */
+export function messageFor(language: Language, approved: string, flag: Omit<SuggestionInput, 'language'> | null): string {
+  if (!flag) return approved;
+  const generated = LANGUAGES.some((l) => suggestedMessage({ ...flag, language: l }) === approved);
+  return generated ? suggestedMessage({ ...flag, language }) : approved;
 }

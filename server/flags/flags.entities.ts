@@ -1,5 +1,6 @@
 import { AdvisoryEntity } from '../advisories/advisory.entity';
 import { BulletinEntity } from '../bulletins/bulletin.entity';
+import { BulletinTranslationEntity } from '../bulletins/bulletin-translation.entity';
 import { SubscriptionEntity } from '../bulletins/subscription.entity';
 import { OutboxAttemptEntity } from '../outbox/outbox-attempt.entity';
 import { OutboxMessageEntity } from '../outbox/outbox-message.entity';
@@ -11,6 +12,7 @@ export const flagsEntities: Function[] = [
   AdvisoryEntity,
   SubscriptionEntity,
   BulletinEntity,
+  BulletinTranslationEntity,
   OutboxMessageEntity,
   OutboxAttemptEntity,
 ];

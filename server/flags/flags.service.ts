@@ -7,9 +7,10 @@ import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import { assertAssigned, type Principal } from '../auth/principal';
 import { recipientsOf, subscriberLinks } from '../bulletins/subscriptions.service';
+import { languageHeaders } from '../bulletins/bulletin-texts';
 import { badRequest, conflict, forbidden, notFound } from '../http/errors';
 import { enqueueMail } from '../outbox/outbox.repository';
-import { actionsOf, suggestedActions, suggestedMessage } from './flag-texts';
+import { actionsOf, messageFor, suggestedActions, suggestedMessage } from './flag-texts';
 import { FlagEntity } from './flag.entity';
 import { FLAG_SELECT, presentFlag, type FlagRecord } from './flags.presenter';
 
@@ -165,11 +166,12 @@ export class FlagsService {
       const recipients = await recipientsOf(manager, current.districtId, 'advisory');
       const queued = await enqueueMail(manager, this.ctx.config, recipients.map((r) => {
         const links = subscriberLinks(this.ctx.config, r.userId, current.districtId);
+        // In the recipient's language; a message approved as Broodcast suggested it is written again in that language.
         const mail = advisoryMail({
-          districtName: current.districtName, districtCode: current.districtCode, tier: current.tier, message, actions: current.actions,
-          issuedBy: p.displayName, unsubscribeUrl: links.unsubscribeUrl, preferencesUrl: links.preferencesUrl,
+          districtName: current.districtName, districtCode: current.districtCode, tier: current.tier, message: messageFor(r.language, message, current),
+          actions: current.actions, issuedBy: p.displayName, unsubscribeUrl: links.unsubscribeUrl, preferencesUrl: links.preferencesUrl, language: r.language,
         });
-        return { kind: 'advisory' as const, to: r.email, userId: r.userId, ...mail, headers: links.headers, advisoryId: advisory.id };
+        return { kind: 'advisory' as const, to: r.email, userId: r.userId, ...mail, headers: { ...links.headers, ...languageHeaders(r.language) }, advisoryId: advisory.id };
       }));
       await recordAudit(manager, {
         actorId: p.userId, action: 'flag.approved', entity: 'flag', entityId: id,

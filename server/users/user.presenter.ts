@@ -1,4 +1,5 @@
-import type { UserDto } from '../../shared/api/users.schema';
+import type { PreferencesDto, UserDto } from '../../shared/api/users.schema';
+import type { UserEntity } from './user.entity';
 import type { UserWithDistricts } from './users.repository';
 
 export const presentUser = ({ user, districts }: UserWithDistricts): UserDto => ({
@@ -10,4 +11,11 @@ export const presentUser = ({ user, districts }: UserWithDistricts): UserDto => 
   invitePending: user.passwordHash === null,
   districts,
   createdAt: user.createdAt.toISOString(),
+});
+
+/** A user's language and display units, as GET /api/me and PATCH /api/me/preferences answer them. */
+export const preferencesOf = (user: Pick<UserEntity, 'language' | 'temperatureUnit' | 'rainUnit'>): PreferencesDto => ({
+  language: user.language,
+  temperatureUnit: user.temperatureUnit,
+  rainUnit: user.rainUnit,
 });

@@ -1,5 +1,5 @@
 import { idParams } from '../../shared/api/common.schema';
-import { userInviteBody, userUpdateBody } from '../../shared/api/users.schema';
+import { preferencesBody, userInviteBody, userUpdateBody } from '../../shared/api/users.schema';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
 import { UsersService } from './users.service';
@@ -15,6 +15,11 @@ export function usersRoutes(ctx: AppContext) {
     defineRoute({
       method: 'patch', path: '/users/:id', access: ['admin'], params: idParams, body: userUpdateBody,
       handler: ({ principal, params, body }) => service.update(principal, params.id, body),
+    }),
+    defineRoute({
+      // Every signed-in user sets their own language and display units (docs/flags-and-bulletins.md: mail goes out in it).
+      method: 'patch', path: '/me/preferences', access: 'signed-in', body: preferencesBody,
+      handler: ({ principal, body }) => service.updatePreferences(principal, body),
     }),
   ];
 }

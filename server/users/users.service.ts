@@ -1,5 +1,4 @@
-import { ROLE_LABELS } from '../../shared/roles';
-import type { UserInviteBody, UserUpdateBody } from '../../shared/api/users.schema';
+import type { PreferencesBody, PreferencesDto, UserInviteBody, UserUpdateBody } from '../../shared/api/users.schema';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import { inviteMail } from '../auth/auth.mails';
@@ -7,7 +6,7 @@ import type { Principal } from '../auth/principal';
 import { SessionsRepository } from '../auth/sessions.repository';
 import { issueToken } from '../auth/tokens.repository';
 import { badRequest, conflict, notFound } from '../http/errors';
-import { presentUser } from './user.presenter';
+import { preferencesOf, presentUser } from './user.presenter';
 import { UserEntity } from './user.entity';
 import { UsersRepository } from './users.repository';
 
@@ -38,18 +37,19 @@ export class UsersService {
         role: body.role,
         passwordHash: null,
         active: true,
+        language: body.language ?? 'en',
       }));
       await this.users.setDistricts(manager, user.id, body.districtIds);
       const token = await issueToken(manager, user.id, 'invite', INVITE_TTL_HOURS);
       await recordAudit(manager, {
         actorId: actor.userId, action: 'user.invited', entity: 'user', entityId: user.id,
-        after: { email: user.email, role: user.role, districtIds: body.districtIds },
+        after: { email: user.email, role: user.role, districtIds: body.districtIds, language: user.language },
       });
       return { user: await this.users.findWithDistricts(user.id, manager), token };
     });
     const link = new URL(`/invite/accept?token=${token}`, this.ctx.config.APP_URL).toString();
     try {
-      await this.ctx.mailer.send({ to: body.email, ...inviteMail(body.displayName, ROLE_LABELS[body.role], link, INVITE_TTL_HOURS) });
+      await this.ctx.mailer.send({ to: body.email, ...inviteMail(body.displayName, body.role, link, INVITE_TTL_HOURS, body.language ?? 'en') });
     } catch (err) {
       this.ctx.logger.warn({ err: (err as Error).message }, 'invite mail could not be sent');
     }
@@ -88,6 +88,23 @@ export class UsersService {
       return after!;
     });
     return presentUser(updated);
+  }
+
+  /** The signed-in user's own language and display units; audited like every other change to a user. */
+  async updatePreferences(actor: Principal, body: PreferencesBody): Promise<PreferencesDto> {
+    return this.ctx.ds.transaction(async (manager) => {
+      const user = await manager.findOneBy(UserEntity, { id: actor.userId });
+      if (!user) throw notFound('The user');
+      const before = preferencesOf(user);
+      const patch: Partial<UserEntity> = {};
+      if (body.language !== undefined) patch.language = body.language;
+      if (body.temperatureUnit !== undefined) patch.temperatureUnit = body.temperatureUnit;
+      if (body.rainUnit !== undefined) patch.rainUnit = body.rainUnit;
+      await manager.update(UserEntity, { id: actor.userId }, patch);
+      const after = { ...before, ...body };
+      await recordAudit(manager, { actorId: actor.userId, action: 'user.preferences-updated', entity: 'user', entityId: actor.userId, before, after });
+      return after;
+    });
   }
 
   private async checkDistricts(manager: Parameters<UsersRepository['countExistingDistricts']>[0], ids: string[]) {

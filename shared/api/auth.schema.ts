@@ -2,6 +2,29 @@ import { z } from 'zod';
 import { ROLES } from '../roles';
 import { email, newPassword, uuid } from './common.schema';
 
+/**
+ * Each user's language and display units. The languages are the interface's (src/i18n/languages.ts keeps
+ * the same list for the client); stored and exchanged values stay SI whatever the units chosen.
+ */
+export const LANGUAGES = ['en', 'fr', 'es', 'pt'] as const;
+export type Language = (typeof LANGUAGES)[number];
+export const TEMPERATURE_UNITS = ['C', 'F'] as const;
+export const RAIN_UNITS = ['mm', 'in'] as const;
+export const DEFAULT_PREFERENCES = { language: 'en', temperatureUnit: 'C', rainUnit: 'mm' } as const;
+
+export const language = z.enum(LANGUAGES, { message: 'must be one of: ' + LANGUAGES.join(', ') });
+const temperatureUnit = z.enum(TEMPERATURE_UNITS, { message: 'must be C or F' });
+const rainUnit = z.enum(RAIN_UNITS, { message: 'must be mm or in' });
+
+export const preferencesDto = z.object({ language, temperatureUnit, rainUnit });
+export type PreferencesDto = z.infer<typeof preferencesDto>;
+
+/** PATCH /api/me/preferences: any of the three; unknown fields are refused. */
+export const preferencesBody = z
+  .strictObject({ language: language.optional(), temperatureUnit: temperatureUnit.optional(), rainUnit: rainUnit.optional() })
+  .refine((b) => Object.keys(b).length > 0, { message: 'nothing to change' });
+export type PreferencesBody = z.infer<typeof preferencesBody>;
+
 export const signInBody = z.strictObject({
   email,
   password: z.string({ message: 'is required' }).min(1, { message: 'is required' }).max(200),
@@ -17,6 +40,8 @@ export const meResponse = z.object({
   displayName: z.string(),
   role: z.enum(ROLES),
   districts: z.array(districtRef),
+  /** Language and display units (a server answer without them reads as the defaults). */
+  preferences: preferencesDto.default({ ...DEFAULT_PREFERENCES }),
 });
 export type Me = z.infer<typeof meResponse>;
 

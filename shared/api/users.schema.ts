@@ -1,6 +1,9 @@
 import { z } from 'zod';
 import { ROLES } from '../roles';
-import { districtRef } from './auth.schema';
+import { districtRef, language } from './auth.schema';
+
+export { DEFAULT_PREFERENCES, LANGUAGES, RAIN_UNITS, TEMPERATURE_UNITS, preferencesBody, preferencesDto } from './auth.schema';
+export type { Language, PreferencesBody, PreferencesDto } from './auth.schema';
 import { email, uuid } from './common.schema';
 
 const displayName = z.string().trim().min(1, { message: 'is required' }).max(120, { message: 'is too long' });
@@ -10,6 +13,8 @@ export const userInviteBody = z.strictObject({
   displayName,
   role: z.enum(ROLES, { message: 'must be one of: ' + ROLES.join(', ') }),
   districtIds: z.array(uuid).max(500).default([]),
+  /** The invitee's language (their invite mail is written in it); English when left out. */
+  language: language.optional(),
 });
 export type UserInviteBody = z.infer<typeof userInviteBody>;
 

@@ -1,9 +1,12 @@
 import { Navigate, NavLink, Outlet, useLocation, useNavigate } from 'react-router-dom';
-import { ROLE_LABELS } from '../../shared/roles';
+import { useTranslation } from 'react-i18next';
+import type { Role } from '../../shared/roles';
+import { useRoleLabel } from '../lib/labels';
 import { isUnauthorized } from '../lib/api-client';
 import { useMe } from '../features/auth/api/me.api';
 import { useSignOut } from '../features/auth/api/sign-out.api';
-import { navItemsFor } from './navigation';
+import { PreferencesProvider } from '../features/settings/preferences-provider';
+import { navItemsFor, type NavItem } from './navigation';
 import { SessionProvider, signInPath } from './session';
 import { LoadingScreen, RouteErrorPage } from './route-error.page';
 
@@ -11,6 +14,7 @@ import { LoadingScreen, RouteErrorPage } from './route-error.page';
 export function AppLayout() {
   const me = useMe();
   const location = useLocation();
+  const { t } = useTranslation('app');
 
   if (me.isError && isUnauthorized(me.error)) {
     return <Navigate to={signInPath(location.pathname + location.search)} replace />;
@@ -21,47 +25,53 @@ export function AppLayout() {
     <SessionProvider me={me.data}>
       <div className="min-h-dvh bg-paper text-ink">
         <a href="#main" className="skip-link">
-          Skip to content
+          {t('layout.skipLink')}
         </a>
         <AppHeader displayName={me.data.displayName} role={me.data.role} />
         <main id="main" tabIndex={-1} className="mx-auto w-full max-w-6xl px-4 py-6 sm:px-6 sm:py-8">
-          <Outlet />
+          <PreferencesProvider me={me.data}>
+            <Outlet />
+          </PreferencesProvider>
         </main>
       </div>
     </SessionProvider>
   );
 }
 
-function AppHeader({ displayName, role }: { displayName: string; role: keyof typeof ROLE_LABELS }) {
+function AppHeader({ displayName, role }: { displayName: string; role: Role }) {
+  const { t, i18n } = useTranslation('app');
+  const roleLabel = useRoleLabel();
   const navigate = useNavigate();
   const signOut = useSignOut({ leave: () => navigate('/sign-in', { replace: true }) });
   const items = navItemsFor(role);
   const onSignOut = () => signOut.mutate();
+  // A menu item added without its own `app:nav.<id>` key still shows, in its English label.
+  const navLabel = (item: NavItem) => (i18n.exists(`nav.${item.id}`, { ns: 'app' }) ? t(`nav.${item.id}`) : item.label);
 
   return (
     <header className="app-header">
       <div className="mx-auto flex w-full max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3 sm:px-6">
-        <NavLink to="/" className="brand text-xl" aria-label="Broodcast, go to the Ladder">
+        <NavLink to="/" className="brand text-xl" aria-label={t('layout.brandLabel')}>
           Broodcast
         </NavLink>
         <div className="ml-auto flex min-w-0 items-center gap-3 text-sm">
           <p className="min-w-0 text-right leading-tight">
             <span className="block truncate font-bold">{displayName}</span>
             <span data-testid="current-role" className="block text-accent-100">
-              {ROLE_LABELS[role]}
+              {roleLabel(role)}
             </span>
           </p>
           <button type="button" className="btn btn-on-accent" onClick={onSignOut} disabled={signOut.isPending}>
-            Sign out
+            {t('layout.signOut')}
           </button>
         </div>
       </div>
-      <nav aria-label="Main" className="app-nav">
+      <nav aria-label={t('layout.mainNav')} className="app-nav">
         <ul className="mx-auto flex w-full max-w-6xl gap-1 overflow-x-auto px-2 sm:px-4">
           {items.map((item) => (
             <li key={item.id} className="shrink-0">
               <NavLink to={item.to} end={item.to === '/'} className="nav-link">
-                {item.label}
+                {navLabel(item)}
               </NavLink>
             </li>
           ))}

@@ -1,6 +1,9 @@
 import { ROLES, type Role } from '../../shared/roles';
 
-/** One entry of the main navigation: where it goes and which roles may see (and use) it. */
+/**
+ * One entry of the main navigation: where it goes and which roles may see (and use) it. `label` is the
+ * English name; the menu shows `app:nav.<id>` in the interface language (the label when that key is missing).
+ */
 export type NavItem = {
   id: string;
   label: string;
@@ -23,6 +26,7 @@ export const NAV_ITEMS = [
   { id: 'sign-off', label: 'Sign-off', to: '/sign-off', roles: ['supervisor'] },
   { id: 'advisories', label: 'Advisories', to: '/advisories', roles: ROLES },
   { id: 'bulletin', label: 'Bulletin', to: '/bulletin', roles: ['supervisor'] },
+  { id: 'settings', label: 'Settings', to: '/settings', roles: ROLES },
 ] as const satisfies readonly NavItem[];
 
 export type NavItemId = (typeof NAV_ITEMS)[number]['id'];

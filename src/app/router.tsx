@@ -83,6 +83,14 @@ export const routes: RouteObject[] = [
             },
           },
           {
+            // The printable District file (static SVG drawings, no ECharts).
+            path: 'districts/:id/print',
+            lazy: async () => {
+              const { DistrictPrintPage } = await import('../features/district-file/print/district-print.page');
+              return { element: <RequireRole roles={rolesFor('ladder')}><DistrictPrintPage /></RequireRole> };
+            },
+          },
+          {
             // The District file, with ECharts, loads only when a District file is opened.
             path: 'districts/:id',
             lazy: async () => {
@@ -153,6 +161,11 @@ export const routes: RouteObject[] = [
             // Every signed-in role chooses its own mail.
             path: 'preferences',
             lazy: async () => ({ Component: (await import('../features/subscriptions/preferences.page')).PreferencesPage }),
+          },
+          {
+            // Every signed-in role sets its own language and display units.
+            path: 'settings',
+            lazy: async () => ({ Component: (await import('../features/settings/settings.page')).SettingsPage }),
           },
           { path: '*', element: <NotFoundPage /> },
         ],

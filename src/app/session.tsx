@@ -6,6 +6,7 @@ import type { Role } from '../../shared/roles';
 import { isUnauthorized } from '../lib/api-client';
 import { meQueryOptions } from '../features/auth/api/me.api';
 import { NotAllowedPage } from './not-allowed.page';
+import { restoreOfflineSession } from '../pwa/offline-session';
 
 /** Where to send someone without a session, remembering where they were going. */
 export function signInPath(next?: string): string {
@@ -21,9 +22,11 @@ export function isSafeNext(next: string | null | undefined): next is string {
 export const sessionLoader =
   (queryClient: QueryClient) =>
   async ({ request }: LoaderFunctionArgs) => {
+    restoreOfflineSession(queryClient); // offline: the user remembered on this device (docs/offline.md)
     try {
       await queryClient.ensureQueryData(meQueryOptions());
     } catch (error) {
+      if (restoreOfflineSession(queryClient, error)) return null;
       if (isUnauthorized(error)) {
         const url = new URL(request.url);
         throw redirect(signInPath(url.pathname + url.search));

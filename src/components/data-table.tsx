@@ -1,4 +1,5 @@
 import { Fragment, type ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { tableFeatures, type ReactTable, type Row, type RowData } from '@tanstack/react-table';
 
 /** The table features Broodcast's plain tables use (the core row model only, for now). */
@@ -19,10 +20,11 @@ type DataTableProps<TData extends RowData> = {
 export function DataTable<TData extends RowData>({
   table,
   caption,
-  emptyText = 'Nothing to show.',
+  emptyText,
   renderBelowRow,
   captionVisible = false,
 }: DataTableProps<TData>) {
+  const { t } = useTranslation('components');
   const rows = table.getRowModel().rows;
   const columnCount = table.getAllLeafColumns().length;
   return (
@@ -44,7 +46,7 @@ export function DataTable<TData extends RowData>({
           {rows.length === 0 ? (
             <tr>
               <td colSpan={columnCount} className="text-ink-muted">
-                {emptyText}
+                {emptyText ?? t('dataTable.empty')}
               </td>
             </tr>
           ) : (

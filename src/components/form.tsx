@@ -1,9 +1,10 @@
 import { useId, type ComponentProps, type ReactNode } from 'react';
-import { fieldErrorText } from '../lib/form-errors';
+import { useTranslation } from 'react-i18next';
+import { fieldErrorText } from '../lib/error-text';
 
 type FieldShellProps = {
   label: string;
-  /** The raw message (from zod or the server); it is read after the label. */
+  /** The raw message (from zod or the server); it is read after the label, in the interface language. */
   error?: string;
   hint?: ReactNode;
 };
@@ -13,6 +14,7 @@ function describedBy(hintId: string, errorId: string, hint: unknown, error: unkn
 }
 
 export function FieldError({ id, label, message }: { id: string; label: string; message?: string }) {
+  useTranslation('app'); // shown again in the new language when it changes
   const text = fieldErrorText(label, message);
   if (!text) return null;
   return (
@@ -89,7 +91,7 @@ export function CheckboxGroup({
   onChange,
   error,
   hint,
-  emptyText = 'Nothing to choose from yet.',
+  emptyText,
   disabled,
 }: {
   legend: string;
@@ -102,6 +104,7 @@ export function CheckboxGroup({
   disabled?: boolean;
 }) {
   const id = useId();
+  const { t } = useTranslation('components');
   const toggle = (v: string, checked: boolean) =>
     onChange(checked ? [...value.filter((x) => x !== v), v] : value.filter((x) => x !== v));
   return (
@@ -113,7 +116,7 @@ export function CheckboxGroup({
         </p>
       ) : null}
       {options.length === 0 ? (
-        <p className="field-hint">{emptyText}</p>
+        <p className="field-hint">{emptyText ?? t('checkboxGroup.empty')}</p>
       ) : (
         <ul className="mt-1 grid max-h-56 grid-cols-1 gap-1 overflow-y-auto rounded-md border border-line bg-surface p-2 sm:grid-cols-2">
           {options.map((o) => (

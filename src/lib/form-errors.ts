@@ -1,17 +1,10 @@
 import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
+import { i18n } from '../i18n';
 import { isApiError, type FieldProblem } from './api-client';
+import { errorText, problemText } from './error-text';
 
-/**
- * Reads a server (or schema) message in the context of its field's label. The shared schemas word their
- * messages as predicates ("is required", "must be at least 10 characters"), so they read after the label;
- * a message that is already a sentence is shown as it is.
- */
-export function fieldErrorText(label: string, message: string | undefined): string | undefined {
-  if (!message) return undefined;
-  const first = message.charAt(0);
-  const text = first === first.toLowerCase() && first !== first.toUpperCase() ? `${label} ${message}` : message;
-  return /[.!?]$/.test(text) ? text : `${text}.`;
-}
+/** Reads a field's problem after its label, in the interface language (see error-text.ts). */
+export { fieldErrorText } from './error-text';
 
 /** The form field a server path belongs to: "body.districtIds.3" → "districtIds" when that is a field. */
 export function fieldForPath<F extends string>(path: string, fields: readonly F[]): F | undefined {
@@ -40,7 +33,7 @@ export function applyServerFieldErrors<T extends FieldValues>(
   const unmatched: FieldProblem[] = [];
   const codeField = CODE_FIELDS[error.code];
   if (error.fields.length === 0 && codeField && (fields as readonly string[]).includes(codeField)) {
-    setError(codeField as Path<T>, { type: 'server', message: error.message });
+    setError(codeField as Path<T>, { type: 'server', message: errorText(error) });
   }
   for (const problem of error.fields) {
     const field = fieldForPath(problem.path, fields);
@@ -50,12 +43,13 @@ export function applyServerFieldErrors<T extends FieldValues>(
   return unmatched;
 }
 
-/** The sentence to show at the top of a form after a failed call. */
+/** The sentence to show at the top of a form after a failed call, in the interface language. */
 export function formErrorText(error: unknown, unmatched: FieldProblem[] = []): string {
-  if (!isApiError(error)) return 'Something went wrong. Try again.';
-  if (error.status === 403) return 'Your role may not do this.';
-  const extra = unmatched.map((p) => (p.path ? `${p.path}: ${p.message}` : p.message));
+  const t = (key: string) => i18n.t(key, { ns: 'app' }) as string;
+  if (!isApiError(error)) return t('errors.generic');
+  if (error.status === 403) return t('errors.status.403');
+  const extra = unmatched.map((p) => (p.path ? `${p.path}: ${problemText(p.message)}` : problemText(p.message)));
   const fieldCode = error.fields.length === 0 && CODE_FIELDS[error.code];
-  if ((error.fields.length > 0 || fieldCode) && extra.length === 0) return 'Some fields need attention; see the messages beside them.';
-  return [error.message, ...extra].join(' ');
+  if ((error.fields.length > 0 || fieldCode) && extra.length === 0) return t('errors.seeFields');
+  return [errorText(error), ...extra].join(' ');
 }

@@ -98,6 +98,41 @@ describe('the weekly bulletin', () => {
   });
 });
 
+describe('the bulletin in the reader\'s language', () => {
+  it('when a French and a Portuguese reader get the week, then subject, text, HTML and PDF are in their language with the cautions whole, and the PDF still opens', async () => {
+    await t.ds.query(`DELETE FROM bulletins`); // the week is written again for this test's readers
+    const fr = await makeUser(t.ds, { role: 'worker', districtIds: [warm.id] });
+    const pt = await makeUser(t.ds, { role: 'worker', districtIds: [warm.id] });
+    await t.ds.query(`UPDATE users SET language = 'fr' WHERE id = $1`, [fr.id]);
+    await t.ds.query(`UPDATE users SET language = 'pt' WHERE id = $1`, [pt.id]);
+    const sent = await new BulletinsService(t.ctx).sendLocked();
+    expect(sent).toMatchObject({ epiWeek: 33, bulletinsWritten: 2 });
+    const translations = await t.ds.query(`SELECT t.language FROM bulletin_translations t JOIN bulletins b ON b.id = t.bulletin_id WHERE b.district_id = $1 ORDER BY 1`, [warm.id]);
+    expect(translations.map((r: { language: string }) => r.language)).toEqual(['fr', 'pt']);
+    await new OutboxWorker(t.ctx).drain();
+
+    const [mail] = await waitForMails([fr.email], 1);
+    expect(mail.subject).toMatch(new RegExp(`^Bulletin hebdomadaire Broodcast : ${warm.name}, semaine 33 de 2026 \\(niveau (Base|Accru|Élevé|Critique)\\)$`));
+    for (const words of ['Facteurs du niveau', 'Signal des cas', 'canal endémique', 'La région cette semaine', 'Que faire', 'personnel formé',
+      'autorité sanitaire nationale', 'clinicien agréé', 'ne pose aucun diagnostic', 'Ne plus recevoir de courriels'])
+      expect(mail.text).toContain(words);
+    expect(mail.text).not.toContain('Drivers behind the tier');
+    expect(mail.html).toContain('<html lang="fr">');
+    expect(mail.html).toContain('Fourchette habituelle');
+    const pdf = await attachment(mail);
+    expect(pdf.subarray(0, 5).toString()).toBe('%PDF-');
+    expect(pdf.toString('latin1')).toMatch(/%%EOF\s*$/);
+    expect(pdfPages(pdf)).toBeGreaterThanOrEqual(1);
+    const english = (await t.ds.query(`SELECT pdf FROM bulletins WHERE district_id = $1`, [warm.id]))[0].pdf as Buffer;
+    expect(pdf.equals(english)).toBe(false); // the French PDF, not the default one
+
+    const [pmail] = await waitForMails([pt.email], 1);
+    expect(pmail.subject).toMatch(/^Boletim semanal do Broodcast: /);
+    for (const words of ['Casos face ao canal endémico', 'O que fazer', 'pessoal formado', 'autoridade sanitária nacional', 'clínico habilitado'])
+      expect(pmail.text).toContain(words);
+  });
+});
+
 describe('subscriptions', () => {
   it('when nothing is chosen, then the role default shows; saving writes explicit rows, and a community worker cannot take another district', async () => {
     const officer = await makeUser(t.ds, { role: 'officer' });

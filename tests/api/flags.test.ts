@@ -4,7 +4,8 @@ import { OutboxWorker } from '../../server/outbox/outbox.worker';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { countRows, makeDistrict, makeUser, signedInAgent } from '../support/factories';
 import { makeCaseHistory, makeSeasonDistrict } from '../support/season-factories';
-import { makeFlag, waitForMails } from '../support/flags-factories';
+import { makeFlag, rawSource, waitForMails } from '../support/flags-factories';
+import { suggestedMessage } from '../../server/flags/flag-texts';
 
 let t: TestApp;
 const AS_OF = '2026-08-20';
@@ -172,5 +173,53 @@ describe('the sign-off queue', () => {
     const res = await (await signedInAgent(t.app, user.email)).post(`/api/flags/${flag.id}/approve`).send({});
     expect(res.status).toBe(403);
     expect((await t.ds.query(`SELECT status FROM flags WHERE id = $1`, [flag.id]))[0].status).toBe('open');
+  });
+});
+
+describe('advisories in the reader\'s language', () => {
+  it('when a French community worker and an English one receive the same advisory, then each reads it in their own language, the suggested message included', async () => {
+    const d = await makeDistrict(t.ds);
+    const fr = await makeUser(t.ds, { role: 'worker', districtIds: [d.id] });
+    const en = await makeUser(t.ds, { role: 'worker', districtIds: [d.id] });
+    await t.ds.query(`UPDATE users SET language = 'fr' WHERE id = $1`, [fr.id]);
+    const flag = await makeFlag(t.ds, { districtId: d.id, reason: 'channel-above', tier: 'high' });
+    const drivers = [{ id: 'cases' as const, contribution: 0.4 }, { id: 'climate' as const, contribution: 0.2 }];
+    // As the season run writes it: Broodcast's own suggestion, approved unedited.
+    const suggestion = suggestedMessage({ districtName: d.name, reason: 'channel-above', tier: 'high', previousTier: null, drivers });
+    await t.ds.query(`UPDATE flags SET suggested_message = $2, drivers = $3 WHERE id = $1`, [
+      flag.id, suggestion, JSON.stringify(drivers.map((x) => ({ ...x, label: x.id, score: 0.5, weight: 0.3, detail: {} }))),
+    ]);
+    const res = await (await supervisor()).post(`/api/flags/${flag.id}/approve`).send({ version: 1 });
+    expect(res.status).toBe(200);
+    await new OutboxWorker(t.ctx).drain();
+
+    const [french] = await waitForMails([fr.email], 1);
+    expect(french.subject).toBe(`Avis Broodcast : ${d.name} — niveau Élevé`);
+    for (const words of ['Que faire', 'Supprimer les eaux de ponte', 'Rechercher activement les cas', 'personnel formé', 'autorité sanitaire nationale',
+      'clinicien agréé', 'ne pose aucun diagnostic', 'dépassent la fourchette habituelle', 'Signal des cas (67 % du score)', 'Ne plus recevoir de courriels'])
+      expect(french.text.replace(/\u202f|\u00a0/g, ' ')).toContain(words);
+    expect(french.text).not.toContain('What to do');
+    expect(french.html).toContain('<html lang="fr">');
+    expect(await rawSource(french)).toMatch(/^Content-Language: fr\r?$/m);
+
+    const [english] = await waitForMails([en.email], 1);
+    expect(english.subject).toBe(`Broodcast advisory: ${d.name} — High tier`);
+    expect(english.text).toContain(suggestion);
+    expect(english.text).toContain('What to do');
+  });
+
+  it('when the supervisor edits the message, then every reader gets the words as approved, around them their own language', async () => {
+    const d = await makeDistrict(t.ds);
+    const es = await makeUser(t.ds, { role: 'worker', districtIds: [d.id] });
+    await t.ds.query(`UPDATE users SET language = 'es' WHERE id = $1`, [es.id]);
+    const flag = await makeFlag(t.ds, { districtId: d.id, reason: 'manual', tier: 'raised' });
+    const message = 'Vacíe el agua estancada en casa esta semana y acuda a la clínica si tiene fiebre.';
+    expect((await (await supervisor()).post(`/api/flags/${flag.id}/approve`).send({ message })).status).toBe(200);
+    await new OutboxWorker(t.ctx).drain();
+    const [mail] = await waitForMails([es.email], 1);
+    expect(mail.subject).toBe(`Aviso de Broodcast: ${d.name} — nivel Elevado`);
+    expect(mail.text).toContain(message);
+    for (const words of ['Qué hacer', 'Eliminar el agua donde se crían', 'personal capacitado', 'autoridad sanitaria nacional', 'profesional clínico habilitado'])
+      expect(mail.text).toContain(words);
   });
 });

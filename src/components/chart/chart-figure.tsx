@@ -1,4 +1,5 @@
 import { useId, useState, type ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 import { EChart, type EChartProps } from './echart';
 import './chart.css';
 
@@ -19,6 +20,7 @@ type ChartFigureProps = EChartProps & {
  */
 export function ChartFigure({ title, summary, table, headingLevel = 'h3', emptyText, ...chart }: ChartFigureProps) {
   const id = useId();
+  const { t } = useTranslation('components');
   const [showTable, setShowTable] = useState(false);
   const Heading = headingLevel;
   return (
@@ -34,7 +36,7 @@ export function ChartFigure({ title, summary, table, headingLevel = 'h3', emptyT
           aria-controls={`${id}-table`}
           onClick={() => setShowTable((s) => !s)}
         >
-          {showTable ? 'Hide the table' : 'Show as table'}
+          {showTable ? t('chart.hideTable') : t('chart.showTable')}
         </button>
       </div>
       <p id={`${id}-summary`} className="mt-1 text-sm text-ink-muted">

@@ -1,4 +1,5 @@
 import type { ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
 
 export type SeriesTableCell = string | number | null | undefined;
 
@@ -7,13 +8,14 @@ export function SeriesTable({
   caption,
   header,
   rows,
-  emptyText = 'No values to show.',
+  emptyText,
 }: {
   caption: ReactNode;
   header: readonly string[];
   rows: readonly (readonly SeriesTableCell[])[];
   emptyText?: string;
 }) {
+  const { t } = useTranslation('components');
   return (
     <div className="table-wrap chart-table">
       <table className="data-table">
@@ -31,7 +33,7 @@ export function SeriesTable({
           {rows.length === 0 ? (
             <tr>
               <td colSpan={header.length} className="text-ink-muted">
-                {emptyText}
+                {emptyText ?? t('seriesTable.empty')}
               </td>
             </tr>
           ) : (

@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
+import { Trans, useTranslation } from 'react-i18next';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { passwordResetRequestBody } from '../../../shared/api/auth.schema';
 import { isApiError } from '../../lib/api-client';
@@ -10,6 +11,7 @@ import { useRequestPasswordReset } from './api/password-reset.api';
 import { AuthShell } from './components/auth-shell';
 
 export function PasswordResetRequestPage() {
+  const { t } = useTranslation('auth');
   const request = useRequestPasswordReset();
   const [sentTo, setSentTo] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
@@ -29,28 +31,27 @@ export function PasswordResetRequestPage() {
       const unmatched = applyServerFieldErrors(error, setError, ['email']);
       setFormError(
         isApiError(error) && error.status === 429
-          ? 'Too many requests for a reset link. Wait a few minutes, then try again.'
+          ? t('resetRequest.rateLimited')
           : formErrorText(error, unmatched),
       );
     }
   });
 
   return (
-    <AuthShell title="Reset your password">
+    <AuthShell title={t('resetRequest.title')}>
       {sentTo ? (
         <FormMessage kind="success">
           <p>
-            If a Broodcast account uses <strong>{sentTo}</strong>, a message with a link to choose a new password
-            is on its way. The link works once and only for a limited time.
+            <Trans t={t} i18nKey="resetRequest.sent" values={{ email: sentTo }} components={{ strong: <strong /> }} />
           </p>
-          <p className="mt-2">No message after a few minutes? Check the spam folder, or ask an admin.</p>
+          <p className="mt-2">{t('resetRequest.noMessage')}</p>
         </FormMessage>
       ) : (
         <form onSubmit={onSubmit} noValidate className="space-y-4">
-          <p className="text-sm text-ink-muted">Enter the e-mail address of your account. Broodcast will send it a link.</p>
+          <p className="text-sm text-ink-muted">{t('resetRequest.lead')}</p>
           <FormMessage kind="error">{formError}</FormMessage>
           <TextField
-            label="E-mail"
+            label={t('fields.email')}
             type="email"
             autoComplete="username"
             inputMode="email"
@@ -59,13 +60,13 @@ export function PasswordResetRequestPage() {
             {...register('email')}
           />
           <button type="submit" className="btn btn-primary w-full" disabled={isSubmitting}>
-            {isSubmitting ? 'Sending…' : 'Send the reset link'}
+            {isSubmitting ? t('resetRequest.submitting') : t('resetRequest.submit')}
           </button>
         </form>
       )}
       <p className="mt-5 text-sm">
         <Link to="/sign-in" className="link">
-          Back to sign-in
+          {t('backToSignIn')}
         </Link>
       </p>
     </AuthShell>

@@ -1,6 +1,8 @@
+import { useTranslation } from 'react-i18next';
 import { PageHeading } from '../../components/page-heading';
 import { FormMessage } from '../../components/form';
 import { isForbidden } from '../../lib/api-client';
+import { errorText } from '../../lib/error-text';
 import { NotAllowedPage } from '../../app/not-allowed.page';
 import { useDistricts } from './api/districts.api';
 import { CreateDistrictForm } from './components/create-district.form';
@@ -8,20 +10,19 @@ import { DemoDataLabel } from './components/demo-data-label';
 import { DistrictsTable } from './components/districts.table';
 
 export function DistrictsAdminPage() {
+  const { t } = useTranslation('districts');
   const districts = useDistricts();
   if (isForbidden(districts.error)) return <NotAllowedPage />;
   return (
     <section aria-labelledby="page-title">
-      <PageHeading lead="Codes, names, populations by year and boundaries. Populations give incidence per 100,000; boundaries place stations in districts.">
-        Districts
-      </PageHeading>
+      <PageHeading lead={t('page.lead')}>{t('page.title')}</PageHeading>
       <div className="space-y-8">
         <div className="min-w-0">
           <DemoDataLabel districts={districts.data} />
           {districts.isPending ? (
-            <p className="text-ink-muted">Loading districts…</p>
+            <p className="text-ink-muted">{t('page.loading')}</p>
           ) : districts.isError ? (
-            <FormMessage kind="error">{districts.error.message}</FormMessage>
+            <FormMessage kind="error">{errorText(districts.error)}</FormMessage>
           ) : (
             <DistrictsTable districts={districts.data} />
           )}

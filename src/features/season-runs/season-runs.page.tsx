@@ -1,7 +1,9 @@
 import { useId, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { FormMessage } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
 import { isApiError } from '../../lib/api-client';
+import { errorText } from '../../lib/error-text';
 import { useSeasonRun } from './api/season-run.api';
 import { useSeasonRuns } from './api/season-runs.api';
 import { useStartSeasonRun } from './api/start-season-run.api';
@@ -11,6 +13,7 @@ import './season-runs.css';
 
 /** The Season run history, and a way to run it now (admin, health officer) with its progress. */
 export function SeasonRunsPage() {
+  const { t } = useTranslation('season-runs');
   const id = useId();
   const runs = useSeasonRuns();
   const start = useStartSeasonRun();
@@ -30,49 +33,50 @@ export function SeasonRunsPage() {
       },
     );
 
-  const startError = start.error
-    ? isApiError(start.error) && start.error.code === 'run_in_progress'
-      ? `A season run is already in progress. ${start.error.message}`
-      : start.error.message
-    : null;
+  const startError = start.error ? startErrorText(start.error, t('alreadyRunning')) : null;
 
   return (
     <section aria-labelledby="page-title">
-      <PageHeading lead="The season run computes heat, the Vector clock, case signals and tiers for every district. It runs every night; run it now after a large upload or a correction.">
-        Season runs
-      </PageHeading>
+      <PageHeading lead={t('lead')}>{t('title')}</PageHeading>
 
       <div className="card mb-6 space-y-4">
-        <h2 className="section-title">Run the season now</h2>
+        <h2 className="section-title">{t('runNow')}</h2>
         <label className="flex items-center gap-2" htmlFor={`${id}-full`}>
           <input id={`${id}-full`} type="checkbox" className="checkbox" checked={full} onChange={(e) => setFull(e.currentTarget.checked)} disabled={busy} />
-          <span>Recompute the whole season, not only the days that changed</span>
+          <span>{t('fullLabel')}</span>
         </label>
         <div className="flex flex-wrap items-center gap-3">
           <button type="button" className="btn btn-primary" onClick={onStart} disabled={busy}>
-            {start.isPending ? 'Starting…' : 'Run the season now'}
+            {start.isPending ? t('starting') : t('runNow')}
           </button>
         </div>
         <FormMessage kind="error">{startError}</FormMessage>
         {run ? (
           <div aria-live="polite" className="space-y-2">
             <p className="font-bold">
-              {run.status === 'running' ? 'Season run in progress' : run.status === 'succeeded' ? 'Season run finished' : 'Season run failed'}
+              {t(`runStatus.${run.status}`)}
             </p>
             <SeasonRunProgress run={run} />
-            {run.status === 'succeeded' ? <p className="text-sm">The Ladder and every District file now show the new results.</p> : null}
-            {run.error ? <p className="text-sm font-bold">Error: {run.error}</p> : null}
+            {run.status === 'succeeded' ? <p className="text-sm">{t('finishedNote')}</p> : null}
+            {run.error ? <p className="text-sm font-bold">{t('error', { error: run.error })}</p> : null}
           </div>
         ) : null}
       </div>
 
       {runs.isPending ? (
-        <p className="text-ink-muted">Loading season runs…</p>
+        <p className="text-ink-muted">{t('loading')}</p>
       ) : runs.isError ? (
-        <FormMessage kind="error">{runs.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(runs.error)}</FormMessage>
       ) : (
         <SeasonRunsTable runs={runs.data} />
       )}
     </section>
   );
+}
+
+/** A refused start: "already in progress" leads, followed by the server's (or the translated) detail, never said twice. */
+function startErrorText(error: unknown, alreadyRunning: string): string {
+  const detail = errorText(error);
+  if (!(isApiError(error) && error.code === 'run_in_progress')) return detail;
+  return detail.startsWith(alreadyRunning) ? detail : `${alreadyRunning} ${detail}`;
 }

@@ -1,13 +1,16 @@
 import { useEffect, useState } from 'react';
+import { Trans, useTranslation } from 'react-i18next';
 import type { SubscriptionDto } from '../../../shared/api/bulletins.schema';
 import { FormMessage } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
+import { errorText } from '../../lib/error-text';
 import { useSaveSubscriptions, useSubscriptions } from './api/subscriptions.api';
 
 type Choice = Pick<SubscriptionDto, 'districtId' | 'advisory' | 'bulletin'>;
 
 /** Which districts' advisories and weekly bulletins come to me by mail (every signed-in role). */
 export function PreferencesPage() {
+  const { t } = useTranslation('subscriptions');
   const subs = useSubscriptions();
   const save = useSaveSubscriptions();
   const [choice, setChoice] = useState<Choice[]>([]);
@@ -20,13 +23,11 @@ export function PreferencesPage() {
 
   return (
     <section aria-labelledby="page-title">
-      <PageHeading lead="Advisories come as soon as a supervisor approves them; the bulletin comes once a week. Until you save a choice here, you receive what your role receives by default.">
-        Mail preferences
-      </PageHeading>
+      <PageHeading lead={t('preferences.lead')}>{t('preferences.title')}</PageHeading>
       {subs.isPending ? (
-        <p className="text-ink-muted">Loading your preferences…</p>
+        <p className="text-ink-muted">{t('preferences.loading')}</p>
       ) : subs.isError ? (
-        <FormMessage kind="error">{subs.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(subs.error)}</FormMessage>
       ) : (
         <form
           className="card space-y-4"
@@ -36,27 +37,27 @@ export function PreferencesPage() {
           }}
         >
           <p className="text-sm">
-            Mail goes to <strong>{subs.data.email}</strong>.{' '}
-            {subs.data.source === 'default' ? 'You have not chosen yet: these are your role’s defaults.' : 'These are your own choices.'}
+            <Trans t={t} i18nKey="preferences.mailTo" values={{ email: subs.data.email }} components={{ strong: <strong /> }} />{' '}
+            {subs.data.source === 'default' ? t('preferences.defaults') : t('preferences.own')}
           </p>
-          <FormMessage kind="error">{save.error?.message}</FormMessage>
-          <FormMessage kind="success">{save.isSuccess ? 'Saved.' : null}</FormMessage>
+          <FormMessage kind="error">{save.error ? errorText(save.error) : null}</FormMessage>
+          <FormMessage kind="success">{save.isSuccess ? t('preferences.saved') : null}</FormMessage>
           <div className="flex gap-3">
             <button type="button" className="btn btn-secondary btn-small" onClick={() => setAll(true)}>
-              Everything
+              {t('preferences.everything')}
             </button>
             <button type="button" className="btn btn-secondary btn-small" onClick={() => setAll(false)}>
-              Nothing
+              {t('preferences.nothing')}
             </button>
           </div>
           <div className="table-wrap">
             <table className="data-table">
-              <caption className="sr-only">Mail per district</caption>
+              <caption className="sr-only">{t('preferences.caption')}</caption>
               <thead>
                 <tr>
-                  <th scope="col">District</th>
-                  <th scope="col">Advisories</th>
-                  <th scope="col">Weekly bulletin</th>
+                  <th scope="col">{t('preferences.district')}</th>
+                  <th scope="col">{t('preferences.advisories')}</th>
+                  <th scope="col">{t('preferences.bulletin')}</th>
                 </tr>
               </thead>
               <tbody>
@@ -64,15 +65,15 @@ export function PreferencesPage() {
                   const c = choice.find((x) => x.districtId === d.districtId);
                   return (
                     <tr key={d.districtId}>
-                      <td>
+                      <th scope="row" className="font-normal">
                         {d.districtName} ({d.districtCode})
-                      </td>
+                      </th>
                       {(['advisory', 'bulletin'] as const).map((k) => (
                         <td key={k}>
                           <input
                             type="checkbox"
                             className="checkbox"
-                            aria-label={`${k === 'advisory' ? 'Advisories' : 'Weekly bulletin'} for ${d.districtName}`}
+                            aria-label={t(k === 'advisory' ? 'preferences.advisoriesFor' : 'preferences.bulletinFor', { district: d.districtName })}
                             checked={c?.[k] ?? false}
                             onChange={(e) => set(d.districtId, k, e.currentTarget.checked)}
                           />
@@ -85,7 +86,7 @@ export function PreferencesPage() {
             </table>
           </div>
           <button type="submit" className="btn btn-primary" disabled={save.isPending}>
-            {save.isPending ? 'Saving…' : 'Save my preferences'}
+            {save.isPending ? t('preferences.saving') : t('preferences.submit')}
           </button>
         </form>
       )}

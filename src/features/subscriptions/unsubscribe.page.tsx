@@ -1,6 +1,8 @@
 import { useEffect, useRef } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
+import { Trans, useTranslation } from 'react-i18next';
 import { FormMessage } from '../../components/form';
+import { errorText } from '../../lib/error-text';
 import { AuthShell } from '../auth/components/auth-shell';
 import { useUnsubscribe } from './api/subscriptions.api';
 
@@ -9,6 +11,7 @@ import { useUnsubscribe } from './api/subscriptions.api';
  * so a mail scanner that merely fetches the link changes nothing.
  */
 export function UnsubscribePage() {
+  const { t } = useTranslation('subscriptions');
   const [params] = useSearchParams();
   const token = params.get('token');
   const unsubscribe = useUnsubscribe();
@@ -21,24 +24,20 @@ export function UnsubscribePage() {
   }, [token, unsubscribe]);
 
   return (
-    <AuthShell title="Stop Broodcast mail">
+    <AuthShell title={t('unsubscribe.title')}>
       {!token ? (
-        <FormMessage kind="error">This page needs the complete link from the mail. Open the link again.</FormMessage>
+        <FormMessage kind="error">{t('unsubscribe.noToken')}</FormMessage>
       ) : unsubscribe.isPending || unsubscribe.isIdle ? (
-        <p>Stopping your mail…</p>
+        <p>{t('unsubscribe.stopping')}</p>
       ) : unsubscribe.isError ? (
-        <FormMessage kind="error">{unsubscribe.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(unsubscribe.error)}</FormMessage>
       ) : (
         <FormMessage kind="success">
-          {unsubscribe.data.email} will no longer receive advisories or bulletins for {unsubscribe.data.districtName}.
+          {t('unsubscribe.done', { email: unsubscribe.data.email, district: unsubscribe.data.districtName })}
         </FormMessage>
       )}
       <p className="mt-4 text-sm">
-        To choose exactly which districts you receive,{' '}
-        <Link className="link" to="/preferences">
-          sign in and open your mail preferences
-        </Link>
-        .
+        <Trans t={t} i18nKey="unsubscribe.choose" components={{ link: <Link className="link" to="/preferences" /> }} />
       </p>
     </AuthShell>
   );

@@ -1,15 +1,16 @@
 import type { UserDto } from '../../../shared/api/users.schema';
 
-export type UserStatus = 'active' | 'invite pending' | 'deactivated';
+/** An account's state; shown as `users:status.<id>` in the interface language. */
+export type UserStatus = 'active' | 'invitePending' | 'deactivated';
 
 export function userStatus(user: Pick<UserDto, 'active' | 'invitePending'>): UserStatus {
   if (!user.active) return 'deactivated';
-  if (user.invitePending) return 'invite pending';
+  if (user.invitePending) return 'invitePending';
   return 'active';
 }
 
 export const STATUS_CLASS: Record<UserStatus, string> = {
   active: 'status status-active',
-  'invite pending': 'status status-pending',
+  invitePending: 'status status-pending',
   deactivated: 'status status-deactivated',
 };

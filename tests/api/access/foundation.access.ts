@@ -10,6 +10,7 @@ export const foundationAccess: AccessTable = {
   'GET /users': ['admin'],
   'POST /users': ['admin'],
   'PATCH /users/:id': ['admin'],
+  'PATCH /me/preferences': ALL_SIGNED_IN,
   'GET /districts': ALL_SIGNED_IN,
   'GET /districts/boundaries': ALL_SIGNED_IN,
   'GET /districts/:id': ALL_SIGNED_IN,

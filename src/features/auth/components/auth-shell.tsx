@@ -1,12 +1,22 @@
 import type { ReactNode } from 'react';
+import { useTranslation } from 'react-i18next';
+import { LanguagePicker } from '../../../components/language-picker';
+import { useDocumentTitle } from '../../../lib/document-title';
 
-/** The frame of the screens used without a session: sign-in, password reset, invitation. */
+/** The frame of the screens used without a session: sign-in, password reset, invitation, unsubscribe. */
 export function AuthShell({ title, children }: { title: string; children: ReactNode }) {
+  const { t } = useTranslation('auth');
+  useDocumentTitle(title);
   return (
     <div className="min-h-dvh bg-paper px-4 py-10 sm:py-16">
       <main id="main" className="mx-auto w-full max-w-md">
-        <p className="brand text-2xl">Broodcast</p>
-        <p className="mt-1 text-sm text-ink-muted">Seasonal mosquito and transmission estimates for district health services</p>
+        <div className="flex flex-wrap items-start justify-between gap-3">
+          <div>
+            <p className="brand text-2xl">Broodcast</p>
+            <p className="mt-1 text-sm text-ink-muted">{t('shell.tagline')}</p>
+          </div>
+          <LanguagePicker />
+        </div>
         <section aria-labelledby="page-title" className="card mt-6">
           <h1 id="page-title" className="text-xl font-bold text-ink">
             {title}

@@ -1,5 +1,6 @@
 import { useState, type ReactNode } from 'react';
 import { useForm } from 'react-hook-form';
+import { useTranslation } from 'react-i18next';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
 import { newPassword } from '../../../../shared/api/common.schema';
@@ -33,6 +34,7 @@ export function SetPasswordForm({
   invalidLink: ReactNode;
   onDone: () => void;
 }) {
+  const { t } = useTranslation('auth');
   const [formError, setFormError] = useState<ReactNode>(null);
   const {
     register,
@@ -60,22 +62,22 @@ export function SetPasswordForm({
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <FormMessage kind="error">{formError}</FormMessage>
       <TextField
-        label="New password"
+        label={t('setPassword.newPassword')}
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters. A long phrase is easier to remember than a short jumble."
+        hint={t('setPassword.hint')}
         error={errors.password?.message}
         {...register('password')}
       />
       <TextField
-        label="Repeat the new password"
+        label={t('setPassword.repeat')}
         type="password"
         autoComplete="new-password"
         error={errors.confirmPassword?.message}
         {...register('confirmPassword')}
       />
       <button type="submit" className="btn btn-primary w-full" disabled={isSubmitting}>
-        {isSubmitting ? 'Saving…' : submitLabel}
+        {isSubmitting ? t('setPassword.saving') : submitLabel}
       </button>
     </form>
   );

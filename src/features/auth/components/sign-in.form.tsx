@@ -1,24 +1,24 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
+import { useTranslation } from 'react-i18next';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { signInBody } from '../../../../shared/api/auth.schema';
 import type { Me } from '../../../../shared/api/auth.schema';
+import { i18n } from '../../../i18n';
 import { isApiError } from '../../../lib/api-client';
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
 import { FormMessage, TextField } from '../../../components/form';
 import { useSignIn } from '../api/sign-in.api';
 
-export const WRONG_CREDENTIALS_MESSAGE = 'The e-mail or password is not right.';
-export const RATE_LIMITED_MESSAGE = 'Too many sign-in attempts. Wait a few minutes, then try again.';
-
-/** What to say after a failed sign-in: never which of the two was wrong. */
+/** What to say after a failed sign-in, in the interface language: never which of the two was wrong. */
 export function signInErrorText(error: unknown): string {
-  if (isApiError(error) && error.status === 401) return WRONG_CREDENTIALS_MESSAGE;
-  if (isApiError(error) && error.status === 429) return RATE_LIMITED_MESSAGE;
+  if (isApiError(error) && error.status === 401) return i18n.t('signIn.wrongCredentials', { ns: 'auth' });
+  if (isApiError(error) && error.status === 429) return i18n.t('signIn.rateLimited', { ns: 'auth' });
   return formErrorText(error);
 }
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (me: Me) => void }) {
+  const { t } = useTranslation('auth');
   const signIn = useSignIn();
   const [formError, setFormError] = useState<string | null>(null);
   const {
@@ -45,7 +45,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (me: Me) => void }) {
     <form onSubmit={onSubmit} noValidate className="space-y-4">
       <FormMessage kind="error">{formError}</FormMessage>
       <TextField
-        label="E-mail"
+        label={t('fields.email')}
         type="email"
         autoComplete="username"
         inputMode="email"
@@ -54,14 +54,14 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (me: Me) => void }) {
         {...register('email')}
       />
       <TextField
-        label="Password"
+        label={t('fields.password')}
         type="password"
         autoComplete="current-password"
         error={errors.password?.message}
         {...register('password')}
       />
       <button type="submit" className="btn btn-primary w-full" disabled={isSubmitting}>
-        {isSubmitting ? 'Signing in…' : 'Sign in'}
+        {isSubmitting ? t('signIn.submitting') : t('signIn.submit')}
       </button>
     </form>
   );

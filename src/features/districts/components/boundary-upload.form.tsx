@@ -1,6 +1,8 @@
 import { useId, useRef, useState, type FormEvent } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { DistrictDto } from '../../../../shared/api/districts.schema';
 import { isApiError, type FieldProblem } from '../../../lib/api-client';
+import { errorText, problemText } from '../../../lib/error-text';
 import { FormMessage } from '../../../components/form';
 import { useUploadBoundary } from '../api/upload-boundary.api';
 
@@ -13,6 +15,7 @@ type Outcome =
 
 /** Reads a .geojson/.json file in the browser and sends its JSON as the district's boundary. */
 export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
+  const { t } = useTranslation('districts');
   const upload = useUploadBoundary();
   const inputId = useId();
   const fileRef = useRef<HTMLInputElement>(null);
@@ -25,32 +28,32 @@ export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
     setOutcome(null);
     const file = fileRef.current?.files?.[0];
     if (!file) {
-      setFileError('Choose a .geojson or .json file first.');
+      setFileError(t('boundary.chooseFile'));
       return;
     }
     if (file.size > MAX_BYTES) {
-      setFileError(`${file.name} is larger than 20 MB. Simplify the boundary and try again.`);
+      setFileError(t('boundary.tooLarge', { file: file.name }));
       return;
     }
     let geojson: unknown;
     try {
       geojson = JSON.parse(await file.text());
     } catch {
-      setFileError(`${file.name} is not JSON, so it cannot be a GeoJSON boundary. Export the boundary as GeoJSON and try again.`);
+      setFileError(t('boundary.notJson', { file: file.name }));
       return;
     }
     try {
       await upload.mutateAsync({ id: district.id, geojson });
-      setOutcome({ kind: 'success', text: `Boundary saved from ${file.name}.` });
+      setOutcome({ kind: 'success', text: t('boundary.saved', { file: file.name }) });
       if (fileRef.current) fileRef.current.value = '';
     } catch (error) {
       setOutcome({
         kind: 'error',
         text: isApiError(error)
           ? error.status === 413
-            ? `${file.name} is too large for the server.`
-            : `The boundary in ${file.name} was not accepted: ${error.message}`
-          : 'The boundary could not be saved. Try again.',
+            ? t('boundary.tooLargeForServer', { file: file.name })
+            : t('boundary.refused', { file: file.name, reason: errorText(error) })
+          : t('boundary.failed'),
         problems: isApiError(error) ? error.fields : undefined,
       });
     }
@@ -59,11 +62,10 @@ export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby={`boundary-${district.id}`}>
       <h4 id={`boundary-${district.id}`} className="font-bold">
-        Boundary
+        {t('boundary.title')}
       </h4>
       <p className="text-sm text-ink-muted">
-        {district.hasBoundary ? 'A boundary is on file; a new file replaces it.' : 'No boundary on file yet.'} A GeoJSON
-        Polygon or MultiPolygon, bare or inside a Feature, in longitude and latitude.
+        {district.hasBoundary ? t('boundary.onFile') : t('boundary.noneOnFile')} {t('boundary.format')}
       </p>
       {outcome ? (
         <FormMessage kind={outcome.kind}>
@@ -74,7 +76,7 @@ export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
                 <li key={i}>
                   {p.path ? <code className="font-mono text-sm">{p.path}</code> : null}
                   {p.path ? ': ' : null}
-                  {p.message}
+                  {problemText(p.message)}
                 </li>
               ))}
             </ul>
@@ -83,7 +85,7 @@ export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
       ) : null}
       <div className="field">
         <label htmlFor={inputId} className="field-label">
-          Boundary file
+          {t('boundary.file')}
         </label>
         <input
           id={inputId}
@@ -102,7 +104,7 @@ export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
         ) : null}
       </div>
       <button type="submit" className="btn btn-primary btn-small" disabled={upload.isPending}>
-        {upload.isPending ? 'Uploading…' : 'Upload the boundary'}
+        {upload.isPending ? t('boundary.uploading') : t('boundary.submit')}
       </button>
     </form>
   );

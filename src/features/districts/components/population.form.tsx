@@ -1,12 +1,12 @@
 import { useState } from 'react';
 import { useForm, type FieldError } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useTranslation } from 'react-i18next';
 import { populationBody, type DistrictDto } from '../../../../shared/api/districts.schema';
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
 import { FormMessage, TextField } from '../../../components/form';
 import { useSetPopulation } from '../api/set-population.api';
-
-const numberFormat = new Intl.NumberFormat('en');
+import { useFormat } from '../../../i18n/format';
 
 /** An empty number box comes through as NaN; say so in words rather than with the schema's default. */
 function numberError(error: FieldError | undefined, empty: string): string | undefined {
@@ -16,6 +16,8 @@ function numberError(error: FieldError | undefined, empty: string): string | und
 }
 
 export function PopulationForm({ district }: { district: DistrictDto }) {
+  const { t } = useTranslation('districts');
+  const f = useFormat();
   const setPopulation = useSetPopulation();
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
   const {
@@ -33,7 +35,7 @@ export function PopulationForm({ district }: { district: DistrictDto }) {
     setMessage(null);
     try {
       await setPopulation.mutateAsync({ id: district.id, population: values });
-      setMessage({ kind: 'success', text: `Population for ${values.year} saved: ${numberFormat.format(values.population)}.` });
+      setMessage({ kind: 'success', text: t('population.saved', { year: values.year, population: f.number(values.population) }) });
     } catch (error) {
       const unmatched = applyServerFieldErrors(error, setError, ['year', 'population']);
       setMessage({ kind: 'error', text: formErrorText(error, unmatched) });
@@ -43,36 +45,36 @@ export function PopulationForm({ district }: { district: DistrictDto }) {
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby={`population-${district.id}`}>
       <h4 id={`population-${district.id}`} className="font-bold">
-        Population for a year
+        {t('population.title')}
       </h4>
       <p className="text-sm text-ink-muted">
         {recorded.length === 0
-          ? 'No population recorded yet. Incidence per 100,000 needs one.'
-          : `Recorded: ${recorded.map((p) => `${p.year}: ${numberFormat.format(p.population)}`).join('; ')}.`}
+          ? t('population.none')
+          : t('population.recorded', { list: recorded.map((p) => t('population.item', { year: p.year, population: f.number(p.population) })).join('; ') })}
       </p>
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
       <TextField
-        label="Year"
+        label={t('population.year')}
         type="number"
         inputMode="numeric"
         min={1900}
         max={2100}
         step={1}
-        error={numberError(errors.year, 'Enter the year, for example 2024.')}
+        error={numberError(errors.year, t('population.yearEmpty'))}
         {...register('year', { valueAsNumber: true })}
       />
       <TextField
-        label="Population"
+        label={t('population.population')}
         type="number"
         inputMode="numeric"
         min={0}
         step={1}
-        hint="Saving a year that is already recorded replaces its number."
-        error={numberError(errors.population, 'Enter the population as a whole number.')}
+        hint={t('population.hint')}
+        error={numberError(errors.population, t('population.populationEmpty'))}
         {...register('population', { valueAsNumber: true })}
       />
       <button type="submit" className="btn btn-primary btn-small" disabled={isSubmitting}>
-        {isSubmitting ? 'Saving…' : 'Save the population'}
+        {isSubmitting ? t('saving') : t('population.submit')}
       </button>
     </form>
   );

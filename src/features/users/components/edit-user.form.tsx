@@ -1,12 +1,13 @@
 import { useEffect, useRef, useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
+import { Trans, useTranslation } from 'react-i18next';
 import { userInviteBody, type UserDto, type UserUpdateBody } from '../../../../shared/api/users.schema';
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
 import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../components/form';
 import { useUpdateUser } from '../api/update-user.api';
 import { useDistrictOptions } from './district-options';
-import { districtHint, RoleOptions } from './role-options';
+import { RoleOptions, useDistrictHint } from './role-options';
 
 /** The editable part of a user, checked with the same rules as the invitation. */
 const editUserForm = userInviteBody.pick({ displayName: true, role: true, districtIds: true });
@@ -16,6 +17,7 @@ const sameSet = (a: readonly string[], b: readonly string[]) =>
   a.length === b.length && a.every((x) => b.includes(x));
 
 export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved: boolean) => void }) {
+  const { t } = useTranslation('users');
   const update = useUpdateUser();
   const districts = useDistrictOptions();
   const headingRef = useRef<HTMLHeadingElement>(null);
@@ -32,6 +34,7 @@ export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved
     defaultValues: { displayName: user.displayName, role: user.role, districtIds: user.districts.map((d) => d.id) },
   });
   const role = watch('role');
+  const districtHint = useDistrictHint(role);
 
   useEffect(() => headingRef.current?.focus(), []);
 
@@ -42,7 +45,7 @@ export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved
     if (values.role !== user.role) changes.role = values.role;
     if (!sameSet(values.districtIds, user.districts.map((d) => d.id))) changes.districtIds = values.districtIds;
     if (Object.keys(changes).length === 0) {
-      setFormError('Nothing has changed yet.');
+      setFormError(t('edit.nothingChanged'));
       return;
     }
     try {
@@ -57,12 +60,17 @@ export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4 pt-2" aria-labelledby={`edit-${user.id}`}>
       <h3 id={`edit-${user.id}`} ref={headingRef} tabIndex={-1} className="font-bold">
-        Edit {user.displayName} <span className="font-normal text-ink-muted">({user.email})</span>
+        <Trans
+          t={t}
+          i18nKey="edit.title"
+          values={{ name: user.displayName, email: user.email }}
+          components={{ muted: <span className="font-normal text-ink-muted" /> }}
+        />
       </h3>
       <FormMessage kind="error">{formError}</FormMessage>
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Name" autoComplete="off" error={errors.displayName?.message} {...register('displayName')} />
-        <SelectField label="Role" error={errors.role?.message} {...register('role')}>
+        <TextField label={t('fields.name')} autoComplete="off" error={errors.displayName?.message} {...register('displayName')} />
+        <SelectField label={t('fields.role')} error={errors.role?.message} {...register('role')}>
           <RoleOptions />
         </SelectField>
       </div>
@@ -71,10 +79,10 @@ export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved
         name="districtIds"
         render={({ field, fieldState }) => (
           <CheckboxGroup
-            legend="Districts"
-            hint={districtHint(role)}
+            legend={t('fields.districts')}
+            hint={districtHint}
             options={districts.options}
-            emptyText={districts.isPending ? 'Loading districts…' : 'No districts yet.'}
+            emptyText={districts.isPending ? t('loadingDistricts') : t('edit.noDistricts')}
             value={field.value ?? []}
             onChange={field.onChange}
             error={fieldState.error?.message}
@@ -83,10 +91,10 @@ export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved
       />
       <div className="flex flex-wrap gap-2">
         <button type="submit" className="btn btn-primary" disabled={isSubmitting}>
-          {isSubmitting ? 'Saving…' : 'Save changes'}
+          {isSubmitting ? t('edit.saving') : t('edit.save')}
         </button>
         <button type="button" className="btn btn-secondary" onClick={() => onClose(false)}>
-          Cancel
+          {t('edit.cancel')}
         </button>
       </div>
     </form>

@@ -1,16 +1,19 @@
 import { useState } from 'react';
 import { Controller, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
+import { useTranslation } from 'react-i18next';
 import { userInviteBody } from '../../../../shared/api/users.schema';
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
+import { errorText } from '../../../lib/error-text';
 import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../components/form';
 import { useInviteUser } from '../api/invite-user.api';
 import { useDistrictOptions } from './district-options';
-import { districtHint, RoleOptions } from './role-options';
+import { RoleOptions, useDistrictHint } from './role-options';
 
 const FIELDS = ['email', 'displayName', 'role', 'districtIds'] as const;
 
 export function InviteUserForm() {
+  const { t } = useTranslation('users');
   const invite = useInviteUser();
   const districts = useDistrictOptions();
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
@@ -27,40 +30,41 @@ export function InviteUserForm() {
     defaultValues: { email: '', displayName: '', role: undefined, districtIds: [] },
   });
   const role = watch('role');
+  const districtHint = useDistrictHint(role);
 
   const onSubmit = handleSubmit(async (values) => {
     setMessage(null);
     try {
       const user = await invite.mutateAsync(values);
       reset();
-      setMessage({ kind: 'success', text: `Invitation sent to ${user.email}. The account shows “invite pending” until it is accepted.` });
+      setMessage({ kind: 'success', text: t('invite.sent', { email: user.email }) });
     } catch (error) {
       const unmatched = applyServerFieldErrors(error, setError, FIELDS);
       setMessage({ kind: 'error', text: formErrorText(error, unmatched) });
     }
   });
 
-  const roleError = errors.role?.type === 'server' ? errors.role.message : errors.role ? 'Choose a role.' : undefined;
+  const roleError = errors.role?.type === 'server' ? errors.role.message : errors.role ? t('invite.chooseRole') : undefined;
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-labelledby="invite-title">
       <h2 id="invite-title" className="section-title">
-        Invite a user
+        {t('invite.title')}
       </h2>
-      <p className="text-sm text-ink-muted">Broodcast e-mails the person a link to choose their password.</p>
+      <p className="text-sm text-ink-muted">{t('invite.lead')}</p>
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField
-          label="E-mail"
+          label={t('fields.email')}
           type="email"
           autoComplete="off"
           spellCheck={false}
           error={errors.email?.message}
           {...register('email')}
         />
-        <TextField label="Name" autoComplete="off" error={errors.displayName?.message} {...register('displayName')} />
-        <SelectField label="Role" error={roleError} {...register('role')}>
-          <RoleOptions placeholder="Choose a role" />
+        <TextField label={t('fields.name')} autoComplete="off" error={errors.displayName?.message} {...register('displayName')} />
+        <SelectField label={t('fields.role')} error={roleError} {...register('role')}>
+          <RoleOptions placeholder={t('invite.rolePlaceholder')} />
         </SelectField>
       </div>
       <Controller
@@ -68,10 +72,10 @@ export function InviteUserForm() {
         name="districtIds"
         render={({ field, fieldState }) => (
           <CheckboxGroup
-            legend="Districts"
-            hint={districts.error ? `The districts could not be loaded: ${districts.error.message}` : districtHint(role)}
+            legend={t('fields.districts')}
+            hint={districts.error ? t('districtsNotLoaded', { error: errorText(districts.error) }) : districtHint}
             options={districts.options}
-            emptyText={districts.isPending ? 'Loading districts…' : 'No districts yet. Create them under Districts.'}
+            emptyText={districts.isPending ? t('loadingDistricts') : t('invite.noDistricts')}
             value={field.value ?? []}
             onChange={field.onChange}
             error={fieldState.error?.message}
@@ -79,7 +83,7 @@ export function InviteUserForm() {
         )}
       />
       <button type="submit" className="btn btn-primary" disabled={isSubmitting}>
-        {isSubmitting ? 'Sending the invitation…' : 'Send the invitation'}
+        {isSubmitting ? t('invite.submitting') : t('invite.submit')}
       </button>
     </form>
   );

@@ -1,12 +1,15 @@
-import { DISTRICT_SCOPED_ROLES, ROLE_LABELS, ROLES, type Role } from '../../../../shared/roles';
+import { useTranslation } from 'react-i18next';
+import { DISTRICT_SCOPED_ROLES, ROLES, type Role } from '../../../../shared/roles';
+import { useRoleLabel } from '../../../lib/labels';
 
 export function RoleOptions({ placeholder }: { placeholder?: string }) {
+  const roleLabel = useRoleLabel();
   return (
     <>
       {placeholder ? <option value="">{placeholder}</option> : null}
       {ROLES.map((r) => (
         <option key={r} value={r}>
-          {ROLE_LABELS[r]}
+          {roleLabel(r)}
         </option>
       ))}
     </>
@@ -14,10 +17,8 @@ export function RoleOptions({ placeholder }: { placeholder?: string }) {
 }
 
 /** Explains what the district choice means for the chosen role. */
-export function districtHint(role: Role | '' | undefined): string {
-  if (role && DISTRICT_SCOPED_ROLES.includes(role)) {
-    return `A ${ROLE_LABELS[role].toLowerCase()} sees and works only in the districts ticked here.`;
-  }
-  const scoped = DISTRICT_SCOPED_ROLES.map((r) => ROLE_LABELS[r].toLowerCase() + 's').join(' and ');
-  return `The districts limit what ${scoped} see. Other roles see every district; ticked districts set their bulletins.`;
+export function useDistrictHint(role: Role | '' | undefined): string {
+  const { t } = useTranslation('users');
+  if (role && DISTRICT_SCOPED_ROLES.includes(role)) return t(`districtHint.scoped.${role}`);
+  return t('districtHint.others');
 }

@@ -1,11 +1,12 @@
 import { useMemo, useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import type { TFunction } from 'i18next';
 import { createColumnHelper, useTable } from '@tanstack/react-table';
 import type { UserDto } from '../../../../shared/api/users.schema';
-import { ROLE_LABELS } from '../../../../shared/roles';
 import { DataTable, plainTableFeatures, type PlainTableFeatures } from '../../../components/data-table';
 import { FormMessage } from '../../../components/form';
-import { formErrorText } from '../../../lib/form-errors';
-import { isApiError } from '../../../lib/api-client';
+import { errorText } from '../../../lib/error-text';
+import { useRoleLabel } from '../../../lib/labels';
 import { useSession } from '../../../app/session';
 import { useUpdateUser } from '../api/update-user.api';
 import { STATUS_CLASS, userStatus } from '../user-status';
@@ -13,17 +14,17 @@ import { EditUserForm } from './edit-user.form';
 
 const column = createColumnHelper<PlainTableFeatures, UserDto>();
 
-const baseColumns = [
-  column.accessor('email', { header: 'E-mail', cell: (c) => <span className="break-all">{c.getValue()}</span> }),
-  column.accessor('displayName', { header: 'Name' }),
-  column.accessor((u) => ROLE_LABELS[u.role], { id: 'role', header: 'Role' }),
+const baseColumns = (t: TFunction, roleLabel: (role: UserDto['role']) => string) => [
+  column.accessor('email', { header: t('fields.email'), cell: (c) => <span className="break-all">{c.getValue()}</span> }),
+  column.accessor('displayName', { header: t('fields.name') }),
+  column.accessor((u) => roleLabel(u.role), { id: 'role', header: t('fields.role') }),
   column.accessor((u) => u.districts.map((d) => d.code).join(', '), {
     id: 'districts',
-    header: 'Districts',
+    header: t('fields.districts'),
     cell: (c) => {
       const districts = c.row.original.districts;
       return districts.length === 0 ? (
-        <span className="text-ink-muted">None</span>
+        <span className="text-ink-muted">{t('table.noDistricts')}</span>
       ) : (
         <span title={districts.map((d) => `${d.code} — ${d.name}`).join('\n')}>{c.getValue()}</span>
       );
@@ -31,14 +32,16 @@ const baseColumns = [
   }),
   column.accessor((u) => userStatus(u), {
     id: 'status',
-    header: 'Status',
-    cell: (c) => <span className={STATUS_CLASS[c.getValue()]}>{c.getValue()}</span>,
+    header: t('table.status'),
+    cell: (c) => <span className={STATUS_CLASS[c.getValue()]}>{t(`status.${c.getValue()}`)}</span>,
   }),
 ];
 
 type Notice = { kind: 'error' | 'success'; text: string } | null;
 
 export function UsersTable({ users }: { users: UserDto[] }) {
+  const { t } = useTranslation('users');
+  const roleLabel = useRoleLabel();
   const me = useSession();
   const update = useUpdateUser();
   const [editingId, setEditingId] = useState<string | null>(null);
@@ -57,27 +60,27 @@ export function UsersTable({ users }: { users: UserDto[] }) {
       setConfirmingId(null);
       setNotice({
         kind: 'success',
-        text: active ? `${user.displayName} can sign in again.` : `${user.displayName} is deactivated and can no longer sign in.`,
+        text: active ? t('table.reactivated', { name: user.displayName }) : t('table.deactivated', { name: user.displayName }),
       });
     } catch (error) {
-      setNotice({ kind: 'error', text: isApiError(error) ? error.message : formErrorText(error) });
+      setNotice({ kind: 'error', text: errorText(error) });
     }
   };
 
   const columns = useMemo(
     () =>
       column.columns([
-        ...baseColumns,
+        ...baseColumns(t, roleLabel),
         column.display({
           id: 'actions',
-          header: 'Actions',
+          header: t('table.actions'),
           cell: ({ row }) => {
             const user = row.original;
             const self = user.id === me.id;
             if (confirmingId === user.id) {
               return (
                 <div className="flex min-w-56 flex-col gap-2">
-                  <p className="text-sm">Deactivate {user.displayName}? They will no longer be able to sign in.</p>
+                  <p className="text-sm">{t('table.confirmDeactivate', { name: user.displayName })}</p>
                   <div className="flex flex-wrap gap-2">
                     <button
                       type="button"
@@ -85,10 +88,10 @@ export function UsersTable({ users }: { users: UserDto[] }) {
                       disabled={update.isPending}
                       onClick={() => setActive(user, false)}
                     >
-                      Yes, deactivate
+                      {t('table.yesDeactivate')}
                     </button>
                     <button type="button" className="btn btn-secondary btn-small" onClick={() => setConfirmingId(null)}>
-                      Keep active
+                      {t('table.keepActive')}
                     </button>
                   </div>
                 </div>
@@ -100,37 +103,37 @@ export function UsersTable({ users }: { users: UserDto[] }) {
                   type="button"
                   className="btn btn-secondary btn-small"
                   aria-expanded={editingId === user.id}
-                  aria-label={`Edit ${user.displayName}`}
+                  aria-label={t('table.editLabel', { name: user.displayName })}
                   onClick={() => {
                     setNotice(null);
                     setEditingId(editingId === user.id ? null : user.id);
                   }}
                 >
-                  Edit
+                  {t('table.edit')}
                 </button>
                 {self ? (
-                  <span className="self-center text-sm text-ink-muted">(you)</span>
+                  <span className="self-center text-sm text-ink-muted">{t('table.you')}</span>
                 ) : user.active ? (
                   <button
                     type="button"
                     className="btn btn-quiet btn-small"
-                    aria-label={`Deactivate ${user.displayName}`}
+                    aria-label={t('table.deactivateLabel', { name: user.displayName })}
                     onClick={() => {
                       setNotice(null);
                       setConfirmingId(user.id);
                     }}
                   >
-                    Deactivate
+                    {t('table.deactivate')}
                   </button>
                 ) : (
                   <button
                     type="button"
                     className="btn btn-quiet btn-small"
-                    aria-label={`Reactivate ${user.displayName}`}
+                    aria-label={t('table.reactivateLabel', { name: user.displayName })}
                     disabled={update.isPending}
                     onClick={() => setActive(user, true)}
                   >
-                    Reactivate
+                    {t('table.reactivate')}
                   </button>
                 )}
               </div>
@@ -138,7 +141,7 @@ export function UsersTable({ users }: { users: UserDto[] }) {
           },
         }),
       ]),
-    [me.id, editingId, confirmingId, update.isPending],
+    [t, roleLabel, me.id, editingId, confirmingId, update.isPending],
   );
 
   const table = useTable({ features: plainTableFeatures, columns, data, getRowId: (u) => u.id });
@@ -148,8 +151,8 @@ export function UsersTable({ users }: { users: UserDto[] }) {
       {notice ? <FormMessage kind={notice.kind}>{notice.text}</FormMessage> : null}
       <DataTable
         table={table}
-        caption="Users of this Broodcast deployment"
-        emptyText="No users yet."
+        caption={t('table.caption')}
+        emptyText={t('table.empty')}
         renderBelowRow={(row) =>
           editingId === row.original.id ? (
             <EditUserForm
@@ -157,7 +160,7 @@ export function UsersTable({ users }: { users: UserDto[] }) {
               user={row.original}
               onClose={(saved) => {
                 setEditingId(null);
-                if (saved) setNotice({ kind: 'success', text: `${row.original.displayName} is updated.` });
+                if (saved) setNotice({ kind: 'success', text: t('table.updated', { name: row.original.displayName }) });
               }}
             />
           ) : null
