@@ -10,7 +10,9 @@ import { AuthService } from './auth/auth.service';
 import { sessionMiddleware } from './auth/session.middleware';
 import { districtsRoutes } from './districts/districts.routes';
 import { healthRoutes } from './health/health.routes';
+import { csrfGuard } from './http/csrf';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { requestLog } from './http/request-log';
 import { mountRoutes, type RouteDef } from './http/route';
 import { usersRoutes } from './users/users.routes';
 import { casesRoutes } from './cases/cases.routes';
@@ -41,6 +43,8 @@ export function createApp(ctx: AppContext): BroodcastApp {
           'img-src': ["'self'", 'data:'],
           'connect-src': ["'self'"],
           'object-src': ["'none'"],
+          'base-uri': ["'none'"],
+          'form-action': ["'self'"],
           'frame-ancestors': ["'none'"],
           'upgrade-insecure-requests': ctx.config.COOKIE_SECURE ? [] : null,
         },
@@ -64,6 +68,15 @@ export function createApp(ctx: AppContext): BroodcastApp {
   app.locals.routes = routes;
 
   const api = express.Router();
+  // One log line per request (security refusals at info), then the cross-site guard for every
+  // state-changing request, JSON or multipart, before any body is read (docs/security.md).
+  api.use(requestLog(ctx.logger));
+  api.use(csrfGuard({ appUrl: ctx.config.APP_URL, logger: ctx.logger }));
+  // API answers hold health data: never kept in a browser or proxy cache (a route may set its own).
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   // District boundaries can be large GeoJSON; every other body stays under 1 MB.
   api.use('/districts/:id/boundary', express.json({ limit: '10mb', strict: true }));
   api.use(express.json({ limit: '1mb', strict: true }));
@@ -77,7 +90,16 @@ export function createApp(ctx: AppContext): BroodcastApp {
   // The built client, with the single-page fallback for its routes.
   const dist = path.resolve(ctx.config.CLIENT_DIST);
   const index = path.join(dist, 'index.html');
-  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  app.use(
+    express.static(dist, {
+      index: false,
+      maxAge: '1h',
+      // The service worker and the manifest are checked for a new version on every visit (docs/offline.md).
+      setHeaders: (res, file) => {
+        if (/[\\/](sw\.js|manifest\.webmanifest)$/.test(file)) res.setHeader('Cache-Control', 'no-cache');
+      },
+    }),
+  );
   app.use((req, res, next) => {
     if (req.method !== 'GET' || !req.accepts('html')) return next();
     if (!existsSync(index)) return res.status(503).type('text').send('The client is not built yet: run npm start.');

@@ -83,5 +83,9 @@ export function parseConfig(env: NodeJS.ProcessEnv = process.env): Config {
   if (config.NODE_ENV === 'production' && !config.COOKIE_SECURE) {
     throw new ConfigError('Bad configuration — COOKIE_SECURE: must be true in production');
   }
+  // Tests lower the bcrypt cost for speed; a real installation never goes under 12 (docs/security.md).
+  if (config.NODE_ENV === 'production' && config.BCRYPT_COST < 12) {
+    throw new ConfigError('Bad configuration — BCRYPT_COST: must be at least 12 in production');
+  }
   return config;
 }

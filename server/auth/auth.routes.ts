@@ -1,3 +1,4 @@
+import type { NextFunction, Request, Response } from 'express';
 import { rateLimit } from 'express-rate-limit';
 import {
   inviteAcceptBody,
@@ -9,35 +10,43 @@ import {
 import type { AppContext } from '../app-context';
 import { HttpError } from '../http/errors';
 import { defineRoute } from '../http/route';
+import { preferencesOf } from '../users/user.presenter';
 import { UsersRepository } from '../users/users.repository';
 import type { AuthService } from './auth.service';
-import { SESSION_COOKIE, sessionCookieOptions } from './session.middleware';
+import { sessionCookieOptions } from './session.middleware';
 
 /**
- * Sign-in attempts are limited per address and per account (express-rate-limit's memory store:
- * per process; with several instances each counts its own share — noted in DEVELOPERS.md).
+ * Sign-in attempts are limited per address (every attempt counts) and per account (failed attempts
+ * count: a user who signs in often is never locked out by their own successes). Past the limit the
+ * answer is 429 `too_many_attempts` with Retry-After until the window ends, even with the right
+ * password. express-rate-limit's memory store: per process; with several instances each counts its
+ * own share (noted in DEVELOPERS.md). Password-reset requests are limited the same way, so nobody
+ * floods a mailbox. Figures: docs/security.md.
  */
-function signInLimiters(ctx: AppContext) {
+function attemptLimiters(ctx: AppContext, what: 'sign-in' | 'password-reset') {
   const windowMs = ctx.config.SIGN_IN_WINDOW_MINUTES * 60_000;
-  const tooMany = () => {
-    throw new HttpError(429, 'too_many_attempts', 'Too many sign-in attempts. Wait a few minutes and try again.');
+  const handler = (scope: 'address' | 'account') => (req: Request, res: Response, next: NextFunction) => {
+    const reset = (req as Request & { rateLimit?: { resetTime?: Date } }).rateLimit?.resetTime;
+    const seconds = Math.max(1, Math.ceil(((reset?.getTime() ?? Date.now() + windowMs) - Date.now()) / 1000));
+    res.setHeader('Retry-After', String(seconds));
+    ctx.logger.warn({ event: 'auth.locked-out', what, scope, retryAfterSeconds: seconds }, `too many ${what} attempts`);
+    const minutes = Math.ceil(seconds / 60);
+    next(new HttpError(429, 'too_many_attempts',
+      `Too many ${what === 'sign-in' ? 'sign-in attempts' : 'reset requests'}. Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`));
   };
-  const handler = (_req: unknown, _res: unknown, next: (err?: unknown) => void) => {
-    try {
-      tooMany();
-    } catch (err) {
-      next(err);
-    }
-  };
+  const emailOf = (req: Request) => (typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : null);
   return [
-    rateLimit({ windowMs, limit: ctx.config.SIGN_IN_LIMIT_PER_ADDRESS, standardHeaders: 'draft-8', legacyHeaders: false, handler }),
+    rateLimit({ windowMs, limit: ctx.config.SIGN_IN_LIMIT_PER_ADDRESS, standardHeaders: 'draft-8', legacyHeaders: false, handler: handler('address') }),
     rateLimit({
       windowMs,
       limit: ctx.config.SIGN_IN_LIMIT_PER_ACCOUNT,
       standardHeaders: false,
       legacyHeaders: false,
-      keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`,
-      handler,
+      skip: (req) => emailOf(req) === null,
+      // Sign-in: only failures count; a reset request always answers 202, so every request counts.
+      skipSuccessfulRequests: what === 'sign-in',
+      keyGenerator: (req) => `${what}:${emailOf(req)}`,
+      handler: handler('account'),
     }),
   ];
 }
@@ -50,10 +59,12 @@ export function authRoutes(ctx: AppContext, auth: AuthService) {
       path: '/auth/sign-in',
       access: 'public',
       body: signInBody,
-      before: signInLimiters(ctx),
-      handler: async ({ body }, _req, res) => {
+      before: attemptLimiters(ctx, 'sign-in'),
+      handler: async ({ body }, req, res) => {
         const session = await auth.signIn(body);
-        res.cookie(SESSION_COOKIE, session.token, sessionCookieOptions(ctx.config, session.expiresAt));
+        // A new token at every sign-in; the session the browser held before (if any) ends (ASVS V7.2.4).
+        await auth.signOut(req.cookies?.[auth.cookieName], 'auth.session-replaced');
+        res.cookie(auth.cookieName, session.token, sessionCookieOptions(ctx.config, session.expiresAt));
         const me = await users.findWithDistricts(session.userId);
         return presentMe(me!);
       },
@@ -63,8 +74,8 @@ export function authRoutes(ctx: AppContext, auth: AuthService) {
       path: '/auth/sign-out',
       access: 'public',
       handler: async (_input, req, res) => {
-        await auth.signOut(req.cookies?.[SESSION_COOKIE]);
-        res.clearCookie(SESSION_COOKIE, sessionCookieOptions(ctx.config));
+        await auth.signOut(req.cookies?.[auth.cookieName]);
+        res.clearCookie(auth.cookieName, sessionCookieOptions(ctx.config));
         return undefined;
       },
     }),
@@ -79,6 +90,7 @@ export function authRoutes(ctx: AppContext, auth: AuthService) {
       path: '/auth/password-reset',
       access: 'public',
       body: passwordResetRequestBody,
+      before: attemptLimiters(ctx, 'password-reset'),
       status: 202,
       handler: async ({ body }) => {
         await auth.requestPasswordReset(body.email);
@@ -103,5 +115,5 @@ export function authRoutes(ctx: AppContext, auth: AuthService) {
 }
 
 function presentMe({ user, districts }: NonNullable<Awaited<ReturnType<UsersRepository['findWithDistricts']>>>) {
-  return meResponse.parse({ id: user.id, email: user.email, displayName: user.displayName, role: user.role, districts });
+  return meResponse.parse({ id: user.id, email: user.email, displayName: user.displayName, role: user.role, districts, preferences: preferencesOf(user) });
 }

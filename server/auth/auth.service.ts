@@ -11,6 +11,7 @@ import { SessionsRepository } from './sessions.repository';
 import { consumeToken, issueToken } from './tokens.repository';
 import type { TokenPurpose } from './one-time-token.entity';
 import { passwordResetMail } from './auth.mails';
+import { sessionCookieName } from './session.middleware';
 
 const JWT_ISSUER = 'broodcast';
 const RESET_TTL_HOURS = 1;
@@ -24,9 +25,13 @@ export class AuthService {
   private readonly sessions: SessionsRepository;
   private readonly users: UsersRepository;
 
+  /** The session cookie's name: `__Host-` prefixed when cookies are Secure (ASVS V3.3.1, V3.3.3). */
+  readonly cookieName: string;
+
   constructor(private readonly ctx: AppContext) {
     this.sessions = new SessionsRepository(ctx.ds);
     this.users = new UsersRepository(ctx.ds);
+    this.cookieName = sessionCookieName(ctx.config);
   }
 
   /** Check the e-mail and password; a failure never says which part was wrong. */
@@ -34,9 +39,14 @@ export class AuthService {
     const user = await this.users.findByEmail(body.email);
     if (!user || !user.active || !user.passwordHash) {
       await verifyAgainstDummy(body.password, this.ctx.config.BCRYPT_COST);
+      // Security event without the e-mail address: the user id when the account exists.
+      this.ctx.logger.info({ event: 'auth.sign-in-failed', reason: !user ? 'unknown-account' : !user.active ? 'inactive' : 'no-password', user: user?.id ?? null }, 'sign-in failed');
       throw unauthorized('The e-mail or password is not right.');
     }
-    if (!(await verifyPassword(body.password, user.passwordHash))) throw unauthorized('The e-mail or password is not right.');
+    if (!(await verifyPassword(body.password, user.passwordHash))) {
+      this.ctx.logger.info({ event: 'auth.sign-in-failed', reason: 'wrong-password', user: user.id }, 'sign-in failed');
+      throw unauthorized('The e-mail or password is not right.');
+    }
     const expiresAt = new Date(Date.now() + this.ctx.config.SESSION_TTL_HOURS * 3_600_000);
     const session = await this.sessions.create(user.id, expiresAt);
     const token = jwt.sign({ sid: session.id }, this.ctx.config.JWT_SECRET, {
@@ -45,12 +55,16 @@ export class AuthService {
       algorithm: 'HS256',
       expiresIn: Math.floor(this.ctx.config.SESSION_TTL_HOURS * 3600),
     });
+    this.ctx.logger.info({ event: 'auth.sign-in', user: user.id, role: user.role, session: session.id }, 'signed in');
     return { token, expiresAt, userId: user.id };
   }
 
-  async signOut(token: string | undefined): Promise<void> {
+  async signOut(token: string | undefined, event = 'auth.sign-out'): Promise<void> {
     const claims = token ? this.verify(token) : null;
-    if (claims) await this.sessions.revoke(claims.sid);
+    if (claims) {
+      await this.sessions.revoke(claims.sid);
+      this.ctx.logger.info({ event, user: claims.sub, session: claims.sid }, 'session ended');
+    }
   }
 
   /** The principal behind a session cookie, or null (bad signature, expired, revoked, deactivated). */
@@ -75,8 +89,9 @@ export class AuthService {
     const user = await this.users.findByEmail(email);
     if (!user || !user.active || !user.passwordHash) return;
     const token = await issueToken(this.ctx.ds.manager, user.id, 'password-reset', RESET_TTL_HOURS);
+    this.ctx.logger.info({ event: 'auth.password-reset-requested', user: user.id }, 'password reset link issued');
     const link = new URL(`/reset-password?token=${token}`, this.ctx.config.APP_URL).toString();
-    await this.sendQuietly(user.email, passwordResetMail(user.displayName, link, RESET_TTL_HOURS));
+    await this.sendQuietly(user.email, passwordResetMail(user.displayName, link, RESET_TTL_HOURS, user.language));
   }
 
   confirmPasswordReset(token: string, password: string) {
@@ -92,9 +107,15 @@ export class AuthService {
     const hash = await hashPassword(password, this.ctx.config.BCRYPT_COST);
     await this.ctx.ds.transaction(async (manager) => {
       const row = await consumeToken(manager, token, purpose);
-      if (!row) throw badRequest('token_invalid', 'This link has expired or was already used. Ask for a new one.', [
-        { path: 'token', message: 'has expired or was already used' },
-      ]);
+      if (!row) {
+        this.ctx.logger.info({ event: 'auth.token-refused', purpose }, 'one-time link refused');
+        throw badRequest('token_invalid', 'This link has expired or was already used. Ask for a new one.', [
+          { path: 'token', message: 'has expired or was already used' },
+        ]);
+      }
+      // The user's own e-mail name may not be the password (the transaction rolls back: the link stays usable).
+      const owner = await manager.findOneBy(UserEntity, { id: row.userId });
+      if (owner) checkNewPassword(password, this.ctx.config.NODE_ENV, owner);
       await manager.update(UserEntity, { id: row.userId }, { passwordHash: hash });
       await this.sessions.revokeAllOf(manager, row.userId);
       await recordAudit(manager, {
@@ -103,6 +124,7 @@ export class AuthService {
         entity: 'user',
         entityId: row.userId,
       });
+      this.ctx.logger.info({ event: purpose === 'invite' ? 'auth.invite-accepted' : 'auth.password-reset', user: row.userId }, 'password set; other sessions ended');
     });
   }
 

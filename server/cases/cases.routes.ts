@@ -12,6 +12,7 @@ import {
 import type { AppContext } from '../app-context';
 import { badRequest } from '../http/errors';
 import { defineRoute, type RouteDef } from '../http/route';
+import { checkCsvUpload, uploadLimit } from '../http/uploads';
 import { CaseLedgerService } from './case-ledger.service';
 import { CaseUploadService, UPLOAD_MAX_BYTES } from './case-upload.service';
 import { surveysRoutes } from './surveys.routes';
@@ -34,7 +35,7 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
       handler: ({ principal, query }) => ledger.grid(principal, query),
     }),
     defineRoute({
-      method: 'post', path: '/cases/uploads', access: ['epidemiologist'], before: [upload.single('file')], body: caseUploadFields,
+      method: 'post', path: '/cases/uploads', access: ['epidemiologist'], before: [uploadLimit(UPLOAD_MAX_BYTES), upload.single('file'), checkCsvUpload], body: caseUploadFields,
       handler: async ({ principal, body }, req, res) => {
         if (!req.file) throw badRequest('file_missing', 'Attach a CSV file in the field "file".', [{ path: 'file', message: 'is required' }]);
         const report = await uploads.upload(principal, req.file, body.reason);

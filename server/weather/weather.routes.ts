@@ -11,6 +11,7 @@ import {
 import { z } from 'zod';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
+import { checkCsvUpload, uploadLimit } from '../http/uploads';
 import { WeatherFeedService } from './weather-feed.service';
 import { WeatherService } from './weather.service';
 
@@ -57,7 +58,7 @@ export function weatherRoutes(ctx: AppContext) {
     }),
     defineRoute({
       method: 'post', path: '/weather/uploads', access: EDITORS, query: uploadQuery, body: uploadForm, status: 201,
-      before: [dropUntaken, upload],
+      before: [dropUntaken, uploadLimit(ctx.config.WEATHER_UPLOAD_MAX_BYTES), upload, checkCsvUpload],
       handler: ({ principal, body, query }, req) => service.acceptFile(principal, req.file, body, query.wait === 'true'),
     }),
     defineRoute({ method: 'get', path: '/weather/uploads', access: EDITORS, handler: () => service.uploads() }),
@@ -67,9 +68,16 @@ export function weatherRoutes(ctx: AppContext) {
     }),
     defineRoute({
       method: 'get', path: '/weather/uploads/:id/issues', access: EDITORS, params: idParams,
-      query: issuesQuery.extend({ format: z.enum(['json', 'csv']).default('json') }),
+      query: issuesQuery.extend({
+        format: z.enum(['json', 'csv']).default('json'),
+        // Units of the CSV's temperatures and rain (the reader's display units; SI by default).
+        temperature: z.enum(['C', 'F'], { message: 'must be C or F' }).default('C'),
+        rain: z.enum(['mm', 'in'], { message: 'must be mm or in' }).default('mm'),
+      }),
       handler: ({ params, query }, _req, res) =>
-        query.format === 'csv' ? service.issuesCsv(params.id, res) : service.issues(params.id, query.offset, query.limit),
+        query.format === 'csv'
+          ? service.issuesCsv(params.id, res, { temperature: query.temperature, rain: query.rain })
+          : service.issues(params.id, query.offset, query.limit),
     }),
     defineRoute({
       method: 'put', path: '/weather/observations', access: EDITORS, body: correctionBody,
