@@ -1,5 +1,6 @@
 import { useId, useMemo } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { useTranslation } from 'react-i18next';
 import type { DistrictFileResponse } from '../../../shared/api/board.schema';
 import { FormMessage } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
@@ -12,6 +13,9 @@ import { TierHistoryChart } from './charts/tier-history.chart';
 import { DegreeDaysChart, EipChart, RvcChart } from './charts/vector-clock.charts';
 import { WeatherChart } from './charts/weather.chart';
 import { CurrentTier } from './components/current-tier';
+import { KeyNumbers } from './components/key-numbers';
+import { weatherSourceText } from './district-file-format';
+import { useLadderWords } from '../ladder/ladder-format';
 import './district-file.css';
 
 const seasonParam = (v: string | null) => (v && /^\d{4}$/.test(v) ? Number(v) : null);
@@ -23,6 +27,7 @@ const byWeek = (a: { epiYear: number; epiWeek: number }, b: { epiYear: number; e
  * tier history), each with a text summary and a table. Loaded lazily with ECharts.
  */
 export function DistrictFilePage() {
+  const { t } = useTranslation('district-file');
   const { id = '' } = useParams();
   const [search, setSearch] = useSearchParams();
   const season = seasonParam(search.get('season'));
@@ -42,15 +47,15 @@ export function DistrictFilePage() {
       { replace: true },
     );
 
-  if (file.isPending) return <p className="text-ink-muted">Loading the District file…</p>;
+  if (file.isPending) return <p className="text-ink-muted">{t('loading')}</p>;
   if (file.isError)
     return (
       <section aria-labelledby="page-title">
-        <PageHeading>District file</PageHeading>
+        <PageHeading>{t('title')}</PageHeading>
         <FormMessage kind="error">{file.error.message}</FormMessage>
         <p className="mt-4">
           <Link to="/" className="link">
-            Back to the Ladder
+            {t('backToLadder')}
           </Link>
         </p>
       </section>
@@ -80,6 +85,8 @@ function DistrictFileView({
   onChoose: (key: 'season' | 'compare', value: string) => void;
 }) {
   const id = useId();
+  const w = useLadderWords();
+  const { t } = useTranslation('district-file');
   const { district, seasonYear } = data;
   const seasons = useMemo(() => [...new Set([...data.seasons, seasonYear])].sort((a, b) => b - a), [data.seasons, seasonYear]);
   const earlier = seasons.filter((s) => s < seasonYear);
@@ -92,19 +99,24 @@ function DistrictFileView({
     <section aria-labelledby="page-title" aria-busy={loadingSeason || undefined}>
       <p className="mb-2 text-sm">
         <Link to="/" className="link">
-          Ladder
+          {t('ladder:title')}
         </Link>{' '}
-        <span aria-hidden="true">›</span> District file
+        <span aria-hidden="true">›</span> {t('title')}
       </p>
-      <PageHeading lead={`District file of ${district.code}, season ${seasonYear}.`}>{district.name}</PageHeading>
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <PageHeading lead={t('lead', { code: district.code, season: seasonYear })}>{district.name}</PageHeading>
+        <Link to={`/districts/${district.id}/print?season=${seasonYear}`} className="btn btn-secondary btn-small" data-testid="print-link">
+          {t('printLink')}
+        </Link>
+      </div>
       <DemoDataLabel districts={[district]} />
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-6">
-          <form className="flex flex-wrap items-end gap-4" onSubmit={(e) => e.preventDefault()} aria-label="Season">
+          <form className="flex flex-wrap items-end gap-4" onSubmit={(e) => e.preventDefault()} aria-label={t('season')}>
             <div className="field w-40">
               <label htmlFor={`${id}-season`} className="field-label">
-                Season
+                {t('season')}
               </label>
               <select id={`${id}-season`} className="input" value={seasonYear} onChange={(e) => onChoose('season', e.currentTarget.value)}>
                 {seasons.map((s) => (
@@ -116,7 +128,7 @@ function DistrictFileView({
             </div>
             <div className="field w-56">
               <label htmlFor={`${id}-compare`} className="field-label">
-                Compare heat with
+                {t('compareWith')}
               </label>
               <select
                 id={`${id}-compare`}
@@ -125,7 +137,7 @@ function DistrictFileView({
                 onChange={(e) => onChoose('compare', e.currentTarget.value)}
                 disabled={earlier.length === 0}
               >
-                <option value="">No other season</option>
+                <option value="">{t('noOtherSeason')}</option>
                 {earlier.map((s) => (
                   <option key={s} value={s}>
                     {s}
@@ -133,32 +145,34 @@ function DistrictFileView({
                 ))}
               </select>
             </div>
-            {loadingSeason ? <p className="text-sm text-ink-muted">Loading the season…</p> : null}
+            {loadingSeason ? <p className="text-sm text-ink-muted">{t('loadingSeason')}</p> : null}
           </form>
 
           {current ? (
             <CurrentTier current={current} previous={previous} />
           ) : (
-            <FormMessage kind="info">No tier has been computed for {seasonYear} yet. A season run computes it.</FormMessage>
+            <FormMessage kind="info">{t('noTier', { season: seasonYear })}</FormMessage>
           )}
+
+          <KeyNumbers data={data} />
 
           <section aria-labelledby={`${id}-about`} className="card">
             <h2 id={`${id}-about`} className="section-title">
-              About the data
+              {t('about.title')}
             </h2>
             <ul className="mt-2 list-disc space-y-1 pl-5 text-sm">
-              <li>Weather: {data.weather.source ?? 'no source recorded'}.</li>
-              <li>
-                {filledDays === 0
-                  ? 'No day of weather was filled in.'
-                  : `${filledDays} day${filledDays === 1 ? ' was' : 's were'} missing and filled in from neighbouring days.`}
-              </li>
+              <li>{t('about.weather', { source: weatherSourceText(w, data.weather.source) })}</li>
+              <li>{filledDays === 0 ? t('about.noneFilled') : t('about.filled', { count: filledDays, days: w.count(filledDays) })}</li>
               <li>
                 {data.vectorClock.length === 0
-                  ? 'No vector–pathogen profile is assigned to this district.'
-                  : `Profiles: ${data.vectorClock.map((v) => v.profileName).join(', ')}.`}
+                  ? t('about.noProfile')
+                  : t('about.profiles', { profiles: data.vectorClock.map((v) => v.profileName).join(t('listSeparator')) })}
               </li>
-              <li>{data.larval.length === 0 ? 'No larval surveys this season.' : `${data.larval.reduce((a, w) => a + w.surveys, 0)} larval surveys this season.`}</li>
+              <li>
+                {data.larval.length === 0
+                  ? t('about.noSurveys')
+                  : t('about.surveys', { count: data.larval.reduce((a, x) => a + x.surveys, 0), surveys: w.count(data.larval.reduce((a, x) => a + x.surveys, 0)) })}
+              </li>
             </ul>
             <DistrictLinks districtId={district.id} />
           </section>
@@ -169,7 +183,7 @@ function DistrictFileView({
       <div className="mt-8 space-y-8">
         <section aria-labelledby={`${id}-weather`} className="card space-y-4">
           <h2 id={`${id}-weather`} className="text-xl font-bold">
-            Weather and heat
+            {t('sections.weather')}
           </h2>
           <WeatherChart weather={data.weather} />
           {data.vectorClock.map((vc) => {
@@ -188,7 +202,7 @@ function DistrictFileView({
         {data.vectorClock.length ? (
           <section aria-labelledby={`${id}-clock`} className="card space-y-4">
             <h2 id={`${id}-clock`} className="text-xl font-bold">
-              Vector clock
+              {t('sections.vectorClock')}
             </h2>
             {data.vectorClock.map((vc) => (
               <div key={vc.profileId} className="space-y-4">
@@ -201,9 +215,9 @@ function DistrictFileView({
 
         <section aria-labelledby={`${id}-cases`} className="card space-y-4">
           <h2 id={`${id}-cases`} className="text-xl font-bold">
-            Cases and larval surveys
+            {t('sections.cases')}
           </h2>
-          {data.cases.length === 0 ? <p className="text-ink-muted">No case counts for this season.</p> : null}
+          {data.cases.length === 0 ? <p className="text-ink-muted">{t('noCases')}</p> : null}
           {data.cases.map((c) => (
             <CasesChart key={c.diseaseId} cases={c} seasonYear={seasonYear} />
           ))}
@@ -212,7 +226,7 @@ function DistrictFileView({
 
         <section aria-labelledby={`${id}-tiers`} className="card space-y-4">
           <h2 id={`${id}-tiers`} className="text-xl font-bold">
-            Tier over the season
+            {t('sections.tiers')}
           </h2>
           <TierHistoryChart tiers={tiers} />
         </section>
@@ -223,10 +237,11 @@ function DistrictFileView({
 
 /** Other screens about this district that exist in this build. */
 function DistrictLinks({ districtId }: { districtId: string }) {
+  const { t } = useTranslation('district-file');
   return (
     <p className="mt-3 text-sm">
       <Link to={`/districts/${districtId}/cases`} className="link">
-        Weekly case counts for this district
+        {t('links.cases')}
       </Link>
     </p>
   );

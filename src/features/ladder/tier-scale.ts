@@ -1,4 +1,4 @@
-import { TIERS, TIER_LABELS, type Tier } from '../../../shared/tier';
+import { TIERS, type Tier } from '../../../shared/tier';
 
 /**
  * Broodcast's tier scale: four steps of one deep plum, from pale (Baseline) to dark (Critical). A
@@ -21,8 +21,8 @@ export const TIER_TEXT: Record<Tier, string> = {
   critical: '#ffffff',
 };
 
-/** The scale in tier order, for chart legends (visualMap pieces). */
-export const TIER_SCALE = TIERS.map((tier, index) => ({ tier, index, label: TIER_LABELS[tier], colour: TIER_COLOURS[tier] }));
+/** The scale in tier order, for chart legends (visualMap pieces); the words come from `useLadderWords().tier`. */
+export const TIER_SCALE = TIERS.map((tier, index) => ({ tier, index, colour: TIER_COLOURS[tier] }));
 
 /** WCAG 2 relative luminance of an sRGB colour given as #rrggbb (0 = black, 1 = white). */
 export function relativeLuminance(hex: string): number {

@@ -1,11 +1,12 @@
 import { useMemo } from 'react';
 import { useNavigate } from 'react-router-dom';
+import { useTranslation } from 'react-i18next';
 import type { LadderRow } from '../../../shared/api/board.schema';
-import { TIER_LABELS, tierRank } from '../../../shared/tier';
+import { TIERS, tierRank } from '../../../shared/tier';
 import { EChart } from '../../components/chart/echart';
 import { echarts, type ChartOption } from '../../components/chart/echarts-core';
-import { TIER_COLOURS, TIER_SCALE, TIER_TEXT } from '../ladder/tier-scale';
-import { CONFIDENCE_MARKS } from '../ladder/ladder-format';
+import { TIER_COLOURS, TIER_TEXT } from '../ladder/tier-scale';
+import { useLadderWords } from '../ladder/ladder-format';
 import type { MapSeriesOption } from 'echarts/charts';
 import type { BoundariesResponse } from './api/boundaries.api';
 
@@ -20,6 +21,8 @@ const escapeHtml = (s: string) => s.replace(/[&<>"']/g, (ch) => `&#${ch.charCode
  */
 export default function RegionMapChart({ boundaries, rows }: { boundaries: BoundariesResponse; rows: LadderRow[] }) {
   const navigate = useNavigate();
+  const { t } = useTranslation('region-map');
+  const words = useLadderWords();
   const byId = useMemo(() => new Map(rows.map((r) => [r.districtId, r])), [rows]);
 
   // Registering again with new GeoJSON replaces the map; the key makes the option below re-read it.
@@ -38,20 +41,23 @@ export default function RegionMapChart({ boundaries, rows }: { boundaries: Bound
           const r = byId.get(p.name);
           const f = boundaries.features.find((x) => x.id === p.name);
           const name = escapeHtml(r?.name ?? f?.properties.name ?? '');
-          if (!r) return `${name}<br/>No tier yet`;
-          const mark = CONFIDENCE_MARKS[r.confidence];
-          return `<strong>${name}</strong> (${escapeHtml(r.code)})<br/>Tier: ${TIER_LABELS[r.tier]} · score ${r.score.toFixed(2)}${mark ? `<br/>${mark}` : ''}`;
+          if (!r) return `${name}<br/>${escapeHtml(t('tooltipNoTier'))}`;
+          const mark = words.confidence(r.confidence);
+          const line = t('tooltipTier', { tier: words.tier(r.tier), score: words.score(r.score) });
+          return `<strong>${name}</strong> (${escapeHtml(r.code)})<br/>${escapeHtml(line)}${mark ? `<br/>${escapeHtml(mark)}` : ''}`;
         },
       },
       visualMap: {
         type: 'piecewise' as const,
         dimension: 0,
-        pieces: TIER_SCALE.map((t) => ({ value: t.index, label: t.label, color: t.colour })),
+        pieces: TIERS.map((tier, index) => ({ value: index, label: words.tier(tier), color: TIER_COLOURS[tier] })),
         orient: 'horizontal',
         left: 'center',
         bottom: 0,
-        itemGap: 12,
-        textStyle: { color: '#1d2026', fontFamily: 'Lato, sans-serif' },
+        itemGap: 8,
+        itemWidth: 14,
+        itemHeight: 12,
+        textStyle: { color: '#1d2026', fontFamily: 'Lato, sans-serif', fontSize: 11 },
         outOfRange: { color: '#e9e7e2' },
         selectedMode: false,
       },
@@ -72,7 +78,7 @@ export default function RegionMapChart({ boundaries, rows }: { boundaries: Bound
             fontFamily: 'Lato, sans-serif',
             formatter: (p: any) => {
               const r = byId.get(p.name);
-              return r ? `${r.code}\n${TIER_LABELS[r.tier]}` : '';
+              return r ? `${r.code}\n${words.tier(r.tier)}` : '';
             },
           },
           data: boundaries.features.map((f) => {
@@ -85,7 +91,7 @@ export default function RegionMapChart({ boundaries, rows }: { boundaries: Bound
       ],
     };
     // mapKey: a new registration of the GeoJSON must redraw.
-  }, [boundaries, byId, mapKey]);
+  }, [boundaries, byId, mapKey, t, words]);
 
   const onEvents = useMemo(
     () => ({

@@ -1,6 +1,8 @@
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { ChartFigure } from '../../../components/chart/chart-figure';
 import { SeriesTable } from '../../../components/chart/series-table';
+import { useLadderWords } from '../../ladder/ladder-format';
+import { channelMethodText } from '../district-file-format';
 import { axisTooltip, baseGrid, categoryAxis, GREY, INDIGO, INDIGO_PALE, INK, lastIndexWithValue, legend, valueAxis } from './chart-style';
 
 type Cases = DistrictFileResponse['cases'][number];
@@ -9,60 +11,80 @@ type Cases = DistrictFileResponse['cases'][number];
 const PRIOR_SHOWN = 3;
 
 export function CasesChart({ cases, seasonYear }: { cases: Cases; seasonYear: number }) {
+  const words = useLadderWords();
+  const { t, f } = words;
   const { weeks, counts, channel, priorSeasons } = cases;
-  const labels = weeks.map((w) => `W${w}`);
+  const labels = weeks.map((w) => t('district-file:weekShort', { week: w }));
   const last = lastIndexWithValue(counts);
   const band = weeks.map((_, i) => (channel.lower[i] === null || channel.upper[i] === null ? null : channel.upper[i]! - channel.lower[i]!));
   const priors = [...priorSeasons].sort((a, b) => b.year - a.year).slice(0, PRIOR_SHOWN);
-  let zone = '';
+  let zone: 'above' | 'below' | 'within' | null = null;
   if (last >= 0 && channel.upper[last] !== null && channel.lower[last] !== null) {
     const c = counts[last]!;
-    zone = c > channel.upper[last]! ? ' above the channel' : c < channel.lower[last]! ? ' below the channel' : ' within the channel';
+    zone = c > channel.upper[last]! ? 'above' : c < channel.lower[last]! ? 'below' : 'within';
   }
+  const names = {
+    cases: t('district-file:cases.series.cases', { year: seasonYear }),
+    lower: t('district-file:cases.series.lower'),
+    band: t('district-file:cases.series.band'),
+    centre: t('district-file:cases.series.centre'),
+    upper: t('district-file:cases.series.upper'),
+  };
   const summary =
     last < 0
-      ? `No ${cases.diseaseName} counts for ${seasonYear} yet.`
-      : `Weekly ${cases.diseaseName} cases in ${seasonYear} (bars) against the endemic channel from prior seasons (${channel.method}): ` +
-        `the shaded band runs from its lower to its upper line, the dashed line is its centre. ` +
-        `Week ${weeks[last]} had ${counts[last]} case${counts[last] === 1 ? '' : 's'}${zone}.` +
-        (priors.length ? ` Thin grey lines: ${priors.map((p) => p.year).join(', ')}.` : '');
+      ? t('district-file:cases.none', { disease: cases.diseaseName, year: seasonYear })
+      : [
+          t('district-file:cases.summary', { disease: cases.diseaseName, year: seasonYear, method: channelMethodText(words, channel.method) }),
+          t(zone ? `district-file:cases.lastWeek.${zone}` : 'district-file:cases.lastWeek.plain', { week: weeks[last], count: counts[last]!, cases: f.number(counts[last]) }),
+          priors.length ? t('district-file:cases.priors', { years: priors.map((p) => p.year).join(t('district-file:listSeparator')) }) : '',
+        ]
+          .filter(Boolean)
+          .join(' ');
   return (
     <ChartFigure
-      title={`Weekly cases against the endemic channel — ${cases.diseaseName}`}
+      title={t('district-file:cases.title', { disease: cases.diseaseName })}
       summary={summary}
       height="18rem"
       option={{
         grid: baseGrid,
-        legend: { ...legend, data: [`${seasonYear} cases`, 'Channel (lower–upper)', 'Channel centre', ...priors.map((p) => String(p.year))] },
+        legend: { ...legend, data: [names.cases, names.band, names.centre, ...priors.map((p) => String(p.year))] },
         tooltip: {
           ...axisTooltip,
           formatter: (params: any) => {
             const i = Array.isArray(params) ? params[0]?.dataIndex : params?.dataIndex;
             if (i === undefined) return '';
             const lines = [
-              `Week ${weeks[i]}`,
-              `${seasonYear}: ${counts[i] ?? '—'} cases`,
-              `Channel ${channel.lower[i] ?? '—'}–${channel.upper[i] ?? '—'} (centre ${channel.centre[i] ?? '—'})`,
-              ...priors.map((p) => `${p.year}: ${p.counts[i] ?? '—'}`),
+              t('district-file:cases.week', { week: weeks[i] }),
+              t('district-file:cases.tooltipCases', { year: seasonYear, cases: f.number(counts[i]) }),
+              t('district-file:cases.tooltipChannel', { lower: f.number(channel.lower[i], 1), upper: f.number(channel.upper[i], 1), centre: f.number(channel.centre[i], 1) }),
+              ...priors.map((p) => `${p.year}: ${f.number(p.counts[i])}`),
             ];
             return lines.join('<br/>');
           },
         },
         xAxis: categoryAxis(labels),
-        yAxis: valueAxis('cases', { min: 0 }),
+        yAxis: valueAxis(t('district-file:cases.axis'), { min: 0 }),
         series: [
-          { type: 'line', name: 'Channel lower', stack: 'channel', data: channel.lower, showSymbol: false, lineStyle: { color: GREY, width: 1 }, silent: true },
-          { type: 'line', name: 'Channel (lower–upper)', stack: 'channel', data: band, showSymbol: false, lineStyle: { color: GREY, width: 1 }, areaStyle: { color: INDIGO_PALE }, itemStyle: { color: INDIGO_PALE }, silent: true },
-          { type: 'line', name: 'Channel centre', data: channel.centre, showSymbol: false, lineStyle: { color: INDIGO, width: 1.5, type: 'dashed' }, itemStyle: { color: INDIGO } },
+          { type: 'line', name: names.lower, stack: 'channel', data: channel.lower, showSymbol: false, lineStyle: { color: GREY, width: 1 }, silent: true },
+          { type: 'line', name: names.band, stack: 'channel', data: band, showSymbol: false, lineStyle: { color: GREY, width: 1 }, areaStyle: { color: INDIGO_PALE }, itemStyle: { color: INDIGO_PALE }, silent: true },
+          { type: 'line', name: names.centre, data: channel.centre, showSymbol: false, lineStyle: { color: INDIGO, width: 1.5, type: 'dashed' }, itemStyle: { color: INDIGO } },
           ...priors.map((p) => ({ type: 'line' as const, name: String(p.year), data: p.counts, showSymbol: false, lineStyle: { color: GREY, width: 1, type: 'dotted' as const }, itemStyle: { color: GREY } })),
-          { type: 'bar', name: `${seasonYear} cases`, data: counts, itemStyle: { color: INK }, barMaxWidth: 10 },
+          { type: 'bar', name: names.cases, data: counts, itemStyle: { color: INK }, barMaxWidth: 10 },
         ],
       }}
       table={
         <SeriesTable
-          caption={`Weekly ${cases.diseaseName} cases and the endemic channel`}
-          header={['Week', `${seasonYear} cases`, 'Channel lower', 'Channel centre', 'Channel upper', ...priors.map((p) => String(p.year))]}
-          rows={weeks.map((w, i) => [`Week ${w}`, counts[i], channel.lower[i], channel.centre[i], channel.upper[i], ...priors.map((p) => p.counts[i])])}
+          caption={t('district-file:cases.tableCaption', { disease: cases.diseaseName })}
+          header={[t('district-file:table.week'), names.cases, names.lower, names.centre, names.upper, ...priors.map((p) => String(p.year))]}
+          rows={weeks.map((w, i) => [
+            t('district-file:cases.week', { week: w }),
+            f.number(counts[i]),
+            f.number(channel.lower[i], 1),
+            f.number(channel.centre[i], 1),
+            f.number(channel.upper[i], 1),
+            ...priors.map((p) => f.number(p.counts[i])),
+          ])}
+          emptyText={t('district-file:table.empty')}
         />
       }
     />

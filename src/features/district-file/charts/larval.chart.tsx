@@ -1,41 +1,63 @@
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { ChartFigure } from '../../../components/chart/chart-figure';
 import { SeriesTable } from '../../../components/chart/series-table';
+import { useLadderWords } from '../../ladder/ladder-format';
 import { axisTooltip, baseGrid, categoryAxis, INDIGO, INK, legend, PLUM, round, valueAxis } from './chart-style';
 
 type Larval = DistrictFileResponse['larval'];
 
 export function LarvalChart({ larval }: { larval: Larval }) {
+  const words = useLadderWords();
+  const { t, f } = words;
   const weeks = [...larval].sort((a, b) => a.epiYear - b.epiYear || a.epiWeek - b.epiWeek);
-  const labels = weeks.map((w) => `${w.epiYear} W${w.epiWeek}`);
+  const labels = weeks.map((w) => t('epiWeekShort', { ns: 'common', week: w.epiWeek, year: w.epiYear }));
   const last = weeks[weeks.length - 1];
+  const n1 = (x: number | null) => f.number(x, 1);
   const summary = last
-    ? `House, Container and Breteau indices from larval surveys, by week (${weeks.length} week${weeks.length === 1 ? '' : 's'} with surveys). ` +
-      `In week ${last.epiWeek} of ${last.epiYear} (${last.surveys} survey${last.surveys === 1 ? '' : 's'}): House ${round(last.house) ?? '—'}%, Container ${round(last.container) ?? '—'}%, Breteau ${round(last.breteau) ?? '—'}.`
-    : 'No larval surveys this season.';
+    ? [
+        t('district-file:larval.summary', { count: weeks.length }),
+        t('district-file:larval.lastWeek', {
+          week: words.week(last.epiYear, last.epiWeek),
+          count: last.surveys,
+          surveys: f.number(last.surveys),
+          house: n1(last.house),
+          container: n1(last.container),
+          breteau: n1(last.breteau),
+        }),
+      ].join(' ')
+    : t('district-file:larval.none');
+  const names = { house: t('district-file:larval.series.house'), container: t('district-file:larval.series.container'), breteau: t('district-file:larval.series.breteau') };
   return (
     <ChartFigure
-      title="Larval indices"
+      title={t('district-file:larval.title')}
       summary={summary}
-      emptyText={weeks.length === 0 ? 'No larval surveys yet this season.' : null}
+      emptyText={weeks.length === 0 ? t('district-file:larval.empty') : null}
       height="16rem"
       option={{
         grid: baseGrid,
         legend,
         tooltip: axisTooltip,
         xAxis: categoryAxis(labels),
-        yAxis: valueAxis('index', { min: 0 }),
+        yAxis: valueAxis(t('district-file:larval.axis'), { min: 0 }),
         series: [
-          { type: 'line', name: 'House index (%)', data: weeks.map((w) => round(w.house)), symbol: 'circle', symbolSize: 7, lineStyle: { color: INK, width: 1.5 }, itemStyle: { color: INK } },
-          { type: 'line', name: 'Container index (%)', data: weeks.map((w) => round(w.container)), symbol: 'rect', symbolSize: 7, lineStyle: { color: INDIGO, width: 1.5, type: 'dashed' }, itemStyle: { color: INDIGO } },
-          { type: 'line', name: 'Breteau index', data: weeks.map((w) => round(w.breteau)), symbol: 'triangle', symbolSize: 8, lineStyle: { color: PLUM, width: 1.5, type: 'dotted' }, itemStyle: { color: PLUM } },
+          { type: 'line', name: names.house, data: weeks.map((w) => round(w.house)), symbol: 'circle', symbolSize: 7, lineStyle: { color: INK, width: 1.5 }, itemStyle: { color: INK } },
+          { type: 'line', name: names.container, data: weeks.map((w) => round(w.container)), symbol: 'rect', symbolSize: 7, lineStyle: { color: INDIGO, width: 1.5, type: 'dashed' }, itemStyle: { color: INDIGO } },
+          { type: 'line', name: names.breteau, data: weeks.map((w) => round(w.breteau)), symbol: 'triangle', symbolSize: 8, lineStyle: { color: PLUM, width: 1.5, type: 'dotted' }, itemStyle: { color: PLUM } },
         ],
       }}
       table={
         <SeriesTable
-          caption="Larval indices by week"
-          header={['Week', 'Surveys', 'House index %', 'Container index %', 'Breteau index', 'Pupae per person']}
-          rows={weeks.map((w, i) => [labels[i], w.surveys, round(w.house), round(w.container), round(w.breteau), round(w.pupa, 2)])}
+          caption={t('district-file:larval.tableCaption')}
+          header={[
+            t('district-file:table.week'),
+            t('district-file:larval.surveysColumn'),
+            names.house,
+            names.container,
+            names.breteau,
+            t('district-file:larval.pupaColumn'),
+          ]}
+          rows={weeks.map((w, i) => [labels[i], f.number(w.surveys), n1(w.house), n1(w.container), n1(w.breteau), f.number(w.pupa, 2)])}
+          emptyText={t('district-file:table.empty')}
         />
       }
     />

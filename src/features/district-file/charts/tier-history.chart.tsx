@@ -1,7 +1,8 @@
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
-import { DRIVER_LABELS, DRIVERS, TIER_LABELS, type DriverId } from '../../../../shared/tier';
+import { DRIVERS, type DriverId } from '../../../../shared/tier';
 import { ChartFigure } from '../../../components/chart/chart-figure';
 import { SeriesTable } from '../../../components/chart/series-table';
+import { useLadderWords } from '../../ladder/ladder-format';
 import { axisTooltip, baseGrid, categoryAxis, GREY, INDIGO, INDIGO_LIGHT, INK, legend, PLUM, valueAxis } from './chart-style';
 
 type TierWeek = DistrictFileResponse['tiers'][number];
@@ -10,19 +11,25 @@ type TierWeek = DistrictFileResponse['tiers'][number];
 const DRIVER_COLOURS: Record<DriverId, string> = { cases: INK, climate: INDIGO, vectorClock: PLUM, larval: INDIGO_LIGHT };
 
 export function TierHistoryChart({ tiers }: { tiers: readonly TierWeek[] }) {
-  const labels = tiers.map((t) => `W${t.epiWeek}`);
+  const w = useLadderWords();
+  const { t, f } = w;
+  const n2 = (x: number) => f.number(x, 2, true);
+  const labels = tiers.map((x) => t('district-file:weekShort', { week: x.epiWeek }));
   const contribution = (t: TierWeek, d: DriverId) => t.drivers.find((x) => x.id === d)?.contribution ?? 0;
   const last = tiers[tiers.length - 1];
-  const changes = tiers.filter((t, i) => i > 0 && t.tier !== tiers[i - 1].tier).length;
+  const changes = tiers.filter((x, i) => i > 0 && x.tier !== tiers[i - 1].tier).length;
   const summary = last
-    ? `The tier score each week (${tiers.length} weeks), stacked by the contribution of each driver. ` +
-      `Week ${last.epiWeek} stands at ${TIER_LABELS[last.tier]} (score ${last.score.toFixed(2)}); the tier changed ${changes} time${changes === 1 ? '' : 's'} this season.`
-    : 'No tier has been computed for this season yet.';
+    ? [
+        t('district-file:tierHistory.summary', { count: tiers.length }),
+        t('district-file:tierHistory.lastWeek', { week: last.epiWeek, tier: w.tier(last.tier), score: n2(last.score) }),
+        t('district-file:tierHistory.changes', { count: changes }),
+      ].join(' ')
+    : t('district-file:tierHistory.none');
   return (
     <ChartFigure
-      title="Tier history and its drivers"
+      title={t('district-file:tierHistory.title')}
       summary={summary}
-      emptyText={tiers.length === 0 ? 'No tier history yet for this season.' : null}
+      emptyText={tiers.length === 0 ? t('district-file:tierHistory.empty') : null}
       height="18rem"
       option={{
         grid: baseGrid,
@@ -31,29 +38,29 @@ export function TierHistoryChart({ tiers }: { tiers: readonly TierWeek[] }) {
           ...axisTooltip,
           formatter: (params: any) => {
             const i = Array.isArray(params) ? params[0]?.dataIndex : params?.dataIndex;
-            const t = i === undefined ? undefined : tiers[i];
-            if (!t) return '';
+            const x = i === undefined ? undefined : tiers[i];
+            if (!x) return '';
             return [
-              `Week ${t.epiWeek} of ${t.epiYear}: <strong>${TIER_LABELS[t.tier]}</strong> (score ${t.score.toFixed(2)})`,
-              ...DRIVERS.map((d) => `${DRIVER_LABELS[d]}: ${contribution(t, d).toFixed(2)}`),
+              t('district-file:tierHistory.tooltip', { week: t('common:epiWeek', { week: x.epiWeek, year: x.epiYear }), tier: `<strong>${w.tier(x.tier)}</strong>`, score: n2(x.score) }),
+              ...DRIVERS.map((d) => `${w.driver(d)}: ${n2(contribution(x, d))}`),
             ].join('<br/>');
           },
         },
         xAxis: categoryAxis(labels),
-        yAxis: valueAxis('score', { min: 0, max: 1 }),
+        yAxis: valueAxis(t('district-file:tierHistory.axis'), { min: 0, max: 1 }),
         series: [
           ...DRIVERS.map((d) => ({
             type: 'bar' as const,
-            name: DRIVER_LABELS[d],
+            name: w.driver(d),
             stack: 'score',
-            data: tiers.map((t) => contribution(t, d)),
+            data: tiers.map((x) => contribution(x, d)),
             itemStyle: { color: DRIVER_COLOURS[d], borderColor: '#ffffff', borderWidth: 0.5 },
             barMaxWidth: 14,
           })),
           {
             type: 'line' as const,
-            name: 'Score',
-            data: tiers.map((t) => t.score),
+            name: t('district-file:tierHistory.scoreSeries'),
+            data: tiers.map((x) => x.score),
             step: 'middle' as const,
             symbol: 'none',
             lineStyle: { color: GREY, width: 1.5, type: 'dashed' as const },
@@ -63,15 +70,22 @@ export function TierHistoryChart({ tiers }: { tiers: readonly TierWeek[] }) {
       }}
       table={
         <SeriesTable
-          caption="Tier history by week"
-          header={['Week', 'Tier', 'Range', 'Score', ...DRIVERS.map((d) => DRIVER_LABELS[d])]}
-          rows={tiers.map((t) => [
-            `Week ${t.epiWeek} of ${t.epiYear}`,
-            TIER_LABELS[t.tier],
-            t.tierLow === t.tierHigh ? '' : `${TIER_LABELS[t.tierLow]}–${TIER_LABELS[t.tierHigh]}`,
-            t.score.toFixed(2),
-            ...DRIVERS.map((d) => contribution(t, d).toFixed(2)),
+          caption={t('district-file:tierHistory.tableCaption')}
+          header={[
+            t('district-file:table.week'),
+            t('ladder:table.columns.tier'),
+            t('district-file:tierHistory.rangeColumn'),
+            t('ladder:table.columns.score'),
+            ...DRIVERS.map((d) => w.driver(d)),
+          ]}
+          rows={tiers.map((x) => [
+            t('common:epiWeek', { week: x.epiWeek, year: x.epiYear }),
+            w.tier(x.tier),
+            w.range(x) ?? '',
+            n2(x.score),
+            ...DRIVERS.map((d) => n2(contribution(x, d))),
           ])}
+          emptyText={t('district-file:table.empty')}
         />
       }
     />

@@ -1,7 +1,8 @@
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { ChartFigure } from '../../../components/chart/chart-figure';
 import { SeriesTable } from '../../../components/chart/series-table';
-import { formatDay } from '../../ladder/ladder-format';
+import { useUnits } from '../../../lib/units';
+import { useLadderWords } from '../../ladder/ladder-format';
 import {
   axisTooltip,
   baseGrid,
@@ -12,7 +13,6 @@ import {
   INK,
   lastIndexWithValue,
   legend,
-
   pairs,
   PLUM,
   round,
@@ -40,40 +40,52 @@ export function generationDays(vc: Pick<VectorClock, 'dates' | 'generations'>): 
 const shiftToYear = (dates: readonly string[], year: number) => dates.map((d) => `${year}${d.slice(4)}`).filter((d) => !d.endsWith('-02-29'));
 
 export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock; seasonYear: number; compared?: { year: number; vc: VectorClock } | null }) {
+  const { t, f } = useLadderWords();
+  const u = useUnits();
+  /** Degree-days are a temperature difference × days: °C·d → °F·d without an offset. */
+  const dd = (x: number | null | undefined) => (x === null || x === undefined ? null : u.toTemperatureDelta(x));
+  const ddUnit = u.degreeDaySymbol;
   const gens = generationDays(vc);
   const last = lastIndexWithValue(vc.cumulativeDegreeDays);
   const comparedSeries = compared
     ? (() => {
         const keep = compared.vc.dates.map((d, i) => (d.endsWith('-02-29') ? -1 : i)).filter((i) => i >= 0);
         const dates = shiftToYear(compared.vc.dates, seasonYear);
-        return dates.map((d, j) => [d, compared.vc.cumulativeDegreeDays[keep[j]] ?? null] as [string, number | null]);
+        return dates.map((d, j) => [d, round(dd(compared.vc.cumulativeDegreeDays[keep[j]]), 1)] as [string, number | null]);
       })()
     : null;
   const comparedLast = compared ? lastIndexWithValue(compared.vc.cumulativeDegreeDays) : -1;
   const summary =
     last < 0
-      ? 'No heat accumulation for this season yet.'
-      : `Degree-days accumulated since the biofix reached ${round(vc.cumulativeDegreeDays[last], 0)} by ${formatDay(vc.dates[last])}, ` +
-        `with ${gens.length} generation${gens.length === 1 ? '' : 's'} completed` +
-        (gens.length ? ` (the latest on ${formatDay(gens[gens.length - 1].date)}).` : '.') +
-        (compared && comparedLast >= 0 ? ` The dashed line is ${compared.year} on the same calendar, which reached ${round(compared.vc.cumulativeDegreeDays[comparedLast], 0)} by its end.` : '');
+      ? t('district-file:degreeDays.none')
+      : [
+          t('district-file:degreeDays.summary', { value: f.number(dd(vc.cumulativeDegreeDays[last]), 0), unit: ddUnit, day: f.date(vc.dates[last]) }),
+          gens.length
+            ? t('district-file:degreeDays.generationsLatest', { count: gens.length, day: f.date(gens[gens.length - 1].date) })
+            : t('district-file:degreeDays.generations', { count: gens.length }),
+          compared && comparedLast >= 0
+            ? t('district-file:degreeDays.compared', { year: compared.year, value: f.number(dd(compared.vc.cumulativeDegreeDays[comparedLast]), 0), unit: ddUnit })
+            : '',
+        ]
+          .filter(Boolean)
+          .join(' ');
   return (
     <ChartFigure
-      title={`Heat accumulation — ${vc.profileName}`}
+      title={t('district-file:degreeDays.title', { profile: vc.profileName })}
       summary={summary}
-      emptyText={last < 0 ? 'No heat accumulation yet for this season.' : null}
+      emptyText={last < 0 ? t('district-file:degreeDays.empty') : null}
       height="16rem"
       option={{
         grid: baseGrid,
         legend,
         tooltip: axisTooltip,
         xAxis: timeAxis,
-        yAxis: valueAxis('degree-days'),
+        yAxis: valueAxis(t('district-file:degreeDays.axis', { unit: ddUnit })),
         series: [
           {
             type: 'line',
-            name: `${seasonYear} cumulative degree-days`,
-            data: pairs(vc.dates, vc.cumulativeDegreeDays),
+            name: t('district-file:degreeDays.series', { year: seasonYear }),
+            data: pairs(vc.dates, vc.cumulativeDegreeDays.map((x) => round(dd(x), 1))),
             showSymbol: false,
             lineStyle: { color: INDIGO, width: 2 },
             itemStyle: { color: INDIGO },
@@ -81,20 +93,26 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
               symbol: 'none',
               silent: true,
               lineStyle: { color: PLUM, type: 'dotted', width: 1 },
-              label: { ...FONT, color: PLUM, fontSize: 10, formatter: (p: any) => `gen ${p.data?.generation ?? ''}` },
+              label: { ...FONT, color: PLUM, fontSize: 10, formatter: (p: any) => t('district-file:degreeDays.genMark', { generation: p.data?.generation ?? '' }) },
               data: gens.map((g) => ({ xAxis: g.date, generation: g.generation }) as any),
             },
           },
           ...(comparedSeries
-            ? [{ type: 'line' as const, name: `${compared!.year} cumulative degree-days`, data: comparedSeries, showSymbol: false, lineStyle: { color: GREY, width: 1.5, type: 'dashed' as const }, itemStyle: { color: GREY } }]
+            ? [{ type: 'line' as const, name: t('district-file:degreeDays.series', { year: compared!.year }), data: comparedSeries, showSymbol: false, lineStyle: { color: GREY, width: 1.5, type: 'dashed' as const }, itemStyle: { color: GREY } }]
             : []),
         ],
       }}
       table={
         <SeriesTable
-          caption={`Heat accumulation, ${vc.profileName} (one row a week)`}
-          header={['Day', 'Cumulative degree-days', 'Generations', 'Season open']}
-          rows={weeklyIndexes(vc.dates.length).map((i) => [vc.dates[i], round(vc.cumulativeDegreeDays[i], 0), round(vc.generations[i], 2), vc.seasonOpen[i] ? 'yes' : 'no'])}
+          caption={t('district-file:degreeDays.tableCaption', { profile: vc.profileName })}
+          header={[t('district-file:table.day'), t('district-file:degreeDays.column', { unit: ddUnit }), t('district-file:degreeDays.generationsColumn'), t('district-file:degreeDays.seasonOpenColumn')]}
+          rows={weeklyIndexes(vc.dates.length).map((i) => [
+            f.date(vc.dates[i]),
+            f.number(dd(vc.cumulativeDegreeDays[i]), 0),
+            f.number(vc.generations[i], 2),
+            vc.seasonOpen[i] ? t('district-file:yes') : t('district-file:no'),
+          ])}
+          emptyText={t('district-file:table.empty')}
         />
       }
     />
@@ -102,29 +120,30 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
 }
 
 export function EipChart({ vc }: { vc: VectorClock }) {
+  const { t, f } = useLadderWords();
   const last = lastIndexWithValue(vc.eipDays);
   const summary =
     last < 0
-      ? 'No extrinsic incubation estimate for this season yet.'
-      : `On ${formatDay(vc.dates[last])} the extrinsic incubation period was ${round(vc.eipDays[last])} days (left scale) and ` +
-        `${round((vc.survivalThroughEip[last] ?? 0) * 100, 0)}% of infected mosquitoes would be expected to survive it (right scale).`;
+      ? t('district-file:eip.none')
+      : t('district-file:eip.summary', { day: f.date(vc.dates[last]), days: f.number(vc.eipDays[last], 1), survival: f.percent(vc.survivalThroughEip[last] ?? 0) });
+  const names = { eip: t('district-file:eip.series.eip'), survival: t('district-file:eip.series.survival') };
   return (
     <ChartFigure
-      title={`Vector clock — ${vc.profileName}`}
+      title={t('district-file:eip.title', { profile: vc.profileName })}
       summary={summary}
-      emptyText={last < 0 ? 'No vector clock yet for this season.' : null}
+      emptyText={last < 0 ? t('district-file:eip.empty') : null}
       height="16rem"
       option={{
         grid: baseGrid,
         legend,
         tooltip: axisTooltip,
         xAxis: timeAxis,
-        yAxis: [valueAxis('EIP days'), valueAxis('survival %', { min: 0, max: 100, splitLine: { show: false } })],
+        yAxis: [valueAxis(t('district-file:eip.axisLeft')), valueAxis(t('district-file:eip.axisRight'), { min: 0, max: 100, splitLine: { show: false } })],
         series: [
-          { type: 'line', name: 'EIP (days)', data: pairs(vc.dates, vc.eipDays), showSymbol: false, lineStyle: { color: INK, width: 1.5 }, itemStyle: { color: INK } },
+          { type: 'line', name: names.eip, data: pairs(vc.dates, vc.eipDays), showSymbol: false, lineStyle: { color: INK, width: 1.5 }, itemStyle: { color: INK } },
           {
             type: 'line',
-            name: 'Survival through the EIP (%)',
+            name: names.survival,
             yAxisIndex: 1,
             data: pairs(vc.dates, vc.survivalThroughEip.map((s) => (s === null ? null : round(s * 100, 1)))),
             showSymbol: false,
@@ -135,14 +154,15 @@ export function EipChart({ vc }: { vc: VectorClock }) {
       }}
       table={
         <SeriesTable
-          caption={`Vector clock, ${vc.profileName} (one row a week)`}
-          header={['Day', 'EIP days', 'Survival through the EIP %', 'Estimate complete']}
+          caption={t('district-file:eip.tableCaption', { profile: vc.profileName })}
+          header={[t('district-file:table.day'), t('district-file:eip.column'), t('district-file:eip.survivalColumn'), t('district-file:eip.completeColumn')]}
           rows={weeklyIndexes(vc.dates.length).map((i) => [
-            vc.dates[i],
-            round(vc.eipDays[i]),
-            vc.survivalThroughEip[i] === null ? null : round(vc.survivalThroughEip[i]! * 100, 1),
-            vc.complete[i] ? 'yes' : 'no',
+            f.date(vc.dates[i]),
+            f.number(vc.eipDays[i], 1),
+            vc.survivalThroughEip[i] === null ? null : f.number(vc.survivalThroughEip[i]! * 100, 1),
+            vc.complete[i] ? t('district-file:yes') : t('district-file:no'),
           ])}
+          emptyText={t('district-file:table.empty')}
         />
       }
     />
@@ -150,43 +170,46 @@ export function EipChart({ vc }: { vc: VectorClock }) {
 }
 
 export function RvcChart({ vc }: { vc: VectorClock }) {
+  const { t, f } = useLadderWords();
   const last = lastIndexWithValue(vc.rvc);
   const band = vc.rvc.map((_, i) => (vc.rvcLow[i] === null || vc.rvcHigh[i] === null ? null : vc.rvcHigh[i]! - vc.rvcLow[i]!));
+  const n2 = (x: number | null | undefined) => f.number(x, 2, true);
   const summary =
     last < 0
-      ? 'No relative vectorial capacity for this season yet.'
-      : `Relative vectorial capacity (1 = the profile’s optimum) was ${round(vc.rvc[last], 2)} on ${formatDay(vc.dates[last])}, ` +
-        `between a low estimate of ${round(vc.rvcLow[last], 2) ?? '—'} and a high of ${round(vc.rvcHigh[last], 2) ?? '—'}; the shaded band spans low to high.`;
+      ? t('district-file:rvc.none')
+      : t('district-file:rvc.summary', { value: n2(vc.rvc[last]), day: f.date(vc.dates[last]), low: n2(vc.rvcLow[last]), high: n2(vc.rvcHigh[last]) });
+  const names = { low: t('district-file:rvc.series.low'), band: t('district-file:rvc.series.band'), central: t('district-file:rvc.series.central') };
   return (
     <ChartFigure
-      title={`Relative vectorial capacity — ${vc.profileName}`}
+      title={t('district-file:rvc.title', { profile: vc.profileName })}
       summary={summary}
-      emptyText={last < 0 ? 'No relative vectorial capacity yet for this season.' : null}
+      emptyText={last < 0 ? t('district-file:rvc.empty') : null}
       height="16rem"
       option={{
         grid: baseGrid,
-        legend: { ...legend, data: ['Central estimate', 'Low–high range'] },
+        legend: { ...legend, data: [names.central, names.band] },
         tooltip: {
           ...axisTooltip,
           formatter: (params: any) => {
             const i = Array.isArray(params) ? params[0]?.dataIndex : params?.dataIndex;
             if (i === undefined) return '';
-            return `${formatDay(vc.dates[i])}<br/>Central ${round(vc.rvc[i], 2) ?? '—'}<br/>Low ${round(vc.rvcLow[i], 2) ?? '—'} · high ${round(vc.rvcHigh[i], 2) ?? '—'}`;
+            return [f.date(vc.dates[i]), t('district-file:rvc.tooltipCentral', { value: n2(vc.rvc[i]) }), t('district-file:rvc.tooltipRange', { low: n2(vc.rvcLow[i]), high: n2(vc.rvcHigh[i]) })].join('<br/>');
           },
         },
         xAxis: timeAxis,
-        yAxis: valueAxis('relative to optimum', { min: 0 }),
+        yAxis: valueAxis(t('district-file:rvc.axis'), { min: 0 }),
         series: [
-          { type: 'line', name: 'Low', stack: 'range', data: pairs(vc.dates, vc.rvcLow), showSymbol: false, lineStyle: { opacity: 0 }, silent: true, tooltip: { show: false } },
-          { type: 'line', name: 'Low–high range', stack: 'range', data: pairs(vc.dates, band), showSymbol: false, lineStyle: { opacity: 0 }, areaStyle: { color: INDIGO_PALE }, itemStyle: { color: INDIGO_PALE }, silent: true },
-          { type: 'line', name: 'Central estimate', data: pairs(vc.dates, vc.rvc), showSymbol: false, lineStyle: { color: INDIGO, width: 2 }, itemStyle: { color: INDIGO } },
+          { type: 'line', name: names.low, stack: 'range', data: pairs(vc.dates, vc.rvcLow), showSymbol: false, lineStyle: { opacity: 0 }, silent: true, tooltip: { show: false } },
+          { type: 'line', name: names.band, stack: 'range', data: pairs(vc.dates, band), showSymbol: false, lineStyle: { opacity: 0 }, areaStyle: { color: INDIGO_PALE }, itemStyle: { color: INDIGO_PALE }, silent: true },
+          { type: 'line', name: names.central, data: pairs(vc.dates, vc.rvc), showSymbol: false, lineStyle: { color: INDIGO, width: 2 }, itemStyle: { color: INDIGO } },
         ],
       }}
       table={
         <SeriesTable
-          caption={`Relative vectorial capacity, ${vc.profileName} (one row a week)`}
-          header={['Day', 'Low', 'Central', 'High']}
-          rows={weeklyIndexes(vc.dates.length).map((i) => [vc.dates[i], round(vc.rvcLow[i], 2), round(vc.rvc[i], 2), round(vc.rvcHigh[i], 2)])}
+          caption={t('district-file:rvc.tableCaption', { profile: vc.profileName })}
+          header={[t('district-file:table.day'), t('district-file:rvc.lowColumn'), t('district-file:rvc.centralColumn'), t('district-file:rvc.highColumn')]}
+          rows={weeklyIndexes(vc.dates.length).map((i) => [f.date(vc.dates[i]), n2(vc.rvcLow[i]), n2(vc.rvc[i]), n2(vc.rvcHigh[i])])}
+          emptyText={t('district-file:table.empty')}
         />
       }
     />

@@ -1,63 +1,104 @@
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
-import { DRIVER_LABELS, TIER_LABELS, tierRank } from '../../../../shared/tier';
+import { tierRank, type DriverId } from '../../../../shared/tier';
+import { HelpButton, type HelpTopic } from '../../help/help-button';
 import { TierBadge } from '../../ladder/components/tier-badge';
-import { CONFIDENCE_MARKS, tierChangeText } from '../../ladder/ladder-format';
-import { detailLabel, detailValue, fixed } from '../district-file-format';
+import { useLadderWords, type LadderWords } from '../../ladder/ladder-format';
+import { detailLabel, detailValue, fixed, tierNotes } from '../district-file-format';
 
 type TierWeek = DistrictFileResponse['tiers'][number];
 
+export const DRIVER_HELP: Record<DriverId, HelpTopic> = {
+  climate: 'climate',
+  vectorClock: 'vectorClockDriver',
+  larval: 'larvalDriver',
+  cases: 'caseSignal',
+};
+
 /** The tier of the newest week, the drivers behind it and what moved since the week before. */
-export function CurrentTier({ current, previous }: { current: TierWeek; previous: TierWeek | null }) {
-  const range = current.tierLow === current.tierHigh ? null : `${TIER_LABELS[current.tierLow]} to ${TIER_LABELS[current.tierHigh]}`;
-  const mark = CONFIDENCE_MARKS[current.confidence];
+export function CurrentTier({ current, previous, help = true }: { current: TierWeek; previous: TierWeek | null; help?: boolean }) {
+  const w = useLadderWords();
+  const { t } = w;
+  const range = current.tierLow === current.tierHigh ? null : t('district-file:tier.rangeText', { low: w.tier(current.tierLow), high: w.tier(current.tierHigh) });
+  const mark = w.confidence(current.confidence);
+  const Help = ({ topic }: { topic: HelpTopic }) => (help ? <HelpButton topic={topic} /> : null);
   return (
     <section aria-labelledby="current-tier-title" className="card space-y-4">
       <div>
         <h2 id="current-tier-title" className="section-title">
-          Tier for week {current.epiWeek} of {current.epiYear}
+          {t('district-file:tier.title', { week: w.week(current.epiYear, current.epiWeek) })}
         </h2>
         <p className="mt-2 flex flex-wrap items-center gap-x-3 gap-y-1">
           <TierBadge tier={current.tier} confidence={current.confidence} />
-          <span className="tabular-nums">score {current.score.toFixed(2)}</span>
-          {range ? <span className="text-ink-muted">range {range} (from the low and high estimates)</span> : null}
+          <Help topic="tier" />
+          <span className="tabular-nums">{t('district-file:tier.score', { score: w.score(current.score) })}</span>
+          {range ? (
+            <span className="inline-flex items-center gap-1.5">
+              <span className="text-ink-muted">{range}</span>
+              <Help topic="tierRange" />
+            </span>
+          ) : null}
         </p>
         {current.leadingDriver ? (
-          <p className="mt-1 text-sm">
-            Leading driver: <strong>{DRIVER_LABELS[current.leadingDriver]}</strong>
+          <p className="mt-1 flex flex-wrap items-center gap-1.5 text-sm">
+            <span>
+              {t('district-file:tier.leadingDriver')} <strong>{w.driver(current.leadingDriver)}</strong>
+            </span>
+            <Help topic="leadingDriver" />
           </p>
         ) : null}
         {mark ? (
-          <p className="mt-1 text-sm font-bold">
-            This tier rests on {mark}: read it as a rough guide until the inputs catch up (see the notes).
+          <p className="mt-1 flex flex-wrap items-center gap-1.5 text-sm font-bold">
+            <span>{t('district-file:tier.unsure', { mark })}</span>
+            <Help topic="confidence" />
           </p>
         ) : null}
       </div>
 
       <div className="table-wrap">
         <table className="data-table">
-          <caption className="table-caption">Drivers behind this tier</caption>
+          <caption className="table-caption">{t('district-file:drivers.caption')}</caption>
           <thead>
             <tr>
-              <th scope="col">Driver</th>
-              <th scope="col">Score (0–1)</th>
-              <th scope="col">Weight</th>
-              <th scope="col">Contribution</th>
-              <th scope="col">The data behind it</th>
+              <th scope="col">{t('district-file:drivers.driver')}</th>
+              <th scope="col">
+                <span className="th-with-help">
+                  {t('district-file:drivers.score')}
+                  <Help topic="driverScore" />
+                </span>
+              </th>
+              <th scope="col">
+                <span className="th-with-help">
+                  {t('district-file:drivers.weight')}
+                  <Help topic="weight" />
+                </span>
+              </th>
+              <th scope="col">
+                <span className="th-with-help">
+                  {t('district-file:drivers.contribution')}
+                  <Help topic="contribution" />
+                </span>
+              </th>
+              <th scope="col">{t('district-file:drivers.data')}</th>
             </tr>
           </thead>
           <tbody>
             {current.drivers.map((d) => (
               <tr key={d.id} data-driver={d.id}>
-                <th scope="row">{d.label || DRIVER_LABELS[d.id]}</th>
-                <td className="tabular-nums">{d.score === null ? 'no data' : d.score.toFixed(2)}</td>
-                <td className="tabular-nums">{d.weight.toFixed(2)}</td>
-                <td className="tabular-nums">{d.contribution.toFixed(2)}</td>
+                <th scope="row">
+                  <span className="th-with-help">
+                    <span>{w.driver(d.id)}</span>
+                    <Help topic={DRIVER_HELP[d.id]} />
+                  </span>
+                </th>
+                <td className="tabular-nums">{d.score === null ? t('district-file:noData') : w.score(d.score)}</td>
+                <td className="tabular-nums">{w.score(d.weight)}</td>
+                <td className="tabular-nums">{w.score(d.contribution)}</td>
                 <td>
                   <dl className="detail-list">
                     {Object.entries(d.detail).map(([k, v]) => (
                       <div key={k}>
-                        <dt>{detailLabel(k)}</dt>
-                        <dd>{detailValue(k, v)}</dd>
+                        <dt>{detailLabel(w, k)}</dt>
+                        <dd>{detailValue(w, k, v)}</dd>
                       </div>
                     ))}
                   </dl>
@@ -68,47 +109,57 @@ export function CurrentTier({ current, previous }: { current: TierWeek; previous
         </table>
       </div>
 
-      <WhatChanged current={current} previous={previous} />
+      <WhatChanged current={current} previous={previous} w={w} help={help} />
 
       <div>
-        <h3 className="text-base font-bold">Notes on the inputs</h3>
-        {current.notes.length === 0 ? (
-          <p className="mt-1 text-sm text-ink-muted">Every input is present and recent.</p>
-        ) : (
-          <ul className="mt-1 list-disc space-y-1 pl-5 text-sm">
-            {current.notes.map((n) => (
-              <li key={n}>{n}</li>
-            ))}
-          </ul>
-        )}
+        <h3 className="text-base font-bold">{t('district-file:notes.title')}</h3>
+        <NotesList tier={current} w={w} />
       </div>
     </section>
   );
 }
 
-function WhatChanged({ current, previous }: { current: TierWeek; previous: TierWeek | null }) {
-  let text: string;
-  if (!previous) text = 'There is no tier for the week before, so nothing to compare yet.';
-  else {
-    const steps = tierRank(current.tier) - tierRank(previous.tier);
-    const tierPart =
-      steps === 0
-        ? `The tier stayed at ${TIER_LABELS[current.tier]}`
-        : `The tier went ${tierChangeText(steps)}, from ${TIER_LABELS[previous.tier]} to ${TIER_LABELS[current.tier]}`;
-    const scorePart = ` (score ${previous.score.toFixed(2)} → ${current.score.toFixed(2)}).`;
-    const changed = current.changedDriver;
-    let driverPart = ' No single driver moved the score noticeably.';
-    if (changed) {
-      const now = current.drivers.find((d) => d.id === changed)?.contribution ?? 0;
-      const before = previous.drivers.find((d) => d.id === changed)?.contribution ?? 0;
-      driverPart = ` ${DRIVER_LABELS[changed]} moved it most: its contribution went from ${fixed(before)} to ${fixed(now)}.`;
-    }
-    text = tierPart + scorePart + driverPart;
+export function NotesList({ tier, w }: { tier: TierWeek; w: LadderWords }) {
+  const notes = tierNotes(w, tier);
+  return notes.length === 0 ? (
+    <p className="mt-1 text-sm text-ink-muted">{w.t('district-file:notes.none')}</p>
+  ) : (
+    <ul className="mt-1 list-disc space-y-1 pl-5 text-sm">
+      {notes.map((n) => (
+        <li key={n}>{n}</li>
+      ))}
+    </ul>
+  );
+}
+
+/** "The tier went up 1, from High to Critical (score 0.69 → 0.81). Case signal moved it most: …", built from the stored fields. */
+export function whatChangedText(w: LadderWords, current: TierWeek, previous: TierWeek | null): string {
+  const { t } = w;
+  if (!previous) return t('district-file:changed.noPrevious');
+  const steps = tierRank(current.tier) - tierRank(previous.tier);
+  const tierPart =
+    steps === 0
+      ? t('district-file:changed.stayed', { tier: w.tier(current.tier) })
+      : t('district-file:changed.moved', { change: w.change(steps), from: w.tier(previous.tier), to: w.tier(current.tier) });
+  const scorePart = t('district-file:changed.score', { before: w.score(previous.score), now: w.score(current.score) });
+  const changed = current.changedDriver;
+  let driverPart = t('district-file:changed.noDriver');
+  if (changed) {
+    const now = current.drivers.find((d) => d.id === changed)?.contribution ?? 0;
+    const before = previous.drivers.find((d) => d.id === changed)?.contribution ?? 0;
+    driverPart = t('district-file:changed.driver', { driver: w.driver(changed), before: fixed(w, before), now: fixed(w, now) });
   }
+  return `${tierPart} ${scorePart} ${driverPart}`;
+}
+
+function WhatChanged({ current, previous, w, help }: { current: TierWeek; previous: TierWeek | null; w: LadderWords; help: boolean }) {
   return (
     <div>
-      <h3 className="text-base font-bold">What changed since last week</h3>
-      <p className="mt-1 text-sm">{text}</p>
+      <h3 className="flex items-center gap-1.5 text-base font-bold">
+        <span>{w.t('district-file:changed.title')}</span>
+        {help ? <HelpButton topic="change" /> : null}
+      </h3>
+      <p className="mt-1 text-sm">{whatChangedText(w, current, previous)}</p>
     </div>
   );
 }

@@ -17,24 +17,16 @@ import {
   type SortFn,
 } from '@tanstack/react-table';
 import type { LadderRow } from '../../../../shared/api/board.schema';
-import { DRIVER_LABELS, TIER_LABELS, tierRank } from '../../../../shared/tier';
+import { tierRank } from '../../../../shared/tier';
+import { i18n } from '../../../i18n';
 import { downloadCsv, toCsv, type CsvCell } from '../../../lib/csv';
-import {
-  CONFIDENCE_MARKS,
-  driverLabel,
-  formatCount,
-  formatDay,
-  formatScore,
-  tierChangeArrow,
-  tierChangeText,
-  tierRangeText,
-  zoneLabel,
-} from '../ladder-format';
+import { HelpButton, type HelpTopic } from '../../help/help-button';
+import { currentLadderWords, tierChangeArrow, useLadderWords, type LadderWords } from '../ladder-format';
 import { useRowWindow } from '../use-row-window';
 import { TierBadge } from './tier-badge';
 
 /** What each Ladder column also knows: its plain name (column chooser) and its CSV value. */
-type LadderColumnMeta = { label: string; csv: (row: LadderRow) => CsvCell };
+type LadderColumnMeta = { label: string; csv: (row: LadderRow) => CsvCell; help?: HelpTopic };
 
 /** Tier first, then score within the tier: the order the server ranks by. */
 const byTierThenScore: SortFn<any, LadderRow> = (a, b) =>
@@ -42,7 +34,7 @@ const byTierThenScore: SortFn<any, LadderRow> = (a, b) =>
 
 /** One text filter over the words a person sees in a row: name, code, tier, drivers, zone. */
 const matchesRowText: FilterFn<any, LadderRow> = (row, _columnId, value: string) =>
-  searchText(row.original).includes(String(value).trim().toLowerCase());
+  searchText(row.original, filterWords()).includes(String(value).trim().toLowerCase());
 matchesRowText.autoRemove = (value) => !value || !String(value).trim();
 
 export const ladderFeatures = tableFeatures({
@@ -58,129 +50,144 @@ export const ladderFeatures = tableFeatures({
 });
 type LadderFeatures = typeof ladderFeatures;
 
-export function searchText(r: LadderRow): string {
-  return [
-    r.name,
-    r.code,
-    TIER_LABELS[r.tier],
-    r.leadingDriver ? DRIVER_LABELS[r.leadingDriver] : '',
-    zoneLabel(r.channelZone),
-    CONFIDENCE_MARKS[r.confidence] ?? '',
-  ]
+/** The words the filter reads, made once per interface language. */
+let cachedWords: { language: string; words: LadderWords } | null = null;
+function filterWords(): LadderWords {
+  if (cachedWords?.language !== i18n.language) cachedWords = { language: i18n.language, words: currentLadderWords() };
+  return cachedWords.words;
+}
+
+export function searchText(r: LadderRow, words: LadderWords = currentLadderWords()): string {
+  return [r.name, r.code, words.tier(r.tier), r.leadingDriver ? words.driver(r.leadingDriver) : '', words.zone(r.channelZone), words.confidence(r.confidence) ?? '']
     .join(' ')
     .toLowerCase();
 }
 
 const column = createColumnHelper<LadderFeatures, LadderRow>();
-const columns = column.columns([
-  column.accessor('rank', {
-    header: 'Rank',
-    sortUndefined: 'last',
-    enableHiding: false,
-    meta: { label: 'Rank', csv: (r) => r.rank },
-    cell: (c) => <span className="tabular-nums">{c.getValue()}</span>,
-  }),
-  column.accessor('name', {
-    id: 'district',
-    header: 'District',
-    sortFn: 'alphanumeric',
-    enableHiding: false,
-    meta: { label: 'District', csv: (r) => r.name },
-    cell: (c) => (
-      <span className="cell-stack">
-        <Link to={`/districts/${c.row.original.districtId}`} className="link truncate">
-          {c.getValue()}
-        </Link>
-        <span className="font-mono text-xs text-ink-muted">{c.row.original.code}</span>
-      </span>
-    ),
-  }),
-  column.accessor('tier', {
-    header: 'Tier',
-    sortFn: 'byTierThenScore',
-    sortDescFirst: true,
-    meta: { label: 'Tier', csv: (r) => TIER_LABELS[r.tier] },
-    cell: (c) => {
-      const r = c.row.original;
-      const range = tierRangeText(r);
-      return (
+
+/** The columns, in the interface language (headers, cell words, CSV values). */
+function ladderColumns(w: LadderWords) {
+  const { t } = w;
+  return column.columns([
+    column.accessor('rank', {
+      header: t('table.columns.rank'),
+      sortUndefined: 'last',
+      enableHiding: false,
+      meta: { label: t('table.columns.rank'), csv: (r) => r.rank },
+      cell: (c) => <span className="tabular-nums">{w.count(c.getValue())}</span>,
+    }),
+    column.accessor('name', {
+      id: 'district',
+      header: t('table.columns.district'),
+      sortFn: 'alphanumeric',
+      enableHiding: false,
+      meta: { label: t('table.columns.district'), csv: (r) => r.name },
+      cell: (c) => (
         <span className="cell-stack">
-          <TierBadge tier={r.tier} confidence={r.confidence} />
-          <span className="text-xs text-ink-muted">
-            score {formatScore(r.score)}
-            {range ? ` · range ${range}` : ''}
-          </span>
+          <Link to={`/districts/${c.row.original.districtId}`} className="link truncate">
+            {c.getValue()}
+          </Link>
+          <span className="font-mono text-xs text-ink-muted">{c.row.original.code}</span>
         </span>
-      );
-    },
-  }),
-  // null reads as undefined so that `sortUndefined: 'last'` keeps rows without a value at the end.
-  column.accessor((r) => r.tierChange ?? undefined, {
-    id: 'change',
-    header: 'Since last week',
-    sortUndefined: 'last',
-    sortDescFirst: true,
-    meta: { label: 'Since last week', csv: (r) => tierChangeText(r.tierChange) },
-    cell: (c) => {
-      const r = c.row.original;
-      return (
-        <span className="cell-stack">
-          <span>
-            <span aria-hidden="true" className="change-arrow">
-              {tierChangeArrow(r.tierChange)}
-            </span>{' '}
-            {tierChangeText(r.tierChange)}
-          </span>
-          {r.scoreChange !== null ? (
-            <span className="text-xs text-ink-muted tabular-nums">
-              score {r.scoreChange >= 0 ? '+' : '−'}
-              {formatScore(Math.abs(r.scoreChange))}
+      ),
+    }),
+    column.accessor('tier', {
+      header: t('table.columns.tier'),
+      sortFn: 'byTierThenScore',
+      sortDescFirst: true,
+      meta: { label: t('table.columns.tier'), csv: (r) => w.tier(r.tier), help: 'tier' },
+      cell: (c) => {
+        const r = c.row.original;
+        const range = w.range(r);
+        return (
+          <span className="cell-stack">
+            <TierBadge tier={r.tier} confidence={r.confidence} />
+            <span className="text-xs text-ink-muted">
+              {t('table.scoreLine', { score: w.score(r.score) })}
+              {range ? ` · ${t('table.rangeLine', { range })}` : ''}
             </span>
-          ) : null}
-        </span>
-      );
-    },
-  }),
-  column.accessor((r) => driverLabel(r.leadingDriver), {
-    id: 'leadingDriver',
-    header: 'Leading driver',
-    sortFn: 'alphanumeric',
-    meta: { label: 'Leading driver', csv: (r) => (r.leadingDriver ? DRIVER_LABELS[r.leadingDriver] : '') },
-  }),
-  column.accessor((r) => r.casesThisWeek ?? undefined, {
-    id: 'cases',
-    header: 'Cases this week',
-    sortUndefined: 'last',
-    sortDescFirst: true,
-    meta: { label: 'Cases this week', csv: (r) => r.casesThisWeek },
-    cell: (c) => <span className="tabular-nums">{formatCount(c.row.original.casesThisWeek)}</span>,
-  }),
-  column.accessor((r) => zoneLabel(r.channelZone), {
-    id: 'channelZone',
-    header: 'Channel',
-    sortFn: 'alphanumeric',
-    meta: { label: 'Channel', csv: (r) => (r.channelZone ? zoneLabel(r.channelZone) : '') },
-  }),
-  column.accessor((r) => r.latestWeather ?? '', {
-    id: 'latestWeather',
-    header: 'Freshest weather',
-    sortFn: 'alphanumeric',
-    sortDescFirst: true,
-    meta: { label: 'Freshest weather', csv: (r) => r.latestWeather ?? '' },
-    cell: (c) => <span className="whitespace-nowrap">{formatDay(c.row.original.latestWeather)}</span>,
-  }),
-]);
+          </span>
+        );
+      },
+    }),
+    // null reads as undefined so that `sortUndefined: 'last'` keeps rows without a value at the end.
+    column.accessor((r) => r.tierChange ?? undefined, {
+      id: 'change',
+      header: t('table.columns.change'),
+      sortUndefined: 'last',
+      sortDescFirst: true,
+      meta: { label: t('table.columns.change'), csv: (r) => w.change(r.tierChange), help: 'change' },
+      cell: (c) => {
+        const r = c.row.original;
+        return (
+          <span className="cell-stack">
+            <span>
+              <span aria-hidden="true" className="change-arrow">
+                {tierChangeArrow(r.tierChange)}
+              </span>{' '}
+              {w.change(r.tierChange)}
+            </span>
+            {r.scoreChange !== null ? (
+              <span className="text-xs text-ink-muted tabular-nums">
+                {t('table.scoreChange', { sign: r.scoreChange >= 0 ? '+' : '−', value: w.score(Math.abs(r.scoreChange)) })}
+              </span>
+            ) : null}
+          </span>
+        );
+      },
+    }),
+    column.accessor((r) => w.driver(r.leadingDriver), {
+      id: 'leadingDriver',
+      header: t('table.columns.leadingDriver'),
+      sortFn: 'alphanumeric',
+      meta: { label: t('table.columns.leadingDriver'), csv: (r) => (r.leadingDriver ? w.driver(r.leadingDriver) : ''), help: 'leadingDriver' },
+    }),
+    column.accessor((r) => r.casesThisWeek ?? undefined, {
+      id: 'cases',
+      header: t('table.columns.cases'),
+      sortUndefined: 'last',
+      sortDescFirst: true,
+      meta: { label: t('table.columns.cases'), csv: (r) => r.casesThisWeek, help: 'casesThisWeek' },
+      cell: (c) => <span className="tabular-nums">{w.count(c.row.original.casesThisWeek)}</span>,
+    }),
+    column.accessor((r) => w.zone(r.channelZone), {
+      id: 'channelZone',
+      header: t('table.columns.channel'),
+      sortFn: 'alphanumeric',
+      meta: { label: t('table.columns.channel'), csv: (r) => (r.channelZone ? w.zone(r.channelZone) : ''), help: 'channelZone' },
+    }),
+    column.accessor((r) => r.latestWeather ?? '', {
+      id: 'latestWeather',
+      header: t('table.columns.latestWeather'),
+      sortFn: 'alphanumeric',
+      sortDescFirst: true,
+      meta: { label: t('table.columns.latestWeather'), csv: (r) => r.latestWeather ?? '', help: 'latestWeather' },
+      cell: (c) => <span className="whitespace-nowrap">{w.day(c.row.original.latestWeather)}</span>,
+    }),
+  ]);
+}
 
 /** The CSV of what the table shows: the filtered, sorted rows and the visible columns. */
-export function ladderCsv(rows: readonly Row<LadderFeatures, LadderRow>[], visible: readonly { id: string; columnDef: { meta?: LadderColumnMeta } }[]): string {
+export function ladderCsv(
+  rows: readonly Row<LadderFeatures, LadderRow>[],
+  visible: readonly { id: string; columnDef: { meta?: LadderColumnMeta } }[],
+  words: LadderWords = currentLadderWords(),
+): string {
+  const { t } = words;
   const cols = visible.filter((c) => c.columnDef.meta);
-  const header = cols.flatMap((c) => (c.id === 'district' ? ['District', 'Code'] : c.id === 'tier' ? ['Tier', 'Score', 'Tier range', 'Confidence'] : [c.columnDef.meta!.label]));
+  const header = cols.flatMap((c) =>
+    c.id === 'district'
+      ? [t('ladder:table.columns.district'), t('ladder:table.columns.code')]
+      : c.id === 'tier'
+        ? [t('ladder:table.columns.tier'), t('ladder:table.columns.score'), t('ladder:table.columns.tierRange'), t('ladder:table.columns.confidence')]
+        : [c.columnDef.meta!.label],
+  );
   const body = rows.map((row) => {
     const r = row.original;
     return cols.flatMap((c) => {
       const meta = c.columnDef.meta!;
       if (c.id === 'district') return [r.name, r.code];
-      if (c.id === 'tier') return [meta.csv(r), r.score, tierRangeText(r) ?? '', CONFIDENCE_MARKS[r.confidence] ?? 'ok'];
+      if (c.id === 'tier') return [meta.csv(r), r.score, words.range(r) ?? '', words.confidence(r.confidence) ?? t('ladder:confidence.ok')];
       return [meta.csv(r)];
     });
   });
@@ -192,14 +199,18 @@ export const LADDER_ROW_HEIGHT = 60;
 
 function SortHeader({ header }: { header: Header<LadderFeatures, LadderRow, unknown> }) {
   const sorted = header.column.getIsSorted();
-  const label = header.column.columnDef.meta?.label ?? header.column.id;
+  const meta = header.column.columnDef.meta;
+  const label = meta?.label ?? header.column.id;
   return (
-    <button type="button" className="sort-button" onClick={header.column.getToggleSortingHandler()}>
-      {label}
-      <span aria-hidden="true" className="sort-mark">
-        {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
-      </span>
-    </button>
+    <span className="th-with-help">
+      <button type="button" className="sort-button" onClick={header.column.getToggleSortingHandler()}>
+        {label}
+        <span aria-hidden="true" className="sort-mark">
+          {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}
+        </span>
+      </button>
+      {meta?.help ? <HelpButton topic={meta.help} /> : null}
+    </span>
   );
 }
 
@@ -211,6 +222,9 @@ const ariaSort = (s: false | 'asc' | 'desc') => (s === 'asc' ? 'ascending' : s =
  */
 export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]; caption: ReactNode; toolbarExtra?: ReactNode }) {
   const id = useId();
+  const words = useLadderWords();
+  const { t } = words;
+  const columns = useMemo(() => ladderColumns(words), [words]);
   const [globalFilter, setGlobalFilter] = useState('');
   const table = useTable({
     features: ladderFeatures,
@@ -228,11 +242,11 @@ export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]
   const scrollRef = useRef<HTMLDivElement>(null);
   const win = useRowWindow({ count: visibleRows.length, rowHeight: LADDER_ROW_HEIGHT, scrollRef });
   const slice = visibleRows.slice(win.first, win.last);
-  const hideable = useMemo(() => table.getAllLeafColumns().filter((c) => c.getCanHide()), [table]);
+  const hideable = table.getAllLeafColumns().filter((c) => c.getCanHide());
 
   const exportCsv = () => {
     const stamp = new Date().toISOString().slice(0, 10);
-    downloadCsv(`broodcast-ladder-${stamp}.csv`, ladderCsv(visibleRows, leafColumns));
+    downloadCsv(`broodcast-ladder-${stamp}.csv`, ladderCsv(visibleRows, leafColumns, words));
   };
 
   return (
@@ -240,22 +254,22 @@ export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]
       <div className="flex flex-wrap items-end gap-3">
         <div className="field min-w-[14rem] flex-1">
           <label htmlFor={`${id}-filter`} className="field-label">
-            Filter districts
+            {t('table.filterLabel')}
           </label>
           <input
             id={`${id}-filter`}
             type="search"
             className="input"
-            placeholder="Name, code, tier or driver"
+            placeholder={t('table.filterPlaceholder')}
             value={globalFilter}
             onChange={(e) => table.setGlobalFilter(e.currentTarget.value)}
             aria-describedby={`${id}-count`}
           />
         </div>
         <details className="column-chooser">
-          <summary className="btn btn-secondary">Columns</summary>
+          <summary className="btn btn-secondary">{t('table.columnsButton')}</summary>
           <fieldset className="column-chooser-panel">
-            <legend className="field-label">Show columns</legend>
+            <legend className="field-label">{t('table.showColumns')}</legend>
             {hideable.map((c) => (
               <label key={c.id} className="flex cursor-pointer items-center gap-2 py-0.5">
                 <input type="checkbox" className="checkbox" checked={c.getIsVisible()} onChange={c.getToggleVisibilityHandler()} />
@@ -265,14 +279,14 @@ export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]
           </fieldset>
         </details>
         <button type="button" className="btn btn-secondary" onClick={exportCsv} disabled={visibleRows.length === 0}>
-          Export CSV
+          {t('table.exportCsv')}
         </button>
         {toolbarExtra}
       </div>
       <p id={`${id}-count`} className="text-sm text-ink-muted" aria-live="polite">
         {visibleRows.length === rows.length
-          ? `${rows.length.toLocaleString('en-GB')} districts`
-          : `${visibleRows.length.toLocaleString('en-GB')} of ${rows.length.toLocaleString('en-GB')} districts match`}
+          ? t('table.count', { count: rows.length, total: words.count(rows.length) })
+          : t('table.matching', { count: rows.length, shown: words.count(visibleRows.length), total: words.count(rows.length) })}
       </p>
       <div ref={scrollRef} className="table-wrap ladder-scroll" onScroll={win.onScroll} tabIndex={0} aria-labelledby={`${id}-caption`}>
         <table className="data-table ladder-table" aria-rowcount={visibleRows.length + 1}>
@@ -294,7 +308,7 @@ export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]
             {visibleRows.length === 0 ? (
               <tr>
                 <td colSpan={leafColumns.length} className="text-ink-muted">
-                  {rows.length === 0 ? 'No district has a tier yet. A season run computes them.' : 'No district matches the filter.'}
+                  {rows.length === 0 ? t('table.emptyNoTiers') : t('table.emptyNoMatch')}
                 </td>
               </tr>
             ) : (

@@ -1,5 +1,5 @@
-import { TIER_LABELS, type Tier } from '../../../../shared/tier';
-import { CONFIDENCE_MARKS, type Confidence } from '../ladder-format';
+import type { Tier } from '../../../../shared/tier';
+import { useLadderWords, type Confidence } from '../ladder-format';
 import { TIER_COLOURS, TIER_TEXT } from '../tier-scale';
 
 /**
@@ -7,7 +7,8 @@ import { TIER_COLOURS, TIER_TEXT } from '../tier-scale';
  * loses its solid look (a dashed outline, lighter fill) and says why.
  */
 export function TierBadge({ tier, confidence = 'ok' }: { tier: Tier; confidence?: Confidence }) {
-  const mark = CONFIDENCE_MARKS[confidence];
+  const words = useLadderWords();
+  const mark = words.confidence(confidence);
   return (
     <span className="inline-flex flex-wrap items-center gap-x-1.5">
       <span
@@ -15,7 +16,7 @@ export function TierBadge({ tier, confidence = 'ok' }: { tier: Tier; confidence?
         style={{ backgroundColor: TIER_COLOURS[tier], color: TIER_TEXT[tier] }}
         data-tier={tier}
       >
-        {TIER_LABELS[tier]}
+        {words.tier(tier)}
       </span>
       {mark ? <span className="confidence-mark">{mark}</span> : null}
     </span>

@@ -1,0 +1,86 @@
+import { afterEach, describe, expect, it, vi } from 'vitest';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { queryClient } from '../../src/app/query-client';
+import { routes } from '../../src/app/router';
+import { CAUTIONS } from '../../src/features/cautions/cautions-panel';
+import { demoDistrictFile } from './support/board-fixtures';
+import { fakeApi, json, officerMe } from './support/fake-api';
+import { click, getButton, render, waitFor, type Rendered } from './support/render';
+
+vi.mock('../../src/components/chart/echart', () => import('./support/echart-stub'));
+
+let view: Rendered | undefined;
+afterEach(() => {
+  view?.unmount();
+  view = undefined;
+  queryClient.clear();
+  vi.unstubAllGlobals();
+  vi.restoreAllMocks();
+});
+
+const file = demoDistrictFile();
+
+async function open(url: string) {
+  fakeApi({
+    'GET /api/me': () => json(200, officerMe),
+    [`GET /api/districts/${file.district.id}/file`]: () => json(200, file),
+  });
+  const router = createMemoryRouter(routes, { initialEntries: [url] });
+  view = await render(
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>,
+  );
+  return { c: view.container, router };
+}
+
+describe('the printable District file', () => {
+  it('when it is opened, then it shows the tier and drivers, the key numbers, cases against the channel as a drawing and a table, the tier history and the cautions, without help buttons', async () => {
+    const { c } = await open(`/districts/${file.district.id}/print`);
+    await waitFor(() => expect(c.querySelector('h1')?.textContent).toContain('Saltmarsh Coast'), 5000);
+    expect(c.querySelector('.print-page')).not.toBeNull();
+    expect(c.textContent).toContain('Season 2025');
+    expect(c.textContent).toContain('Demo data — the Halvern Region is invented');
+    expect(c.textContent).toContain('Tier for week 22 of 2025');
+    expect([...c.querySelectorAll('tr[data-driver]')].map((r) => r.querySelector('th')?.textContent)).toEqual(['Climate suitability', 'Vector clock', 'Larval indices', 'Case signal']);
+    expect(c.textContent).toContain('The tier went up 1, from High to Critical');
+    expect(c.querySelector('[data-key-number="degreeDays"]')?.textContent).toContain('285 °C·d');
+    expect(c.querySelector('[data-key-number="cases"]')?.textContent).toContain('42');
+
+    // Cases against the endemic channel: a static drawing with its accessible name, and the same numbers as a table.
+    const svg = c.querySelector('svg[role="img"]')!;
+    expect(svg.getAttribute('aria-label')).toContain('Weekly Dengue cases in 2025 as bars');
+    expect(svg.querySelectorAll('rect').length).toBe(4);
+    const rows = [...c.querySelectorAll('.print-section')[0].querySelectorAll('tbody tr')].map((r) => [...r.children].map((x) => x.textContent));
+    expect(rows[3]).toEqual(['Week 22', '42', '3', '9', '18', 'Above the channel']);
+    expect(c.textContent).toContain('Tier history by week');
+    expect(c.textContent).toContain('Week 22, 2025');
+
+    for (const line of CAUTIONS) expect(c.textContent).toContain(line);
+    expect(c.querySelectorAll('button.help-button')).toHaveLength(0);
+    // No ECharts on this page.
+    expect(c.querySelector('[data-testid="echart-stub"]')).toBeNull();
+  });
+
+  it('when Print is pressed, then the browser’s print dialog is asked for', async () => {
+    const print = vi.fn();
+    vi.stubGlobal('print', print);
+    const { c } = await open(`/districts/${file.district.id}/print`);
+    await waitFor(() => expect(c.querySelector('.print-page')).not.toBeNull(), 5000);
+    await click(getButton(c, 'Print'));
+    expect(print).toHaveBeenCalledTimes(1);
+    expect(c.querySelector('.no-print')?.contains(getButton(c, 'Print'))).toBe(true);
+  });
+
+  it('when the District file is open, then it links to its printable page for the same season', async () => {
+    const { c, router } = await open(`/districts/${file.district.id}`);
+    await waitFor(() => expect(c.querySelector('h1')?.textContent).toBe('Saltmarsh Coast'), 5000);
+    const link = c.querySelector<HTMLAnchorElement>('a[data-testid="print-link"]')!;
+    expect(link.textContent).toBe('Printable page');
+    expect(link.getAttribute('href')).toBe(`/districts/${file.district.id}/print?season=2025`);
+    await click(link);
+    await waitFor(() => expect(router.state.location.pathname).toBe(`/districts/${file.district.id}/print`), 5000);
+    await waitFor(() => expect(c.querySelector('.print-page')).not.toBeNull(), 5000);
+  });
+});
