@@ -147,20 +147,23 @@ export class WeatherService {
     };
   }
 
-  /** The row report as a CSV download, streamed page by page; every cell spreadsheet-safe. */
-  async issuesCsv(id: string, res: Response) {
+  /**
+   * The row report as a CSV download, streamed page by page; every cell spreadsheet-safe. Temperatures
+   * and rain are given in the units asked for (SI by default), named in the header.
+   */
+  async issuesCsv(id: string, res: Response, units: IssueUnits = { temperature: 'C', rain: 'mm' }) {
     const u = await this.upload(id);
     res.status(200);
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
     res.setHeader('Content-Disposition', `attachment; filename="intake-report-${u.id.slice(0, 8)}.csv"`);
-    res.write('row,station,date,column,value,outcome,rule,reason\n');
+    res.write(['row', 'station', 'date', 'column', `value (°${units.temperature}; ${units.rain})`, 'outcome', 'rule', 'reason'].map(csvCell).join(',') + '\n');
     let after = '0';
     for (;;) {
       const rows = await this.repo.issues(id, after, 5000);
       if (!rows.length) break;
       let chunk = '';
       for (const r of rows)
-        chunk += [r.row_number, r.station, r.date, r.column, r.value, r.severity, r.rule, r.reason].map(csvCell).join(',') + '\n';
+        chunk += [r.row_number, r.station, r.date, r.column, issueValueIn(r, u, units), r.severity, r.rule, r.reason].map(csvCell).join(',') + '\n';
       if (!res.write(chunk)) await new Promise((resolve) => res.once('drain', resolve));
       after = rows[rows.length - 1].id;
     }
@@ -218,4 +221,40 @@ export class WeatherService {
       days,
     };
   }
+}
+
+export interface IssueUnits {
+  temperature: 'C' | 'F';
+  rain: 'mm' | 'in';
+}
+
+const TEMPERATURE_COLUMNS = new Set(['tmin', 'tmax', 'dewpoint']);
+const round2 = (x: number) => Math.round(x * 100) / 100;
+
+/**
+ * One report value in the units asked for. A rejected value is what the file said, in the upload's
+ * units; a flagged or filled one is a stored value, in °C and mm. Text that is not a number (a bad
+ * number, a whole row) and columns without a unit are left as they are.
+ */
+export function issueValueIn(
+  issue: { column: string; value: string | null; severity: string },
+  upload: { tempUnit: 'C' | 'F'; rainUnit: 'mm' | 'in' },
+  units: IssueUnits,
+): string | null {
+  const text = issue.value?.trim() ?? '';
+  if (issue.value === null || text === '' || !Number.isFinite(Number(text))) return issue.value;
+  const x = Number(text);
+  if (TEMPERATURE_COLUMNS.has(issue.column)) {
+    const from = issue.severity === 'rejected' ? upload.tempUnit : 'C';
+    if (from === units.temperature) return issue.value;
+    const celsius = from === 'F' ? ((x - 32) * 5) / 9 : x;
+    return String(round2(units.temperature === 'F' ? (celsius * 9) / 5 + 32 : celsius));
+  }
+  if (issue.column === 'rain') {
+    const from = issue.severity === 'rejected' ? upload.rainUnit : 'mm';
+    if (from === units.rain) return issue.value;
+    const mm = from === 'in' ? x * 25.4 : x;
+    return String(round2(units.rain === 'in' ? mm / 25.4 : mm));
+  }
+  return issue.value;
 }

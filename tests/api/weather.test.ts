@@ -182,7 +182,7 @@ describe('weather uploads', () => {
     expect(file.headers['content-type']).toMatch(/text\/csv/);
     expect(file.headers['content-disposition']).toMatch(/attachment/);
     const lines = file.text.trim().split('\n');
-    expect(lines[0]).toBe('row,station,date,column,value,outcome,rule,reason');
+    expect(lines[0]).toBe('row,station,date,column,value (°C; mm),outcome,rule,reason');
     expect(lines[1]).toMatch(/^2,'=HYPERLINK\(1\),2026-01-01,station,/);
     expect(file.text).toContain("'@SUM(1)");
     expect(file.text).not.toMatch(/,=|,@|,\+/);
