@@ -1,10 +1,66 @@
 import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
+import { VitePWA } from 'vite-plugin-pwa';
+
+/**
+ * The installable, offline-opening client (docs/offline.md). Workbox's generateSW precaches the built
+ * shell — index.html, every script and style chunk, the Lato fonts, the icons — so a reload without a
+ * connection still opens the app; client routes fall back to index.html. Nothing under /api is ever
+ * cached: those requests always go to the network (NetworkOnly), and the larval-survey outbox
+ * (src/features/surveys/offline-queue.ts) keeps surveys until the server has them. The worker is
+ * registered by src/pwa/register.ts in production builds only (never by `vite` dev or the tests).
+ */
+const pwa = VitePWA({
+  strategies: 'generateSW',
+  registerType: 'autoUpdate',
+  injectRegister: false,
+  filename: 'sw.js',
+  manifestFilename: 'manifest.webmanifest',
+  includeAssets: ['icon.svg', 'apple-touch-icon.png'],
+  manifest: {
+    id: '/',
+    name: 'Broodcast',
+    short_name: 'Broodcast',
+    description: 'Seasonal mosquito and transmission estimates for district health services',
+    start_url: '/',
+    scope: '/',
+    display: 'standalone',
+    orientation: 'any',
+    // The app's own palette (src/styles.css): accent-800 for the bar, paper behind the splash.
+    theme_color: '#26305e',
+    background_color: '#f5f4f1',
+    icons: [
+      { src: '/icon-192.png', sizes: '192x192', type: 'image/png', purpose: 'any' },
+      { src: '/icon-512.png', sizes: '512x512', type: 'image/png', purpose: 'any' },
+      { src: '/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+      { src: '/icon.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' },
+    ],
+  },
+  workbox: {
+    // The shell: markup, every chunk (lazy screens included, so any screen opens offline), styles and
+    // the woff2 fonts (every browser that runs service workers reads woff2). The plugin adds the
+    // manifest, its icons and `includeAssets`.
+    globPatterns: ['**/*.{html,js,css,woff2}'],
+    // The chart chunks are large; allow them in the precache rather than leave a screen unopenable offline.
+    maximumFileSizeToCacheInBytes: 4 * 1024 * 1024,
+    navigateFallback: '/index.html',
+    // API addresses are never answered with the shell (nor anything else from a cache).
+    navigateFallbackDenylist: [/^\/api(\/|$)/],
+    runtimeCaching: [{ urlPattern: ({ url }) => url.pathname.startsWith('/api/') || url.pathname === '/api', handler: 'NetworkOnly' }],
+    cleanupOutdatedCaches: true,
+    clientsClaim: true,
+    skipWaiting: true,
+    sourcemap: false,
+  },
+  // Client tests (happy-dom) and `vite` dev run without a service worker.
+  devOptions: { enabled: false },
+  disable: !!process.env.VITEST,
+});
 
 export default defineConfig({
   root: '.',
-  plugins: [react(), tailwindcss()],
+  plugins: [react(), tailwindcss(), pwa],
   // Nothing inlined as data: URLs, so the Content-Security-Policy can allow fonts from 'self' only.
   build: { outDir: 'dist/client', emptyOutDir: true, sourcemap: false, assetsInlineLimit: 0 },
   server: {

@@ -7,7 +7,9 @@ import { i18n } from './i18n';
 import { queryClient } from './app/query-client';
 import { createAppRouter } from './app/router';
 import './styles.css';
+import { startOfflineSupport } from './pwa/register';
 
+startOfflineSupport(queryClient);
 const router = createAppRouter();
 
 createRoot(document.getElementById('root')!).render(

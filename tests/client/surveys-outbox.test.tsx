@@ -134,7 +134,7 @@ describe('the survey form', () => {
     await typeInto(getByLabel(view.container, 'Water-holding containers inspected'), '30');
     await typeInto(getByLabel(view.container, 'Containers with larvae or pupae'), '12');
     await click(getButton(view.container, 'Save the survey'));
-    await waitFor(() => expect(view!.container.textContent).toMatch(/positive houses exceed houses inspected/));
+    await waitFor(() => expect(view!.container.textContent).toMatch(/Positive houses exceed houses inspected/));
     expect(localStorage.getItem(OUTBOX_KEY)).toBeNull();
     expect(fetchMock.mock.calls.some(([, init]) => (init as RequestInit | undefined)?.method === 'POST')).toBe(false);
   });

@@ -1,9 +1,11 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { PageHeading } from '../../components/page-heading';
 import { FormMessage, SelectField } from '../../components/form';
 import { useSession } from '../../app/session';
 import { useDistricts } from '../districts/api/districts.api';
 import { DemoDataLabel } from '../districts/components/demo-data-label';
+import { errorText } from '../../lib/error-text';
 import { useCaseGrid } from './api/case-grid.api';
 import { useCasesSettings } from './api/cases-settings.api';
 import { useDiseases } from './api/diseases.api';
@@ -16,6 +18,7 @@ import { CaseUploadForm } from './components/case-upload.form';
  * the weeks of their districts; supervisors read every district and close weeks.
  */
 export function CaseLedgerPage() {
+  const { t } = useTranslation('cases');
   const me = useSession();
   const settings = useCasesSettings();
   const diseases = useDiseases();
@@ -29,23 +32,23 @@ export function CaseLedgerPage() {
   return (
     <section aria-labelledby="page-title">
       <PageHeading
-        lead={
-          isEpi
-            ? 'Weekly counts of your districts: type them in, upload a file, correct with a reason, close a week once it is complete.'
-            : 'Weekly counts of every district, with their corrections and which weeks are closed.'
-        }
+        lead={isEpi ? t('ledger.leadEpi') : t('ledger.leadOther')}
       >
-        Case ledger
+        {t('ledger.title')}
       </PageHeading>
       <DemoDataLabel districts={districts.data} />
       {settings.data ? (
         <p className="mb-3 text-sm text-ink-muted">
-          {settings.data.epiWeekSystem === 'iso' ? 'ISO weeks (Monday to Sunday)' : 'Epidemiological weeks (Sunday to Saturday)'}. This is week{' '}
-          {settings.data.currentWeek.week} of {settings.data.currentWeek.year}; counts are due {settings.data.deadlineDays} days after a week ends.
+          {t('ledger.thisWeek', {
+            system: settings.data.epiWeekSystem === 'iso' ? t('ledger.isoWeeks') : t('ledger.epiWeeks'),
+            week: settings.data.currentWeek.week,
+            year: settings.data.currentWeek.year,
+            days: settings.data.deadlineDays,
+          })}
         </p>
       ) : null}
       <div className="mb-4 flex flex-wrap items-end gap-4">
-        <SelectField label="Disease" className="field min-w-56" value={chosen ?? ''} onChange={(e) => setDiseaseId(e.currentTarget.value)}>
+        <SelectField label={t('ledger.disease')} className="field min-w-0 sm:min-w-56" value={chosen ?? ''} onChange={(e) => setDiseaseId(e.currentTarget.value)}>
           {(diseases.data ?? []).map((d) => (
             <option key={d.id} value={d.id}>
               {d.name}
@@ -53,18 +56,18 @@ export function CaseLedgerPage() {
           ))}
         </SelectField>
         {isEpi ? (
-          <SelectField label="Districts" className="field min-w-56" value={scope} onChange={(e) => setScope(e.currentTarget.value as 'mine' | 'all')}>
-            <option value="mine">My districts</option>
-            <option value="all">Every district (read only outside mine)</option>
+          <SelectField label={t('ledger.districts')} className="field min-w-0 sm:min-w-56" value={scope} onChange={(e) => setScope(e.currentTarget.value as 'mine' | 'all')}>
+            <option value="mine">{t('ledger.mine')}</option>
+            <option value="all">{t('ledger.all')}</option>
           </SelectField>
         ) : null}
       </div>
       {grid.isError ? (
-        <FormMessage kind="error">{grid.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(grid.error)}</FormMessage>
       ) : grid.data && settings.data ? (
         <CaseGrid grid={grid.data} today={settings.data.today} />
       ) : (
-        <p className="text-ink-muted">Loading the ledger…</p>
+        <p className="text-ink-muted">{t('ledger.loading')}</p>
       )}
       {isEpi && settings.data && diseases.data ? (
         <div className="mt-8 grid gap-6 lg:grid-cols-2">

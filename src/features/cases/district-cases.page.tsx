@@ -1,9 +1,10 @@
 import { lazy, Suspense } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
-import { CHANNEL_ZONE_LABELS } from '../../../shared/signals/endemic-channel';
+import { useTranslation } from 'react-i18next';
 import { PageHeading } from '../../components/page-heading';
 import { FormMessage, SelectField } from '../../components/form';
 import { isForbidden } from '../../lib/api-client';
+import { errorText } from '../../lib/error-text';
 import { NotAllowedPage } from '../../app/not-allowed.page';
 import { useSession } from '../../app/session';
 import { CautionsPanel } from '../cautions/cautions-panel';
@@ -13,20 +14,16 @@ import { DistrictSurveys } from '../surveys/components/district-surveys';
 import { useCasesSettings } from './api/cases-settings.api';
 import { useDiseases } from './api/diseases.api';
 import { useDistrictSignals } from './api/district-signals.api';
-import { formatNumber, formatShare } from './case-format';
+import { useCaseFormat } from './case-format';
 import { EpidemicYearsForm } from './components/epidemic-years.form';
 import { SignalsTable } from './components/signals.table';
 
 const ChannelChart = lazy(() => import('./components/channel-chart').then((m) => ({ default: m.ChannelChart })));
 
-const METHOD_LABELS = {
-  geometric: 'geometric mean with its 95 % band (Bortman 1999)',
-  quartile: 'quartiles: first quartile, median, third quartile',
-  'mean-2sd': 'mean ± 2 standard deviations',
-} as const;
-
 /** The cases part of the District file: this season against the district's endemic channel, its signals and larval surveys. */
 export function DistrictCasesPage() {
+  const { t } = useTranslation('cases');
+  const { formatNumber, formatShare } = useCaseFormat();
   const me = useSession();
   const { id = '' } = useParams();
   const [search, setSearch] = useSearchParams();
@@ -52,19 +49,17 @@ export function DistrictCasesPage() {
 
   return (
     <section aria-labelledby="page-title">
-      <PageHeading lead="Part of the District file: this season’s weekly cases against the district’s own endemic channel, the aberration tests and the larval surveys.">
-        {data?.district.name ?? district?.name ?? 'District'}: cases
-      </PageHeading>
+      <PageHeading lead={t('district.lead')}>{t('district.title', { district: data?.district.name ?? district?.name ?? t('district.districtFallback') })}</PageHeading>
       <DemoDataLabel districts={district ? [district] : undefined} />
       <div className="mb-4 flex flex-wrap items-end gap-4">
-        <SelectField label="Disease" className="field min-w-56" value={disease?.code ?? ''} onChange={(e) => set('disease', e.currentTarget.value)}>
+        <SelectField label={t('district.disease')} className="field min-w-0 sm:min-w-56" value={disease?.code ?? ''} onChange={(e) => set('disease', e.currentTarget.value)}>
           {(diseases.data ?? []).map((d) => (
             <option key={d.id} value={d.code}>
               {d.name}
             </option>
           ))}
         </SelectField>
-        <SelectField label="Season" className="field min-w-32" value={String(yearParam ?? currentYear)} onChange={(e) => set('year', e.currentTarget.value)}>
+        <SelectField label={t('district.season')} className="field min-w-32" value={String(yearParam ?? currentYear)} onChange={(e) => set('year', e.currentTarget.value)}>
           {years.map((y) => (
             <option key={y} value={y}>
               {y}
@@ -75,38 +70,44 @@ export function DistrictCasesPage() {
       <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-6">
           {signals.isError ? (
-            <FormMessage kind="error">{signals.error.message}</FormMessage>
+            <FormMessage kind="error">{errorText(signals.error)}</FormMessage>
           ) : !data || !settings.data ? (
-            <p className="text-ink-muted">Loading the season…</p>
+            <p className="text-ink-muted">{t('district.loading')}</p>
           ) : (
             <>
               <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4" data-testid="season-summary">
                 <div className="card">
-                  <dt className="text-sm text-ink-muted">Week {latest?.week ?? '—'}</dt>
-                  <dd className="text-2xl font-bold tabular-nums">{latest?.cases ?? '—'} cases</dd>
-                  <dd className="text-sm">{latest?.zone ? CHANNEL_ZONE_LABELS[latest.zone] : 'No channel'}</dd>
-                </div>
-                <div className="card">
-                  <dt className="text-sm text-ink-muted">Incidence per 100,000</dt>
-                  <dd className="text-2xl font-bold tabular-nums">{formatNumber(latest?.incidence, 2)}</dd>
-                  <dd className="text-sm">population {formatNumber(data.population)}</dd>
-                </div>
-                <div className="card">
-                  <dt className="text-sm text-ink-muted">Doubling time (fit of the last {data.fittedGrowth?.weeks ?? 4} weeks)</dt>
+                  <dt className="text-sm text-ink-muted">{t('district.week', { week: latest?.week ?? '—' })}</dt>
                   <dd className="text-2xl font-bold tabular-nums">
-                    {data.fittedGrowth?.doublingWeeks ? `${data.fittedGrowth.doublingWeeks.toFixed(1)} wk` : 'not growing'}
+                    {latest?.cases === null || latest?.cases === undefined ? t('district.noCases') : t('district.cases', { count: latest.cases })}
+                  </dd>
+                  <dd className="text-sm">{latest?.zone ? t(`zone.${latest.zone}`) : t('district.noChannel')}</dd>
+                </div>
+                <div className="card">
+                  <dt className="text-sm text-ink-muted">{t('district.incidence')}</dt>
+                  <dd className="text-2xl font-bold tabular-nums">{formatNumber(latest?.incidence, 2)}</dd>
+                  <dd className="text-sm">{t('district.population', { population: formatNumber(data.population) })}</dd>
+                </div>
+                <div className="card">
+                  <dt className="text-sm text-ink-muted">{t('district.doubling', { weeks: data.fittedGrowth?.weeks ?? 4 })}</dt>
+                  <dd className="text-2xl font-bold tabular-nums">
+                    {data.fittedGrowth?.doublingWeeks ? t('district.doublingValue', { weeks: formatNumber(data.fittedGrowth.doublingWeeks, 1) }) : t('district.notGrowing')}
                   </dd>
                 </div>
                 <div className="card">
-                  <dt className="text-sm text-ink-muted">Reports on time</dt>
+                  <dt className="text-sm text-ink-muted">{t('district.onTime')}</dt>
                   <dd className="text-2xl font-bold tabular-nums">{formatShare(data.completeness.share)}</dd>
                   <dd className="text-sm">
-                    {data.completeness.onTime} of {data.completeness.expected} due weeks
+                    {t('district.onTimeDetail', { onTime: data.completeness.onTime, expected: data.completeness.expected })}
                   </dd>
                 </div>
               </dl>
               <p className="text-sm text-ink-muted">
-                Channel: {METHOD_LABELS[data.channelMethod]}, from {data.seasonsUsed.length} prior seasons ({[...data.seasonsUsed].sort().join(', ') || 'none'}).
+                {t('district.channel', {
+                  method: t(`district.method.${data.channelMethod}`),
+                  count: data.seasonsUsed.length,
+                  years: [...data.seasonsUsed].sort().join(', ') || t('district.none'),
+                })}
               </p>
               {data.notes.length ? (
                 <ul className="notice notice-info list-disc pl-8 text-sm">
@@ -116,7 +117,7 @@ export function DistrictCasesPage() {
                 </ul>
               ) : null}
               <div className="card">
-                <Suspense fallback={<p className="text-ink-muted">Drawing the chart…</p>}>
+                <Suspense fallback={<p className="text-ink-muted">{t('district.drawing')}</p>}>
                   <ChannelChart data={data} />
                 </Suspense>
               </div>
@@ -125,7 +126,7 @@ export function DistrictCasesPage() {
           )}
           <section aria-labelledby="surveys-title" className="space-y-2">
             <h2 id="surveys-title" className="section-title">
-              Larval surveys
+              {t('district.surveys')}
             </h2>
             {id ? <DistrictSurveys districtId={id} /> : null}
           </section>

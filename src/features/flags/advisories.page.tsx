@@ -5,65 +5,69 @@ import { useSession } from '../../app/session';
 import { TierBadge } from '../ladder/components/tier-badge';
 import { CautionsPanel } from '../cautions/cautions-panel';
 import { useAdvisories } from './api/advisories.api';
-import { formatWhen } from './flag-format';
+import { useFlagFormat } from './flag-format';
 
 /** Every advisory sent (a community worker: their district's), newest first, with the current ones marked. */
 export function AdvisoriesPage() {
+  const f = useFlagFormat();
+  const { t } = f;
   const me = useSession();
   const advisories = useAdvisories();
   return (
-    <section aria-labelledby="page-title">
-      <PageHeading lead="An advisory is a flag a supervisor approved, as it was mailed to the people of the district. It stays current for four weeks and appears in every weekly bulletin meanwhile.">
-        Advisories
-      </PageHeading>
-      <p className="mb-4 flex flex-wrap gap-4 text-sm">
-        <Link className="link" to="/preferences">
-          Choose which districts you receive by mail
+    <section aria-labelledby="page-title" className="min-w-0">
+      <PageHeading lead={t('advisories.lead')}>{t('advisories.title')}</PageHeading>
+      <p className="mb-4 flex flex-wrap gap-x-4 gap-y-2 text-sm">
+        <Link className="link inline-block py-1" to="/preferences">
+          {t('advisories.preferences')}
         </Link>
         {me.role === 'officer' || me.role === 'epidemiologist' ? (
-          <Link className="link" to="/flags/new">
-            Raise a flag
+          <Link className="link inline-block py-1" to="/flags/new">
+            {t('advisories.raise')}
           </Link>
         ) : null}
       </p>
       {advisories.isPending ? (
-        <p className="text-ink-muted">Loading advisories…</p>
+        <p className="text-ink-muted">{t('advisories.loading')}</p>
       ) : advisories.isError ? (
         <FormMessage kind="error">{advisories.error.message}</FormMessage>
       ) : advisories.data.length === 0 ? (
-        <p className="card">No advisory has been sent yet.</p>
+        <p className="card">{t('advisories.empty')}</p>
       ) : (
-        <ul className="space-y-4">
+        <ul className="space-y-4" data-testid="advisories">
           {advisories.data.map((a) => (
-            <li key={a.id} className="card space-y-2">
+            <li key={a.id} className="card min-w-0 space-y-2 break-words">
               <div className="flex flex-wrap items-center gap-3">
                 <h2 className="section-title !mb-0">
                   {a.districtName} ({a.districtCode})
                 </h2>
                 {a.tier ? <TierBadge tier={a.tier} /> : null}
-                <span className="status">{a.current ? 'Current' : 'Past'}</span>
+                <span className="status">{a.current ? t('advisories.current') : t('advisories.past')}</span>
               </div>
               <p className="text-sm text-ink-muted">
-                Sent {formatWhen(a.issuedAt)}
-                {a.issuedBy ? `, signed off by ${a.issuedBy.displayName}` : ''} · to {a.recipients} subscriber{a.recipients === 1 ? '' : 's'}
+                {t('advisories.sent', { when: f.formatWhen(a.issuedAt) })}
+                {a.issuedBy ? t('advisories.signedOffBy', { who: a.issuedBy.displayName }) : ''}
+                {t('advisories.recipients', { count: a.recipients })}
                 {me.role !== 'worker' ? (
                   <>
                     {' '}·{' '}
                     <Link className="link" to={`/flags/${a.flagId}`}>
-                      the flag and its history
+                      {t('advisories.flagLink')}
                     </Link>
                   </>
                 ) : null}
               </p>
               <p>{a.message}</p>
               <ul className="list-disc space-y-1 pl-5 text-sm">
-                {a.actions.map((x) => (
-                  <li key={x.id}>
-                    <strong>{x.title}.</strong> {x.text}
-                  </li>
-                ))}
+                {a.actions.map((x) => {
+                  const action = f.action(x);
+                  return (
+                    <li key={x.id}>
+                      <strong>{action.title}.</strong> {action.text}
+                    </li>
+                  );
+                })}
               </ul>
-              <p className="text-sm italic">{a.caution}</p>
+              <p className="text-sm italic">{f.caution()}</p>
             </li>
           ))}
         </ul>

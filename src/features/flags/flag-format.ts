@@ -1,15 +1,30 @@
-import { FLAG_REASON_LABELS, FLAG_STATUS_LABELS, type FlagDto } from '../../../shared/api/flags.schema';
+import { useTranslation } from 'react-i18next';
+import { ACTION_IDS, type ActionDto, type FlagDto } from '../../../shared/api/flags.schema';
+import { DRIVERS } from '../../../shared/tier/tier-settings';
+import { useFormat } from '../../i18n/format';
 
-const dateTime = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
-export const formatWhen = (iso: string) => dateTime.format(new Date(iso));
-export const reasonLabel = (f: Pick<FlagDto, 'reason'>) => FLAG_REASON_LABELS[f.reason];
-export const statusLabel = (f: Pick<FlagDto, 'status'>) => FLAG_STATUS_LABELS[f.status];
-export const raisedByLabel = (f: FlagDto) => (f.raisedBy ? f.raisedBy.displayName : 'The season run');
+const isKnownAction = (id: string): id is (typeof ACTION_IDS)[number] => (ACTION_IDS as readonly string[]).includes(id);
+const isKnownDriver = (id: string): id is (typeof DRIVERS)[number] => (DRIVERS as readonly string[]).includes(id);
+const HISTORY_ACTIONS = ['flag.raised', 'flag.approved', 'flag.rejected', 'advisory.issued'];
 
-const ACTION_LABELS: Record<string, string> = {
-  'flag.raised': 'Flag raised',
-  'flag.approved': 'Approved',
-  'flag.rejected': 'Rejected',
-  'advisory.issued': 'Advisory queued for mail',
-};
-export const historyLabel = (action: string) => ACTION_LABELS[action] ?? action;
+/**
+ * The words of the flag screens in the interface language. Reasons, statuses, history steps, drivers and
+ * the suggested actions arrive as stable codes and are translated here; the advisory message itself is
+ * the server's text (the suggested wording, or the supervisor's edit) and is shown as it is.
+ */
+export function useFlagFormat() {
+  const { t } = useTranslation('flags');
+  const { dateTime } = useFormat();
+  return {
+    t,
+    formatWhen: (iso: string) => dateTime(iso),
+    reasonLabel: (f: Pick<FlagDto, 'reason'>) => t(`reason.${f.reason}`),
+    statusLabel: (f: Pick<FlagDto, 'status'>) => t(`status.${f.status}`),
+    raisedByLabel: (f: FlagDto) => (f.raisedBy ? f.raisedBy.displayName : t('seasonRun')),
+    historyLabel: (action: string) => (HISTORY_ACTIONS.includes(action) ? t(`history.${action}`) : action),
+    driverLabel: (d: { id: string; label: string }) => (isKnownDriver(d.id) ? t(`driver.${d.id}`) : d.label),
+    /** A suggested action in the interface language (by its id), else as the server sent it. */
+    action: (a: ActionDto) => (isKnownAction(a.id) ? { title: t(`action.${a.id}.title`), text: t(`action.${a.id}.text`) } : a),
+    caution: () => t('actionCaution'),
+  };
+}

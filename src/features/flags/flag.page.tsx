@@ -5,18 +5,20 @@ import { useSession } from '../../app/session';
 import { useFlag } from './api/flags.api';
 import { DecisionForm } from './components/decision.form';
 import { FlagSummary } from './components/flag-summary';
-import { formatWhen, historyLabel } from './flag-format';
+import { useFlagFormat } from './flag-format';
 
 /** One flag with its whole history (who raised, approved or rejected it, when, and what changed). */
 export function FlagPage() {
   const { id = '' } = useParams();
+  const f = useFlagFormat();
+  const { t } = f;
   const me = useSession();
   const detail = useFlag(id);
   return (
     <section aria-labelledby="page-title">
-      <PageHeading>Flag</PageHeading>
+      <PageHeading>{t('flag.title')}</PageHeading>
       {detail.isPending ? (
-        <p className="text-ink-muted">Loading the flag…</p>
+        <p className="text-ink-muted">{t('flag.loading')}</p>
       ) : detail.isError ? (
         <FormMessage kind="error">{detail.error.message}</FormMessage>
       ) : (
@@ -26,35 +28,35 @@ export function FlagPage() {
             {me.role === 'supervisor' ? <DecisionForm flag={detail.data.flag} /> : null}
             <p className="text-sm">
               <Link className="link" to={`/districts/${detail.data.flag.districtId}`}>
-                Open the District file
+                {t('flag.openFile')}
               </Link>
             </p>
           </div>
           <div className="table-wrap">
             <table className="data-table">
-              <caption className="table-caption">History</caption>
+              <caption className="table-caption">{t('flag.historyCaption')}</caption>
               <thead>
                 <tr>
-                  <th scope="col">When</th>
-                  <th scope="col">What</th>
-                  <th scope="col">Who</th>
-                  <th scope="col">Reason or detail</th>
+                  <th scope="col">{t('flag.when')}</th>
+                  <th scope="col">{t('flag.what')}</th>
+                  <th scope="col">{t('flag.who')}</th>
+                  <th scope="col">{t('flag.detail')}</th>
                 </tr>
               </thead>
               <tbody>
                 {detail.data.history.length === 0 ? (
                   <tr>
                     <td colSpan={4} className="text-ink-muted">
-                      No recorded steps yet.
+                      {t('flag.noSteps')}
                     </td>
                   </tr>
                 ) : (
                   detail.data.history.map((h, i) => (
                     <tr key={i}>
-                      <td>{formatWhen(h.at)}</td>
-                      <td>{historyLabel(h.action)}</td>
-                      <td>{h.actor?.displayName ?? 'The season run'}</td>
-                      <td>{h.reason ?? describe(h.after)}</td>
+                      <td>{f.formatWhen(h.at)}</td>
+                      <td>{f.historyLabel(h.action)}</td>
+                      <td>{h.actor?.displayName ?? t('seasonRun')}</td>
+                      <td>{h.reason ?? describe(t, h.after)}</td>
                     </tr>
                   ))
                 )}
@@ -67,10 +69,10 @@ export function FlagPage() {
   );
 }
 
-function describe(after: unknown): string {
+function describe(t: ReturnType<typeof useFlagFormat>['t'], after: unknown): string {
   if (!after || typeof after !== 'object') return '—';
   const a = after as Record<string, unknown>;
-  if (typeof a.recipients === 'number') return `${a.recipients} recipient${a.recipients === 1 ? '' : 's'}`;
-  if (a.edited === true) return 'Message edited before approval';
+  if (typeof a.recipients === 'number') return t('history.recipients', { count: a.recipients });
+  if (a.edited === true) return t('history.edited');
   return '—';
 }

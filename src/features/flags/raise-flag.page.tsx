@@ -1,15 +1,27 @@
 import { useState } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { ACTION_CAUTION, ACTION_IDS, ACTIONS, type ActionId } from '../../../shared/api/flags.schema';
+import { ACTION_IDS, type ActionId } from '../../../shared/api/flags.schema';
 import { CheckboxGroup, FormMessage, SelectField } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
 import { useSession } from '../../app/session';
 import { isApiError } from '../../lib/api-client';
 import { useDistricts } from '../districts/api/districts.api';
 import { useRaiseFlag } from './api/decide-flag.api';
+import { useFlagFormat } from './flag-format';
+
+/** The raise-flag body's messages (shared/api/flags.schema.ts) as sentences naming the field. */
+const KNOWN: Record<string, string> = {
+  'is required': 'required',
+  'must be at least 10 characters': 'minMessage',
+  'must be at most 2,000 characters': 'maxMessage',
+  'must say why (3 characters or more)': 'why',
+  'choose at least one action': 'oneAction',
+};
 
 /** Raise a flag by hand (health officer: any district; epidemiologist: assigned districts). */
 export function RaiseFlagPage() {
+  const f = useFlagFormat();
+  const { t } = f;
   const me = useSession();
   const districts = useDistricts();
   const raise = useRaiseFlag();
@@ -19,13 +31,14 @@ export function RaiseFlagPage() {
   const [message, setMessage] = useState('');
   const [actions, setActions] = useState<string[]>([...ACTION_IDS]);
   const allowed = (districts.data ?? []).filter((d) => me.role !== 'epidemiologist' || me.districts.some((m) => m.id === d.id));
-  const fieldError = (path: string) => (isApiError(raise.error) ? raise.error.fieldMessage(path) : undefined);
+  const fieldError = (path: string, label: string) => {
+    const message = isApiError(raise.error) ? raise.error.fieldMessage(path) : undefined;
+    return message && KNOWN[message] ? t(`validation.${KNOWN[message]}`, { field: label }) : message;
+  };
 
   return (
     <section aria-labelledby="page-title">
-      <PageHeading lead="Saw something the season run cannot: a cluster of fevers, a flooded neighbourhood? Raise a flag; a supervisor signs it off before anything is sent.">
-        Raise a flag
-      </PageHeading>
+      <PageHeading lead={t('raise.lead')}>{t('raise.title')}</PageHeading>
       <form
         className="card max-w-2xl space-y-4"
         onSubmit={(e) => {
@@ -37,8 +50,8 @@ export function RaiseFlagPage() {
         }}
       >
         <FormMessage kind="error">{raise.error?.message}</FormMessage>
-        <SelectField label="District" value={districtId} onChange={(e) => setDistrictId(e.currentTarget.value)} error={fieldError('districtId')} required>
-          <option value="">Choose a district</option>
+        <SelectField label={t('raise.district')} value={districtId} onChange={(e) => setDistrictId(e.currentTarget.value)} error={fieldError('districtId', t('raise.district'))} required>
+          <option value="">{t('raise.chooseDistrict')}</option>
           {allowed.map((d) => (
             <option key={d.id} value={d.id}>
               {d.name} ({d.code})
@@ -47,26 +60,26 @@ export function RaiseFlagPage() {
         </SelectField>
         <div className="field">
           <label htmlFor="flag-note" className="field-label">
-            What did you see?
+            {t('raise.note')}
           </label>
           <textarea id="flag-note" className="input" value={note} onChange={(e) => setNote(e.currentTarget.value)} maxLength={1000} required />
         </div>
         <div className="field">
           <label htmlFor="flag-message" className="field-label">
-            Proposed advisory message (optional: Broodcast writes one from the tier and drivers)
+            {t('raise.message')}
           </label>
           <textarea id="flag-message" className="input min-h-24" value={message} onChange={(e) => setMessage(e.currentTarget.value)} maxLength={2000} />
         </div>
         <CheckboxGroup
-          legend="Suggested actions"
-          options={ACTION_IDS.map((a) => ({ value: a, label: ACTIONS[a].title }))}
+          legend={t('raise.actions')}
+          options={ACTION_IDS.map((a) => ({ value: a, label: t(`action.${a}.title`) }))}
           value={actions}
           onChange={setActions}
-          hint={ACTION_CAUTION}
-          error={fieldError('actions')}
+          hint={f.caution()}
+          error={fieldError('actions', t('raise.actions'))}
         />
         <button type="submit" className="btn btn-primary" disabled={raise.isPending || !districtId || note.trim().length < 3 || actions.length === 0}>
-          {raise.isPending ? 'Raising…' : 'Raise the flag'}
+          {raise.isPending ? t('raise.raising') : t('raise.submit')}
         </button>
       </form>
     </section>

@@ -18,8 +18,17 @@ export type OutboxItem = {
   survey: SurveyBody;
   queuedAt: string;
   attempts: number;
-  /** Why the last attempt failed: `offline` (try again later) or `refused` (the server said no). */
-  problem: { kind: 'offline' | 'refused'; message: string; fields?: { path: string; message: string }[] } | null;
+  /**
+   * Why the last attempt failed: `offline` (try again later) or `refused` (the server said no). `code`
+   * says which "not sent yet" case it is, so the screen words it in the interface language; `message`
+   * is the English text (and the server's own words for `server` and `refused`).
+   */
+  problem: {
+    kind: 'offline' | 'refused';
+    code?: 'no-connection' | 'sign-in' | 'server';
+    message: string;
+    fields?: { path: string; message: string }[];
+  } | null;
 };
 
 export type FlushResult = { sent: SurveyDto[]; kept: number };
@@ -92,7 +101,7 @@ export class SurveyOutbox {
           credentials: 'same-origin',
         });
       } catch {
-        update({ kind: 'offline', message: 'Not sent yet: no connection. It will be sent when the browser is back online.' });
+        update({ kind: 'offline', code: 'no-connection', message: 'Not sent yet: no connection. It will be sent when the browser is back online.' });
         break; // no point trying the rest while offline
       }
       if (response.status === 200 || response.status === 201) {
@@ -103,7 +112,11 @@ export class SurveyOutbox {
       }
       const error = await errorFromResponse(response);
       if (response.status === 401 || response.status >= 500 || response.status === 0) {
-        update({ kind: 'offline', message: response.status === 401 ? 'Not sent yet: sign in again to send it.' : `Not sent yet: ${error.message}` });
+        update(
+          response.status === 401
+            ? { kind: 'offline', code: 'sign-in', message: 'Not sent yet: sign in again to send it.' }
+            : { kind: 'offline', code: 'server', message: error.message },
+        );
         break;
       }
       update({ kind: 'refused', message: error.message, fields: error.fields });

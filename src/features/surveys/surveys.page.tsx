@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { useTranslation } from 'react-i18next';
 import { PageHeading } from '../../components/page-heading';
 import { useSession } from '../../app/session';
 import { useDistricts } from '../districts/api/districts.api';
@@ -10,6 +11,7 @@ import { useSurveyOutbox } from './use-survey-outbox';
 
 /** Larval surveys from the field: the form (works offline), what is waiting to be sent, and the district's recent surveys. */
 export function SurveysPage() {
+  const { t } = useTranslation('surveys');
   const me = useSession();
   const districts = useDistricts();
   const outbox = useSurveyOutbox();
@@ -18,24 +20,22 @@ export function SurveysPage() {
   const first = choices[0];
   return (
     <section aria-labelledby="page-title">
-      <PageHeading lead="Fill in a survey where you are. It is kept on this device until Broodcast has it, so a lost connection loses nothing.">
-        Surveys
-      </PageHeading>
-      {districts.data?.some((d) => d.isDemo) ? <p className="demo-label">Demo data — the Halvern Region is invented</p> : null}
+      <PageHeading lead={t('page.lead')}>{t('page.title')}</PageHeading>
+      {districts.data?.some((d) => d.isDemo) ? <p className="demo-label">{t('page.demo')}</p> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,28rem)_minmax(0,1fr)]">
         <div className="card min-w-0">
-          {choices.length ? <SurveyFormCard districts={choices} /> : <p className="text-ink-muted">Loading districts…</p>}
+          {choices.length ? <SurveyFormCard districts={choices} /> : <p className="text-ink-muted">{t('page.loadingDistricts')}</p>}
         </div>
         <div className="min-w-0 space-y-6">
           <OutboxList items={outbox.items} onRetry={outbox.retry} onDiscard={outbox.discard} />
           {first ? (
             <section aria-labelledby="recent-title" className="space-y-2">
               <h2 id="recent-title" className="section-title">
-                Recent surveys in {first.name}
+                {t('page.recentTitle', { district: first.name })}
               </h2>
               <DistrictSurveys districtId={first.id} />
-              <Link className="link text-sm" to={`/districts/${first.id}/cases`}>
-                Cases in {first.name}
+              <Link className="link inline-block py-1 text-sm" to={`/districts/${first.id}/cases`}>
+                {t('page.casesLink', { district: first.name })}
               </Link>
             </section>
           ) : null}

@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { useForm, type FieldError } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { caseEntryFormSchema, type CaseEntryForm, type CasesSettings, type DiseaseDto } from '../../../../shared/api/cases.schema';
@@ -6,13 +7,16 @@ import type { DistrictRef } from '../../../../shared/api/auth.schema';
 import { FormMessage, SelectField, TextField } from '../../../components/form';
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
 import { usePutCount } from '../api/put-count.api';
+import { caseMessage } from '../case-format';
 
-const numberError = (error: FieldError | undefined, empty: string) =>
-  error ? (error.type === 'invalid_type' ? empty : error.message) : undefined;
 const optionalNumber = (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v));
 
 /** One district's count for one week, with the optional confirmed / probable split. */
 export function CaseEntryForm({ districts, diseases, settings }: { districts: DistrictRef[]; diseases: DiseaseDto[]; settings: CasesSettings }) {
+  const { t } = useTranslation('cases');
+  const numberError = (label: string, error: FieldError | undefined, empty: string) =>
+    error ? (error.type === 'invalid_type' ? empty : caseMessage(t, label, error.message)) : undefined;
+  const textError = (label: string, error: FieldError | undefined) => caseMessage(t, label, error?.message);
   const schema = useMemo(() => caseEntryFormSchema(settings.epiWeekSystem, settings.today), [settings]);
   const put = usePutCount();
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
@@ -40,11 +44,8 @@ export function CaseEntryForm({ districts, diseases, settings }: { districts: Di
     try {
       const result = await put.mutateAsync({ districtId, body: { ...rest, ...(reason?.trim() ? { reason: reason.trim() } : {}), source: 'form' } });
       const district = districts.find((d) => d.id === districtId);
-      const what = { created: 'Saved', corrected: 'Corrected', unchanged: 'Nothing changed for' }[result.outcome];
-      setMessage({
-        kind: 'success',
-        text: `${what} ${district?.code ?? ''} week ${values.week} of ${values.year}: ${result.count.cases} cases${result.count.late ? ' (received late)' : ''}.`,
-      });
+      const text = t(`entry.${result.outcome}`, { district: district?.code ?? '', week: values.week, year: values.year, cases: result.count.cases });
+      setMessage({ kind: 'success', text: result.count.late ? t('entry.late', { text: text.replace(/\.$/, '') }) + '.' : text });
     } catch (error) {
       const unmatched = applyServerFieldErrors(error, setError, ['districtId', 'diseaseId', 'year', 'week', 'cases', 'confirmed', 'probable', 'reason']);
       setMessage({ kind: 'error', text: formErrorText(error, unmatched) });
@@ -54,47 +55,77 @@ export function CaseEntryForm({ districts, diseases, settings }: { districts: Di
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby="entry-title">
       <h2 id="entry-title" className="section-title">
-        Enter a week’s count
+        {t('entry.title')}
       </h2>
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
       <div className="grid gap-3 sm:grid-cols-2">
-        <SelectField label="District" error={errors.districtId?.message} {...register('districtId')}>
+        <SelectField label={t('entry.district')} error={textError(t('entry.district'), errors.districtId)} {...register('districtId')}>
           {districts.map((d) => (
             <option key={d.id} value={d.id}>
               {d.code} — {d.name}
             </option>
           ))}
         </SelectField>
-        <SelectField label="Disease" error={errors.diseaseId?.message} {...register('diseaseId')}>
+        <SelectField label={t('entry.disease')} error={textError(t('entry.disease'), errors.diseaseId)} {...register('diseaseId')}>
           {diseases.map((d) => (
             <option key={d.id} value={d.id}>
               {d.name}
             </option>
           ))}
         </SelectField>
-        <TextField label="Year" type="number" inputMode="numeric" error={numberError(errors.year, 'Enter the epidemiological year.')} {...register('year', { valueAsNumber: true })} />
         <TextField
-          label="Week"
+          label={t('entry.year')}
+          type="number"
+          inputMode="numeric"
+          error={numberError(t('entry.year'), errors.year, t('entry.yearEmpty'))}
+          {...register('year', { valueAsNumber: true })}
+        />
+        <TextField
+          label={t('entry.week')}
           type="number"
           inputMode="numeric"
           min={1}
           max={53}
-          hint={settings.epiWeekSystem === 'iso' ? 'ISO weeks, Monday to Sunday.' : 'Epidemiological weeks, Sunday to Saturday.'}
-          error={numberError(errors.week, 'Enter the week number.')}
+          hint={settings.epiWeekSystem === 'iso' ? t('entry.isoHint') : t('entry.epiHint')}
+          error={numberError(t('entry.week'), errors.week, t('entry.weekEmpty'))}
           {...register('week', { valueAsNumber: true })}
         />
-        <TextField label="Cases" type="number" inputMode="numeric" min={0} step={1} error={numberError(errors.cases, 'Enter the cases as a whole number (0 if none).')} {...register('cases', { valueAsNumber: true })} />
-        <TextField label="Confirmed (optional)" type="number" inputMode="numeric" min={0} step={1} error={numberError(errors.confirmed, 'Enter a whole number or leave it empty.')} {...register('confirmed', { setValueAs: optionalNumber })} />
-        <TextField label="Probable (optional)" type="number" inputMode="numeric" min={0} step={1} error={numberError(errors.probable, 'Enter a whole number or leave it empty.')} {...register('probable', { setValueAs: optionalNumber })} />
         <TextField
-          label="Reason (for a correction)"
-          hint="Needed when the week already has a count, or is closed."
-          error={errors.reason?.message}
+          label={t('entry.cases')}
+          type="number"
+          inputMode="numeric"
+          min={0}
+          step={1}
+          error={numberError(t('entry.cases'), errors.cases, t('entry.casesEmpty'))}
+          {...register('cases', { valueAsNumber: true })}
+        />
+        <TextField
+          label={t('entry.confirmed')}
+          type="number"
+          inputMode="numeric"
+          min={0}
+          step={1}
+          error={numberError(t('entry.confirmed'), errors.confirmed, t('entry.optionalEmpty'))}
+          {...register('confirmed', { setValueAs: optionalNumber })}
+        />
+        <TextField
+          label={t('entry.probable')}
+          type="number"
+          inputMode="numeric"
+          min={0}
+          step={1}
+          error={numberError(t('entry.probable'), errors.probable, t('entry.optionalEmpty'))}
+          {...register('probable', { setValueAs: optionalNumber })}
+        />
+        <TextField
+          label={t('entry.reason')}
+          hint={t('entry.reasonHint')}
+          error={textError(t('entry.reason'), errors.reason)}
           {...register('reason')}
         />
       </div>
       <button type="submit" className="btn btn-primary" disabled={isSubmitting}>
-        {isSubmitting ? 'Saving…' : 'Save the count'}
+        {isSubmitting ? t('entry.saving') : t('entry.save')}
       </button>
     </form>
   );

@@ -3,10 +3,11 @@ import { Link } from 'react-router-dom';
 import type { GridResponse, GridRow, WeekRef } from '../../../../shared/api/cases.schema';
 import { useSession } from '../../../app/session';
 import { FormMessage } from '../../../components/form';
+import { isApiError } from '../../../lib/api-client';
 import { formErrorText } from '../../../lib/form-errors';
 import { useCloseWeek } from '../api/close-week.api';
 import { usePutCount } from '../api/put-count.api';
-import { formatShare, weekLabel, weekSpan } from '../case-format';
+import { useCaseFormat } from '../case-format';
 import { RevisionHistory } from './revision-history';
 
 type Selected = { row: GridRow; index: number; pending?: number };
@@ -17,6 +18,7 @@ type Selected = { row: GridRow; index: number; pending?: number };
  * or anything in a closed week opens the correction panel below, which asks for the reason.
  */
 export function CaseGrid({ grid, today }: { grid: GridResponse; today: string }) {
+  const { t, weekLabel, weekSpan, formatShare } = useCaseFormat();
   const me = useSession();
   const put = usePutCount();
   const [selected, setSelected] = useState<Selected | null>(null);
@@ -30,7 +32,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
     const cases = Number(raw);
     if (!Number.isInteger(cases) || cases < 0) {
       setSelected({ row, index });
-      setProblem(`Cases for ${row.district.code} ${weekLabel(cell)} must be a whole number, 0 or more.`);
+      setProblem(t('grid.notWhole', { cell: `${row.district.code} ${weekLabel(cell)}` }));
       return;
     }
     if (cell.count?.cases === cases) return;
@@ -53,17 +55,17 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
       <div className="table-wrap">
         <table className="data-table case-grid" aria-describedby="grid-help">
           <caption className="table-caption">
-            {grid.disease.name}: weekly cases, last {grid.weeks.length} weeks
+            {t('grid.caption', { disease: grid.disease.name, weeks: grid.weeks.length })}
           </caption>
           <thead>
             <tr>
-              <th scope="col">District</th>
+              <th scope="col">{t('grid.district')}</th>
               {grid.weeks.map((w) => (
                 <th key={`${w.year}-${w.week}`} scope="col" title={weekSpan(w)} className="text-right">
                   {weekLabel(w)}
                 </th>
               ))}
-              <th scope="col">On time</th>
+              <th scope="col">{t('grid.onTime')}</th>
             </tr>
           </thead>
           <tbody>
@@ -76,14 +78,14 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
                 </th>
                 {row.cells.map((cell, index) => {
                   const label = `${row.district.code} ${weekLabel(cell)}`;
-                  const marks = [cell.closed ? 'closed' : null, cell.count?.late ? 'late' : null].filter(Boolean).join(', ');
+                  const marks = [cell.closed ? t('grid.closed') : null, cell.count?.late ? t('grid.late') : null].filter(Boolean).join(', ');
                   const future = grid.weeks[index].start > today;
                   return (
                     <td key={`${cell.year}-${cell.week}`} className="text-right tabular-nums" data-closed={cell.closed || undefined}>
                       {row.editable && !future ? (
                         <input
                           key={`${cell.count?.id ?? 'new'}-${cell.count?.version ?? 0}-${epoch}`}
-                          aria-label={`Cases ${label}${marks ? ` (${marks})` : ''}`}
+                          aria-label={marks ? t('grid.cellLabelMarks', { cell: label, marks }) : t('grid.cellLabel', { cell: label })}
                           className="input w-16 px-1 py-0.5 text-right"
                           type="text"
                           inputMode="numeric"
@@ -95,7 +97,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
                           }}
                         />
                       ) : (
-                        <button type="button" className="btn-quiet tabular-nums" aria-label={`${label}: ${cell.count?.cases ?? 'no report'}${marks ? ` (${marks})` : ''}`} onClick={() => setSelected({ row, index })}>
+                        <button type="button" className="btn-quiet tabular-nums" aria-label={t(marks ? 'grid.readLabelMarks' : 'grid.readLabel', { cell: label, cases: cell.count?.cases ?? t('grid.noReport'), marks })} onClick={() => setSelected({ row, index })}>
                           {cell.count?.cases ?? '–'}
                         </button>
                       )}
@@ -103,7 +105,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
                     </td>
                   );
                 })}
-                <td className="tabular-nums" title={`${row.completeness.onTime} of ${row.completeness.expected} weekly reports on time`}>
+                <td className="tabular-nums" title={t('grid.onTimeTitle', { onTime: row.completeness.onTime, expected: row.completeness.expected })}>
                   {formatShare(row.completeness.share)}
                 </td>
               </tr>
@@ -112,8 +114,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
         </table>
       </div>
       <p id="grid-help" className="text-sm text-ink-muted">
-        Type a count and press Enter. Changing a recorded count is a correction and asks for a reason; a closed week changes only that way.
-        “On time” is the share of due weekly reports received by the deadline.
+        {t('grid.help')}
       </p>
       {problem ? <FormMessage kind="error">{problem}</FormMessage> : null}
       {selected ? (
@@ -149,6 +150,7 @@ function CellPanel({
   role: string;
   onDone: () => void;
 }) {
+  const { t, weekLabel, weekSpan } = useCaseFormat();
   const { row, index, pending } = selected;
   const cell = row.cells[index];
   const put = usePutCount();
@@ -166,17 +168,20 @@ function CellPanel({
         districtId: row.district.id,
         body: { diseaseId: grid.disease.id, year: cell.year, week: cell.week, cases: pending, reason, source: 'grid' },
       });
-      setMessage({ kind: 'success', text: `Saved: ${pending} cases.` });
+      setMessage({ kind: 'success', text: t('grid.savedCases', { cases: pending }) });
       onDone();
     } catch (error) {
-      setMessage({ kind: 'error', text: formErrorText(error).replace('Some fields need attention; see the messages beside them.', 'Give the reason for the correction.') });
+      setMessage({
+        kind: 'error',
+        text: isApiError(error) && error.fields.some((f) => f.path.endsWith('reason')) ? t('grid.giveReason') : formErrorText(error),
+      });
     }
   };
 
   const closeWeek = async () => {
     try {
       await close.mutateAsync({ districtId: row.district.id, week: { year: cell.year, week: cell.week } });
-      setMessage({ kind: 'success', text: `${weekLabel(cell)} is closed for ${row.district.name}.` });
+      setMessage({ kind: 'success', text: t('grid.isClosed', { week: weekLabel(cell), district: row.district.name }) });
     } catch (error) {
       setMessage({ kind: 'error', text: formErrorText(error) });
     }
@@ -189,12 +194,14 @@ function CellPanel({
           {row.district.code} {row.district.name} · {weekLabel(cell)} ({weekSpan(week)})
         </h3>
         <button type="button" className="btn btn-secondary btn-small" onClick={onDone}>
-          Close panel
+          {t('grid.closePanel')}
         </button>
       </div>
       <p className="text-sm">
-        {cell.count ? `${cell.count.cases} cases recorded (version ${cell.count.version}${cell.count.late ? ', received late' : ''}).` : 'No count recorded.'}{' '}
-        {cell.closed ? 'This week is closed: it changes only through a correction with a reason.' : 'This week is open.'}
+        {cell.count
+          ? t(cell.count.late ? 'grid.recordedLate' : 'grid.recorded', { cases: cell.count.cases, version: cell.count.version })
+          : t('grid.noCount')}{' '}
+        {cell.closed ? t('grid.weekClosed') : t('grid.weekOpen')}
       </p>
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
       {pending !== undefined ? (
@@ -206,28 +213,28 @@ function CellPanel({
           }}
         >
           <p className="text-sm font-bold">
-            {cell.count ? `Correct ${cell.count.cases} to ${pending}` : `Enter ${pending} in a closed week`}
+            {cell.count ? t('grid.correctTo', { from: cell.count.cases, to: pending }) : t('grid.enterClosed', { cases: pending })}
           </p>
           <div className="field">
             <label htmlFor="correction-reason" className="field-label">
-              Reason for the correction
+              {t('grid.reason')}
             </label>
             <input id="correction-reason" className="input" value={reason} onChange={(e) => setReason(e.currentTarget.value)} required minLength={3} />
           </div>
           <button type="submit" className="btn btn-primary btn-small" disabled={put.isPending}>
-            {put.isPending ? 'Saving…' : 'Save the correction'}
+            {put.isPending ? t('grid.saving') : t('grid.saveCorrection')}
           </button>
         </form>
       ) : null}
       <div className="flex flex-wrap gap-2">
         {cell.count && canReadHistory ? (
           <button type="button" className="btn btn-secondary btn-small" aria-expanded={showHistory} onClick={() => setShowHistory((v) => !v)}>
-            {showHistory ? 'Hide the revision history' : 'Show the revision history'}
+            {showHistory ? t('grid.hideHistory') : t('grid.showHistory')}
           </button>
         ) : null}
         {canClose ? (
           <button type="button" className="btn btn-secondary btn-small" onClick={() => void closeWeek()} disabled={close.isPending}>
-            Close {weekLabel(cell)} for {row.district.code}
+            {t('grid.closeWeek', { week: weekLabel(cell), district: row.district.code })}
           </button>
         ) : null}
       </div>

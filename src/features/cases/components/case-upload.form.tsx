@@ -1,12 +1,15 @@
 import { useId, useRef, useState, type FormEvent } from 'react';
+import { Trans, useTranslation } from 'react-i18next';
 import type { UploadReport } from '../../../../shared/api/cases.schema';
 import { FormMessage } from '../../../components/form';
+import { errorText } from '../../../lib/error-text';
 import { UploadRejected, useUploadCases } from '../api/upload-cases.api';
 
 const MAX_BYTES = 2 * 1024 * 1024;
 
 /** Upload a CSV of weekly counts; shows the row-level report. All rows load, or none. */
 export function CaseUploadForm() {
+  const { t } = useTranslation('cases');
   const upload = useUploadCases();
   const inputId = useId();
   const fileRef = useRef<HTMLInputElement>(null);
@@ -17,19 +20,26 @@ export function CaseUploadForm() {
     event.preventDefault();
     setOutcome(null);
     const file = fileRef.current?.files?.[0];
-    if (!file) return setOutcome({ kind: 'error', text: 'Choose a .csv file first.' });
-    if (file.size > MAX_BYTES) return setOutcome({ kind: 'error', text: `${file.name} is larger than 2 MB: split it into several files.` });
+    if (!file) return setOutcome({ kind: 'error', text: t('upload.chooseFile') });
+    if (file.size > MAX_BYTES) return setOutcome({ kind: 'error', text: t('upload.tooLarge', { file: file.name }) });
     try {
       const report = await upload.mutateAsync({ file, reason });
       setOutcome({
         kind: 'success',
-        text: `${file.name}: ${report.rows} rows read — ${report.created} new, ${report.corrected} corrected, ${report.unchanged} unchanged${report.late ? `, ${report.late} received late` : ''}.`,
+        text: t(report.late ? 'upload.doneLate' : 'upload.done', {
+          file: file.name,
+          rows: report.rows,
+          created: report.created,
+          corrected: report.corrected,
+          unchanged: report.unchanged,
+          late: report.late,
+        }),
       });
       if (fileRef.current) fileRef.current.value = '';
     } catch (error) {
       setOutcome({
         kind: 'error',
-        text: error instanceof Error ? error.message : 'The file could not be loaded.',
+        text: error instanceof Error ? errorText(error) : t('upload.failed'),
         report: error instanceof UploadRejected ? error.report : null,
       });
     }
@@ -38,11 +48,10 @@ export function CaseUploadForm() {
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby="upload-title">
       <h2 id="upload-title" className="section-title">
-        Upload counts
+        {t('upload.title')}
       </h2>
-      <p className="text-sm text-ink-muted">
-        A CSV with the header <code className="font-mono">district,year,week,disease,cases</code> (district and disease codes). The same file twice
-        changes nothing; a row that changes a recorded count needs the reason below.
+      <p className="break-words text-sm text-ink-muted">
+        <Trans t={t} i18nKey="upload.help" components={[<code key="header" className="font-mono" />]} />
       </p>
       {outcome ? (
         <FormMessage kind={outcome.kind}>
@@ -52,13 +61,13 @@ export function CaseUploadForm() {
       {outcome?.report?.problems.length ? (
         <div className="table-wrap">
           <table className="data-table" data-testid="upload-report">
-            <caption className="table-caption">Problems found (nothing was written)</caption>
+            <caption className="table-caption">{t('upload.problems')}</caption>
             <thead>
               <tr>
-                <th scope="col">Row</th>
-                <th scope="col">Column</th>
-                <th scope="col">Value</th>
-                <th scope="col">Reason</th>
+                <th scope="col">{t('upload.row')}</th>
+                <th scope="col">{t('upload.column')}</th>
+                <th scope="col">{t('upload.value')}</th>
+                <th scope="col">{t('upload.reason')}</th>
               </tr>
             </thead>
             <tbody>
@@ -76,18 +85,18 @@ export function CaseUploadForm() {
       ) : null}
       <div className="field">
         <label htmlFor={inputId} className="field-label">
-          CSV file
+          {t('upload.file')}
         </label>
         <input id={inputId} ref={fileRef} type="file" className="input" accept=".csv,text/csv" />
       </div>
       <div className="field">
         <label htmlFor={`${inputId}-reason`} className="field-label">
-          Reason for any corrections (optional)
+          {t('upload.correctionReason')}
         </label>
         <input id={`${inputId}-reason`} className="input" value={reason} onChange={(e) => setReason(e.currentTarget.value)} />
       </div>
       <button type="submit" className="btn btn-primary btn-small" disabled={upload.isPending}>
-        {upload.isPending ? 'Uploading…' : 'Upload the file'}
+        {upload.isPending ? t('upload.uploading') : t('upload.submit')}
       </button>
     </form>
   );

@@ -3,7 +3,9 @@ import { BarChart, LineChart } from 'echarts/charts';
 import { GridComponent, LegendComponent, TooltipComponent } from 'echarts/components';
 import * as echarts from 'echarts/core';
 import { CanvasRenderer } from 'echarts/renderers';
+import { useTranslation } from 'react-i18next';
 import type { SignalsResponse } from '../../../../shared/api/cases.schema';
+import { useFormat } from '../../../i18n/format';
 
 // Only the charts and components this chart uses (STACK.md: tree-shaken ECharts).
 echarts.use([BarChart, LineChart, GridComponent, LegendComponent, TooltipComponent, CanvasRenderer]);
@@ -20,8 +22,10 @@ const PRIOR = '#8c98cf';
  * bound, centre line dashed) and the prior seasons (thin lines, hidden until chosen in the legend).
  */
 export function ChannelChart({ data }: { data: SignalsResponse }) {
+  const { t } = useTranslation('cases');
+  const { number } = useFormat();
   const weeksInYear = Math.max(data.weeks.length, ...data.priorSeasons.map((s) => s.weeks.length));
-  const categories = Array.from({ length: weeksInYear }, (_, i) => `W${i + 1}`);
+  const categories = Array.from({ length: weeksInYear }, (_, i) => t('chart.weekShort', { week: i + 1 }));
   const byWeek = new Map(data.weeks.map((w) => [w.week, w]));
   const at = (i: number) => byWeek.get(i + 1);
   const lower = categories.map((_, i) => at(i)?.channel?.lower ?? null);
@@ -31,7 +35,8 @@ export function ChannelChart({ data }: { data: SignalsResponse }) {
   });
   const centre = categories.map((_, i) => at(i)?.channel?.centre ?? null);
   const season = categories.map((_, i) => at(i)?.cases ?? null);
-  const priorNames = data.priorSeasons.map((s) => `${s.year}${data.excludedYears.includes(s.year) ? ' (left out)' : ''}`);
+  const priorNames = data.priorSeasons.map((s) => (data.excludedYears.includes(s.year) ? t('chart.leftOut', { year: s.year }) : String(s.year)));
+  const names = { channel: t('chart.channel'), lower: t('chart.lower'), centre: t('chart.centre'), season: t('chart.season', { year: data.year }) };
 
   const option = {
     aria: { enabled: true },
@@ -42,7 +47,7 @@ export function ChannelChart({ data }: { data: SignalsResponse }) {
     legend: {
       top: 0,
       type: 'scroll',
-      data: ['Endemic channel', 'Channel centre', `${data.year} cases`, ...priorNames],
+      data: [names.channel, names.centre, names.season, ...priorNames],
       selected: Object.fromEntries(priorNames.map((n) => [n, false])),
     },
     tooltip: {
@@ -51,22 +56,22 @@ export function ChannelChart({ data }: { data: SignalsResponse }) {
       formatter: (params: { dataIndex: number; seriesName: string; value: unknown }[]) => {
         const i = params[0]?.dataIndex ?? 0;
         const w = at(i);
-        const fmt = (v: number | null | undefined) => (v === null || v === undefined ? '—' : v.toFixed(v % 1 ? 1 : 0));
+        const fmt = (v: number | null | undefined) => (v === null || v === undefined ? '—' : number(v, v % 1 ? 1 : 0, true));
         const lines = [
-          `Week ${i + 1}`,
-          `${data.year}: ${fmt(season[i])} cases`,
-          w?.channel ? `Channel ${fmt(w.channel.lower)} – ${fmt(w.channel.upper)}, centre ${fmt(w.channel.centre)}` : 'No channel',
+          t('chart.week', { week: i + 1 }),
+          t('chart.seasonLine', { year: data.year, cases: fmt(season[i]) }),
+          w?.channel ? t('chart.channelLine', { lower: fmt(w.channel.lower), upper: fmt(w.channel.upper), centre: fmt(w.channel.centre) }) : t('chart.noChannel'),
           ...params.filter((p) => priorNames.includes(p.seriesName)).map((p) => `${p.seriesName}: ${fmt(p.value as number | null)}`),
         ];
         return lines.join('<br>');
       },
     },
     xAxis: { type: 'category', data: categories, axisLabel: { interval: 3 } },
-    yAxis: { type: 'value', name: 'cases per week', nameTextStyle: { align: 'left' }, minInterval: 1 },
+    yAxis: { type: 'value', name: t('chart.axis'), nameTextStyle: { align: 'left' }, minInterval: 1 },
     series: [
-      { name: 'Channel lower bound', type: 'line', data: lower, stack: 'channel', symbol: 'none', lineStyle: { width: 0 }, itemStyle: { color: BAND } },
+      { name: names.lower, type: 'line', data: lower, stack: 'channel', symbol: 'none', lineStyle: { width: 0 }, itemStyle: { color: BAND } },
       {
-        name: 'Endemic channel',
+        name: names.channel,
         type: 'line',
         data: width,
         stack: 'channel',
@@ -75,8 +80,8 @@ export function ChannelChart({ data }: { data: SignalsResponse }) {
         areaStyle: { color: BAND, opacity: 0.7 },
         itemStyle: { color: BAND },
       },
-      { name: 'Channel centre', type: 'line', data: centre, symbol: 'none', lineStyle: { color: CENTRE, type: 'dashed', width: 1.5 }, itemStyle: { color: CENTRE } },
-      { name: `${data.year} cases`, type: 'bar', data: season, itemStyle: { color: SEASON }, barMaxWidth: 12 },
+      { name: names.centre, type: 'line', data: centre, symbol: 'none', lineStyle: { color: CENTRE, type: 'dashed', width: 1.5 }, itemStyle: { color: CENTRE } },
+      { name: names.season, type: 'bar', data: season, itemStyle: { color: SEASON }, barMaxWidth: 12 },
       ...data.priorSeasons.map((s, i) => ({
         name: priorNames[i],
         type: 'line',

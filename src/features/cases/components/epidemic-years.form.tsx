@@ -1,4 +1,5 @@
 import { useState, type FormEvent } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { SignalsResponse } from '../../../../shared/api/cases.schema';
 import { CheckboxGroup, FormMessage } from '../../../components/form';
 import { formErrorText } from '../../../lib/form-errors';
@@ -6,6 +7,7 @@ import { useSetChannelSettings } from '../api/channel-settings.api';
 
 /** Which prior seasons the district's channel leaves out as epidemic years (per district and disease). */
 export function EpidemicYearsForm({ data }: { data: SignalsResponse }) {
+  const { t } = useTranslation('cases');
   const save = useSetChannelSettings();
   const [years, setYears] = useState(data.excludedYears.map(String));
   const [message, setMessage] = useState<{ kind: 'success' | 'error'; text: string } | null>(null);
@@ -13,7 +15,10 @@ export function EpidemicYearsForm({ data }: { data: SignalsResponse }) {
     event.preventDefault();
     try {
       const result = await save.mutateAsync({ districtId: data.district.id, body: { diseaseId: data.disease.id, excludedYears: years.map(Number) } });
-      setMessage({ kind: 'success', text: result.excludedYears.length ? `Left out: ${result.excludedYears.join(', ')}.` : 'Every prior season counts.' });
+      setMessage({
+        kind: 'success',
+        text: result.excludedYears.length ? t('epidemicYears.leftOut', { years: result.excludedYears.join(', ') }) : t('epidemicYears.allCount'),
+      });
     } catch (error) {
       setMessage({ kind: 'error', text: formErrorText(error) });
     }
@@ -21,19 +26,19 @@ export function EpidemicYearsForm({ data }: { data: SignalsResponse }) {
   return (
     <form onSubmit={onSubmit} className="card space-y-2" aria-labelledby="epidemic-years-title">
       <h2 id="epidemic-years-title" className="section-title">
-        Epidemic years
+        {t('epidemicYears.title')}
       </h2>
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
       <CheckboxGroup
-        legend={`Seasons to leave out of the ${data.disease.name} channel`}
-        hint="An epidemic season would raise the channel and hide the next epidemic."
+        legend={t('epidemicYears.legend', { disease: data.disease.name })}
+        hint={t('epidemicYears.hint')}
         options={data.priorSeasons.map((s) => ({ value: String(s.year), label: String(s.year) }))}
         value={years}
         onChange={setYears}
-        emptyText="No prior seasons on record."
+        emptyText={t('epidemicYears.empty')}
       />
       <button type="submit" className="btn btn-secondary btn-small" disabled={save.isPending}>
-        Save the epidemic years
+        {t('epidemicYears.save')}
       </button>
     </form>
   );

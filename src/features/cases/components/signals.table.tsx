@@ -1,17 +1,16 @@
 import { Fragment, useState } from 'react';
-import { CHANNEL_ZONE_LABELS } from '../../../../shared/signals/endemic-channel';
 import type { SignalsResponse } from '../../../../shared/api/cases.schema';
 import { FormMessage } from '../../../components/form';
 import { formErrorText } from '../../../lib/form-errors';
 import { useCloseWeek } from '../api/close-week.api';
-import { formatNumber } from '../case-format';
+import { useCaseFormat } from '../case-format';
 import { RevisionHistory } from './revision-history';
-
-const flag = (s: { statistic: number | null; alarm: boolean | null }) =>
-  s.statistic === null ? '—' : `${s.statistic.toFixed(2)}${s.alarm ? ' · alarm' : ''}`;
 
 /** The season week by week: count, incidence, channel, zone, C1–C3, CUSUM, growth; history and closing on demand. */
 export function SignalsTable({ data, today }: { data: SignalsResponse; today: string }) {
+  const { t, formatNumber, formatDate } = useCaseFormat();
+  const flag = (s: { statistic: number | null; alarm: boolean | null }) =>
+    s.statistic === null ? '—' : `${formatNumber(s.statistic, 2)}${s.alarm ? ` · ${t('signals.alarm')}` : ''}`;
   const [open, setOpen] = useState<string | null>(null);
   const close = useCloseWeek();
   const [message, setMessage] = useState<string | null>(null);
@@ -23,21 +22,21 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
       <div className="table-wrap">
         <table className="data-table" data-testid="signals-table">
           <caption className="table-caption">
-            {data.disease.name} in {data.district.name}, {data.year}, most recent week first
+            {t('signals.caption', { disease: data.disease.name, district: data.district.name, year: data.year })}
           </caption>
           <thead>
             <tr>
-              <th scope="col">Week</th>
-              <th scope="col">Cases</th>
-              <th scope="col">Per 100,000</th>
-              <th scope="col">Channel (lower – centre – upper)</th>
-              <th scope="col">Zone</th>
+              <th scope="col">{t('signals.week')}</th>
+              <th scope="col">{t('signals.cases')}</th>
+              <th scope="col">{t('signals.per100k')}</th>
+              <th scope="col">{t('signals.channel')}</th>
+              <th scope="col">{t('signals.zone')}</th>
               <th scope="col">C1</th>
               <th scope="col">C2</th>
               <th scope="col">C3</th>
-              <th scope="col">CUSUM</th>
-              <th scope="col">Week on week</th>
-              <th scope="col">Record</th>
+              <th scope="col">{t('signals.cusum')}</th>
+              <th scope="col">{t('signals.growth')}</th>
+              <th scope="col">{t('signals.record')}</th>
             </tr>
           </thead>
           <tbody>
@@ -49,24 +48,26 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
                 <Fragment key={w.week}>
                   <tr>
                     <th scope="row" className="whitespace-nowrap text-left font-normal">
-                      W{w.week} <span className="text-xs text-ink-muted">{w.start}</span>
+                      {t('chart.weekShort', { week: w.week })} <span className="text-xs text-ink-muted">{formatDate(w.start)}</span>
                     </th>
                     <td className="tabular-nums">{w.cases ?? '—'}</td>
                     <td className="tabular-nums">{formatNumber(w.incidence, 2)}</td>
                     <td className="tabular-nums whitespace-nowrap">
                       {w.channel ? `${formatNumber(w.channel.lower, 1)} – ${formatNumber(w.channel.centre, 1)} – ${formatNumber(w.channel.upper, 1)}` : '—'}
                     </td>
-                    <td>{w.zone ? CHANNEL_ZONE_LABELS[w.zone] : '—'}</td>
+                    <td>{w.zone ? t(`zone.${w.zone}`) : '—'}</td>
                     <td className="tabular-nums whitespace-nowrap">{flag(w.c1)}</td>
                     <td className="tabular-nums whitespace-nowrap">{flag(w.c2)}</td>
                     <td className="tabular-nums whitespace-nowrap">{flag(w.c3)}</td>
                     <td className="tabular-nums whitespace-nowrap">{flag(w.cusum)}</td>
                     <td className="tabular-nums whitespace-nowrap">
-                      {w.growth.percent === null ? '—' : `${w.growth.percent > 0 ? '+' : ''}${w.growth.percent.toFixed(0)} %`}
-                      {w.growth.doublingWeeks !== null ? <span className="block text-xs text-ink-muted">doubles in {w.growth.doublingWeeks.toFixed(1)} wk</span> : null}
+                      {w.growth.percent === null ? '—' : `${w.growth.percent > 0 ? '+' : ''}${formatNumber(w.growth.percent, 0)} %`}
+                      {w.growth.doublingWeeks !== null ? (
+                        <span className="block text-xs text-ink-muted">{t('signals.doubles', { weeks: formatNumber(w.growth.doublingWeeks, 1) })}</span>
+                      ) : null}
                     </td>
                     <td className="whitespace-nowrap text-sm">
-                      {[w.closed ? 'closed' : 'open', w.late ? 'late' : null].filter(Boolean).join(', ')}
+                      {[w.closed ? t('signals.closed') : t('signals.open'), w.late ? t('signals.late') : null].filter(Boolean).join(', ')}
                       <span className="mt-1 flex gap-1">
                         {w.countId && data.canReadHistory ? (
                           <button
@@ -75,7 +76,7 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
                             aria-expanded={open === w.countId}
                             onClick={() => setOpen(open === w.countId ? null : w.countId)}
                           >
-                            History
+                            {t('signals.history')}
                           </button>
                         ) : null}
                         {data.canClose && !w.closed && over ? (
@@ -91,7 +92,7 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
                               );
                             }}
                           >
-                            Close week
+                            {t('signals.closeWeek')}
                           </button>
                         ) : null}
                       </span>

@@ -1,4 +1,5 @@
 import { useId, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { FlagDto } from '../../../../shared/api/flags.schema';
 import { FormMessage } from '../../../components/form';
 import { isApiError } from '../../../lib/api-client';
@@ -10,6 +11,7 @@ import { useApproveFlag, useRejectFlag } from '../api/decide-flag.api';
  * version goes with the decision, so a flag another supervisor decided meanwhile is refused, and said so.
  */
 export function DecisionForm({ flag }: { flag: FlagDto }) {
+  const { t } = useTranslation('flags');
   const id = useId();
   const me = useSession();
   const approve = useApproveFlag();
@@ -18,27 +20,29 @@ export function DecisionForm({ flag }: { flag: FlagDto }) {
   const [reason, setReason] = useState('');
   const [mode, setMode] = useState<'approve' | 'reject'>('approve');
   if (flag.status !== 'open') return null;
-  if (flag.raisedBy?.id === me.id) return <FormMessage kind="info">You raised this flag, so another supervisor signs it off.</FormMessage>;
+  if (flag.raisedBy?.id === me.id) return <FormMessage kind="info">{t('decision.ownFlag')}</FormMessage>;
 
   const error = approve.error ?? reject.error;
   const errorText = error
-    ? isApiError(error) && (error.code === 'flag_decided' || error.code === 'flag_changed')
-      ? `${error.message}`
-      : error.message
+    ? isApiError(error) && error.code === 'flag_decided'
+      ? t('decision.decidedMeanwhile')
+      : isApiError(error) && error.code === 'flag_changed'
+        ? t('decision.changedMeanwhile')
+        : error.message
     : null;
   const busy = approve.isPending || reject.isPending;
-  const done = approve.isSuccess ? 'Approved: the advisory is on its way to the district’s subscribers.' : reject.isSuccess ? 'Rejected.' : null;
+  const done = approve.isSuccess ? t('decision.approved') : reject.isSuccess ? t('decision.rejected') : null;
 
   return (
     <div className="space-y-3 border-t border-line pt-3">
       <FormMessage kind="error">{errorText}</FormMessage>
       <FormMessage kind="success">{done}</FormMessage>
-      <div role="radiogroup" aria-label="Decision" className="flex gap-4">
-        <label className="flex items-center gap-2">
-          <input type="radio" name={`${id}-mode`} checked={mode === 'approve'} onChange={() => setMode('approve')} /> Approve
+      <div role="radiogroup" aria-label={t('decision.label')} className="flex flex-wrap gap-4">
+        <label className="flex min-h-6 items-center gap-2 py-1">
+          <input type="radio" className="size-5" name={`${id}-mode`} checked={mode === 'approve'} onChange={() => setMode('approve')} /> {t('decision.approve')}
         </label>
-        <label className="flex items-center gap-2">
-          <input type="radio" name={`${id}-mode`} checked={mode === 'reject'} onChange={() => setMode('reject')} /> Reject
+        <label className="flex min-h-6 items-center gap-2 py-1">
+          <input type="radio" className="size-5" name={`${id}-mode`} checked={mode === 'reject'} onChange={() => setMode('reject')} /> {t('decision.reject')}
         </label>
       </div>
       {mode === 'approve' ? (
@@ -50,11 +54,11 @@ export function DecisionForm({ flag }: { flag: FlagDto }) {
           }}
         >
           <label htmlFor={`${id}-message`} className="field-label">
-            Advisory message (edit before approving if needed)
+            {t('decision.message')}
           </label>
           <textarea id={`${id}-message`} className="input min-h-32" value={message} onChange={(e) => setMessage(e.currentTarget.value)} maxLength={2000} />
           <button type="submit" className="btn btn-primary" disabled={busy || message.trim().length < 10}>
-            {approve.isPending ? 'Approving…' : 'Approve and send the advisory'}
+            {approve.isPending ? t('decision.approving') : t('decision.approveAndSend')}
           </button>
         </form>
       ) : (
@@ -66,11 +70,11 @@ export function DecisionForm({ flag }: { flag: FlagDto }) {
           }}
         >
           <label htmlFor={`${id}-reason`} className="field-label">
-            Why reject it? (kept in the flag’s history)
+            {t('decision.reason')}
           </label>
           <textarea id={`${id}-reason`} className="input" value={reason} onChange={(e) => setReason(e.currentTarget.value)} maxLength={500} />
           <button type="submit" className="btn btn-secondary" disabled={busy || reason.trim().length < 3}>
-            {reject.isPending ? 'Rejecting…' : 'Reject the flag'}
+            {reject.isPending ? t('decision.rejecting') : t('decision.rejectFlag')}
           </button>
         </form>
       )}

@@ -1,4 +1,5 @@
 import { useMemo, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { Controller, useForm, type FieldError } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { CONTAINER_TYPES, surveyFormSchema, type SurveyForm } from '../../../../shared/api/surveys.schema';
@@ -6,27 +7,25 @@ import type { DistrictRef } from '../../../../shared/api/auth.schema';
 import { larvalSurveySchema } from '../../../../shared/signals/schemas';
 import { larvalIndices } from '../../../../shared/signals/larval-indices';
 import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../components/form';
+import { useFormat } from '../../../i18n/format';
 import { useSubmitSurvey } from '../api/submit-survey.api';
-import { formatIndex, localToday, newSurveyId } from '../survey-format';
+import { formatIndex, localToday, newSurveyId, surveyMessage } from '../survey-format';
 
-const numberError = (error: FieldError | undefined) =>
-  error ? (error.type === 'invalid_type' ? 'Enter a whole number (0 if none).' : error.message) : undefined;
-
-const COUNT_FIELDS = [
-  ['housesInspected', 'Houses inspected'],
-  ['housesPositive', 'Houses with larvae or pupae'],
-  ['containersInspected', 'Water-holding containers inspected'],
-  ['containersPositive', 'Containers with larvae or pupae'],
-] as const;
+const COUNT_FIELDS = ['housesInspected', 'housesPositive', 'containersInspected', 'containersPositive'] as const;
 
 /**
  * The field form of a larval survey: one column, large touch targets, numeric keyboards, readable at
  * 360 px. Saving keeps the survey on the device first, then sends it (see offline-queue.ts).
  */
 export function SurveyFormCard({ districts }: { districts: DistrictRef[] }) {
+  const { t } = useTranslation('surveys');
+  const { number } = useFormat();
   const today = localToday();
   const schema = useMemo(() => surveyFormSchema(today), [today]);
   const submit = useSubmitSurvey();
+  const fieldError = (label: string, error: FieldError | undefined) =>
+    error ? (error.type === 'invalid_type' ? t('validation.wholeNumberOrZero') : surveyMessage(t, label, error.message)) : undefined;
+  const textError = (label: string, error: FieldError | undefined) => surveyMessage(t, label, error?.message);
   const [message, setMessage] = useState<{ kind: 'success' | 'info' | 'error'; text: string } | null>(null);
   const {
     register,
@@ -57,14 +56,14 @@ export function SurveyFormCard({ districts }: { districts: DistrictRef[] }) {
       const { sent } = await submit.mutateAsync(survey);
       setMessage(
         sent
-          ? { kind: 'success', text: `Survey of ${form.locality} sent.` }
-          : { kind: 'info', text: `Survey of ${form.locality} saved on this device. It will be sent when the connection is back.` },
+          ? { kind: 'success', text: t('form.sent', { locality: form.locality }) }
+          : { kind: 'info', text: t('form.kept', { locality: form.locality }) },
       );
       reset({ ...form, locality: '', housesInspected: NaN, housesPositive: NaN, containersInspected: NaN, containersPositive: NaN, pupae: null, containerTypes: [], notes: '' });
     } catch (error) {
       setMessage({
         kind: 'error',
-        text: `The survey could not be kept on this device (${error instanceof Error ? error.message : 'unknown problem'}). Check that the browser allows site storage.`,
+        text: t('form.notKept', { problem: error instanceof Error ? error.message : t('form.unknownProblem') }),
       });
     }
   });
@@ -72,38 +71,38 @@ export function SurveyFormCard({ districts }: { districts: DistrictRef[] }) {
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-labelledby="survey-form-title">
       <h2 id="survey-form-title" className="section-title">
-        New larval survey
+        {t('form.title')}
       </h2>
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
-      <SelectField label="District" error={errors.districtId?.message} {...register('districtId')}>
+      <SelectField label={t('form.district')} error={textError(t('form.district'), errors.districtId)} {...register('districtId')}>
         {districts.map((d) => (
           <option key={d.id} value={d.id}>
             {d.code} — {d.name}
           </option>
         ))}
       </SelectField>
-      <TextField label="Locality" autoComplete="off" error={errors.locality?.message} {...register('locality')} />
-      <TextField label="Date" type="date" max={today} error={errors.date?.message} {...register('date')} />
-      {COUNT_FIELDS.map(([name, label]) => (
+      <TextField label={t('form.locality')} autoComplete="off" error={textError(t('form.locality'), errors.locality)} {...register('locality')} />
+      <TextField label={t('form.date')} type="date" max={today} error={textError(t('form.date'), errors.date)} {...register('date')} />
+      {COUNT_FIELDS.map((name) => (
         <TextField
           key={name}
-          label={label}
+          label={t(`form.${name}`)}
           type="number"
           inputMode="numeric"
           min={0}
           step={1}
-          error={numberError(errors[name])}
+          error={fieldError(t(`form.${name}`), errors[name])}
           {...register(name, { valueAsNumber: true })}
         />
       ))}
       <TextField
-        label="Pupae counted"
+        label={t('form.pupae')}
         type="number"
         inputMode="numeric"
         min={0}
         step={1}
-        hint="Leave empty if pupae were not counted."
-        error={numberError(errors.pupae)}
+        hint={t('form.pupaeHint')}
+        error={fieldError(t('form.pupae'), errors.pupae)}
         {...register('pupae', { setValueAs: (v) => (v === '' || v === null || v === undefined ? null : Number(v)) })}
       />
       <Controller
@@ -111,34 +110,34 @@ export function SurveyFormCard({ districts }: { districts: DistrictRef[] }) {
         name="containerTypes"
         render={({ field }) => (
           <CheckboxGroup
-            legend="Container types found"
-            options={CONTAINER_TYPES.map((c) => ({ value: c, label: c }))}
+            legend={t('form.containerTypes')}
+            options={CONTAINER_TYPES.map((c) => ({ value: c, label: t(`containerType.${c}`) }))}
             value={field.value}
             onChange={field.onChange}
-            error={errors.containerTypes?.message}
+            error={surveyMessage(t, t('form.containerTypes'), errors.containerTypes?.message)}
           />
         )}
       />
-      <TextField label="Notes" autoComplete="off" error={errors.notes?.message} {...register('notes')} />
+      <TextField label={t('form.notes')} autoComplete="off" error={textError(t('form.notes'), errors.notes)} {...register('notes')} />
       <div className="rounded-md border border-line bg-surface p-3 text-sm" aria-live="polite">
-        <p className="font-bold">Indices of this survey</p>
+        <p className="font-bold">{t('form.indicesTitle')}</p>
         {indices ? (
           <dl className="mt-1 grid grid-cols-2 gap-x-4 gap-y-1">
-            <dt>House index</dt>
-            <dd className="tabular-nums">{formatIndex(indices.house, '%')}</dd>
-            <dt>Container index</dt>
-            <dd className="tabular-nums">{formatIndex(indices.container, '%')}</dd>
-            <dt>Breteau index</dt>
-            <dd className="tabular-nums">{formatIndex(indices.breteau)}</dd>
-            <dt>Pupa index</dt>
-            <dd className="tabular-nums">{formatIndex(indices.pupa)}</dd>
+            <dt>{t('index.house')}</dt>
+            <dd className="tabular-nums">{formatIndex(number, indices.house, t)}</dd>
+            <dt>{t('index.container')}</dt>
+            <dd className="tabular-nums">{formatIndex(number, indices.container, t)}</dd>
+            <dt>{t('index.breteau')}</dt>
+            <dd className="tabular-nums">{formatIndex(number, indices.breteau)}</dd>
+            <dt>{t('index.pupa')}</dt>
+            <dd className="tabular-nums">{formatIndex(number, indices.pupa)}</dd>
           </dl>
         ) : (
-          <p className="text-ink-muted">Shown when the four counts above are filled in and consistent.</p>
+          <p className="text-ink-muted">{t('form.indicesEmpty')}</p>
         )}
       </div>
       <button type="submit" className="btn btn-primary w-full sm:w-auto" disabled={isSubmitting}>
-        {isSubmitting ? 'Saving…' : 'Save the survey'}
+        {isSubmitting ? t('form.saving') : t('form.save')}
       </button>
     </form>
   );

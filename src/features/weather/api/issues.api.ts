@@ -14,5 +14,11 @@ export const issuesQueryOptions = (id: string, offset: number) =>
   });
 export const useIssues = (id: string, offset: number, enabled: boolean) => useQuery({ ...issuesQueryOptions(id, offset), enabled });
 
-/** The address of the report as a CSV download (cells neutralised for spreadsheets on the server). */
-export const issuesCsvUrl = (id: string) => `/api/weather/uploads/${encodeURIComponent(id)}/issues?format=csv`;
+/**
+ * The address of the report as a CSV download (cells neutralised for spreadsheets on the server), with
+ * the values in the user's display units (`temperature=C|F&rain=mm|in`; left out for °C and mm, the
+ * server's default).
+ */
+export const issuesCsvUrl = (id: string, units: { temperature: 'C' | 'F'; rain: 'mm' | 'in' } = { temperature: 'C', rain: 'mm' }) =>
+  `/api/weather/uploads/${encodeURIComponent(id)}/issues?format=csv` +
+  (units.temperature === 'C' && units.rain === 'mm' ? '' : `&temperature=${units.temperature}&rain=${units.rain}`);

@@ -1,13 +1,23 @@
 import { useState, type FormEvent } from 'react';
+import { useTranslation } from 'react-i18next';
 import type { CorrectionBody, IssueDto } from '../../../../shared/api/weather.schema';
-import { FormMessage, SelectField, TextField } from '../../../components/form';
+import { FormMessage, TextField } from '../../../components/form';
 import { isApiError } from '../../../lib/api-client';
+import { useUnits } from '../../../lib/units';
 import { useCorrectDay } from '../api/correct.api';
 
-const num = (s: string) => (s.trim() === '' ? null : Number(s));
+/** A typed number ("21,5" is read as 21.5, so a decimal comma works too); null when empty, NaN when not a number. */
+const parse = (s: string) => (s.trim() === '' ? null : Number(s.trim().replace(',', '.')));
+const round2 = (x: number) => Math.round(x * 100) / 100;
 
-/** Correct one station-day; it goes through the same checks as an upload, and the old value stays in the revisions. */
+/**
+ * Correct one station-day; it goes through the same checks as an upload, and the old value stays in the
+ * revisions. Temperatures and rain are typed in the user's display units (the labels say which) and sent
+ * in °C and mm.
+ */
 export function CorrectionForm({ from, onDone }: { from: IssueDto | null; onDone?: () => void }) {
+  const { t } = useTranslation('weather');
+  const units = useUnits();
   const correct = useCorrectDay();
   const [station, setStation] = useState(from?.station ?? '');
   const [date, setDate] = useState(from?.date ?? '');
@@ -15,44 +25,64 @@ export function CorrectionForm({ from, onDone }: { from: IssueDto | null; onDone
   const [tmax, setTmax] = useState('');
   const [rh, setRh] = useState('');
   const [rain, setRain] = useState('');
-  const [tempUnit, setTempUnit] = useState<'C' | 'F'>('C');
+  const [errors, setErrors] = useState<Record<string, string>>({});
   const [outcome, setOutcome] = useState<{ kind: 'success' | 'error'; text: string } | null>(null);
+  const labels = {
+    station: t('correction.station'),
+    date: t('correction.date'),
+    tmin: t('correction.tmin', { unit: units.temperatureSymbol }),
+    tmax: t('correction.tmax', { unit: units.temperatureSymbol }),
+    rh: t('correction.rh'),
+    rain: t('correction.rain', { unit: units.rainSymbol }),
+  };
 
   const onSubmit = async (e: FormEvent) => {
     e.preventDefault();
     setOutcome(null);
+    const values = { tmin: parse(tmin), tmax: parse(tmax), rh: parse(rh), rain: parse(rain) };
+    const problems: Record<string, string> = {};
+    if (!station.trim()) problems.station = t('correction.required', { field: labels.station });
+    if (!date.trim()) problems.date = t('correction.required', { field: labels.date });
+    for (const k of ['tmin', 'tmax'] as const) if (values[k] === null) problems[k] = t('correction.required', { field: labels[k] });
+    for (const k of ['tmin', 'tmax', 'rh', 'rain'] as const) if (values[k] !== null && Number.isNaN(values[k])) problems[k] = t('correction.notNumber', { field: labels[k] });
+    setErrors(problems);
+    if (Object.keys(problems).length) return;
     const body: CorrectionBody = {
-      station, date, tmin: Number(tmin), tmax: Number(tmax), rh: num(rh), rain: num(rain), tempUnit, rainUnit: 'mm',
+      station: station.trim(),
+      date: date.trim(),
+      tmin: round2(units.fromTemperature(values.tmin!)),
+      tmax: round2(units.fromTemperature(values.tmax!)),
+      rh: values.rh,
+      rain: values.rain === null ? null : round2(units.fromRain(values.rain)),
+      tempUnit: 'C',
+      rainUnit: 'mm',
     };
     try {
       const r = await correct.mutateAsync(body);
-      setOutcome({ kind: 'success', text: r.rowsReplaced ? 'Saved. The earlier value is kept in the revisions.' : 'Saved.' });
+      setOutcome({ kind: 'success', text: r.rowsReplaced ? t('correction.savedKept') : t('correction.saved') });
       onDone?.();
     } catch (err) {
-      setOutcome({ kind: 'error', text: isApiError(err) ? err.message : 'The correction could not be saved.' });
+      setOutcome({ kind: 'error', text: isApiError(err) ? err.message : t('correction.failed') });
     }
   };
 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby="correct-title">
       <h3 id="correct-title" className="section-title">
-        Correct one day
+        {t('correction.title')}
       </h3>
+      <p className="text-sm text-ink-muted">{t('correction.unitHint', { temperature: units.temperatureSymbol, rain: units.rainSymbol })}</p>
       {outcome ? <FormMessage kind={outcome.kind}>{outcome.text}</FormMessage> : null}
-      <div className="grid gap-3 sm:grid-cols-4">
-        <TextField label="Station code" value={station} onChange={(e) => setStation(e.currentTarget.value)} required />
-        <TextField label="Date" type="date" value={date} onChange={(e) => setDate(e.currentTarget.value)} required />
-        <TextField label="Tmin" inputMode="decimal" value={tmin} onChange={(e) => setTmin(e.currentTarget.value)} required />
-        <TextField label="Tmax" inputMode="decimal" value={tmax} onChange={(e) => setTmax(e.currentTarget.value)} required />
-        <TextField label="RH (%)" inputMode="decimal" value={rh} onChange={(e) => setRh(e.currentTarget.value)} />
-        <TextField label="Rain (mm)" inputMode="decimal" value={rain} onChange={(e) => setRain(e.currentTarget.value)} />
-        <SelectField label="Temperature unit" value={tempUnit} onChange={(e) => setTempUnit(e.currentTarget.value as 'C' | 'F')}>
-          <option value="C">°C</option>
-          <option value="F">°F</option>
-        </SelectField>
+      <div className="grid gap-3 sm:grid-cols-3">
+        <TextField label={labels.station} value={station} onChange={(e) => setStation(e.currentTarget.value)} error={errors.station} required />
+        <TextField label={labels.date} type="date" value={date} onChange={(e) => setDate(e.currentTarget.value)} error={errors.date} required />
+        <TextField label={labels.tmin} inputMode="decimal" value={tmin} onChange={(e) => setTmin(e.currentTarget.value)} error={errors.tmin} required />
+        <TextField label={labels.tmax} inputMode="decimal" value={tmax} onChange={(e) => setTmax(e.currentTarget.value)} error={errors.tmax} required />
+        <TextField label={labels.rh} inputMode="decimal" value={rh} onChange={(e) => setRh(e.currentTarget.value)} error={errors.rh} />
+        <TextField label={labels.rain} inputMode="decimal" value={rain} onChange={(e) => setRain(e.currentTarget.value)} error={errors.rain} />
       </div>
       <button type="submit" className="btn btn-primary btn-small" disabled={correct.isPending}>
-        {correct.isPending ? 'Checking…' : 'Save the correction'}
+        {correct.isPending ? t('correction.checking') : t('correction.submit')}
       </button>
     </form>
   );

@@ -1,63 +1,89 @@
 import { useMemo, useState } from 'react';
+import { useTranslation } from 'react-i18next';
 import { createColumnHelper, useTable } from '@tanstack/react-table';
-import type { IssueDto } from '../../../../shared/api/weather.schema';
+import type { IssueDto, UploadDto } from '../../../../shared/api/weather.schema';
 import { DataTable, plainTableFeatures, type PlainTableFeatures } from '../../../components/data-table';
+import { useFormat } from '../../../i18n/format';
+import { useUnits } from '../../../lib/units';
 import { ISSUES_PAGE, issuesCsvUrl, useIssues } from '../api/issues.api';
+import { issueReason, issueValue } from '../weather-units';
 
 const column = createColumnHelper<PlainTableFeatures, IssueDto>();
-const OUTCOME: Record<IssueDto['severity'], string> = { rejected: 'Rejected', flagged: 'Flagged (kept)', filled: 'Filled' };
 
-/** The row-level report of one intake, a page at a time, with the CSV download. */
-export function IssuesTable({ uploadId, onFix }: { uploadId: string; onFix?: (issue: IssueDto) => void }) {
+/** The row-level report of one intake, a page at a time, with the CSV download (in the user's units). */
+export function IssuesTable({ upload, onFix }: { upload: Pick<UploadDto, 'id' | 'tempUnit' | 'rainUnit'>; onFix?: (issue: IssueDto) => void }) {
+  const { t, i18n } = useTranslation('weather');
+  const format = useFormat();
+  const units = useUnits();
+  const uploadId = upload.id;
   const [offset, setOffset] = useState(0);
   const issues = useIssues(uploadId, offset, true);
   const columns = useMemo(
     () =>
       column.columns([
-        column.accessor('rowNumber', { header: 'Row', cell: (c) => <span className="tabular-nums">{c.getValue() ?? '—'}</span> }),
-        column.accessor('station', { header: 'Station', cell: (c) => <span className="font-mono text-sm">{c.getValue() ?? ''}</span> }),
-        column.accessor('date', { header: 'Date' }),
-        column.accessor('column', { header: 'Column' }),
-        column.accessor('value', { header: 'Value', cell: (c) => <code className="font-mono text-sm">{c.getValue() ?? ''}</code> }),
-        column.accessor('severity', { header: 'Outcome', cell: (c) => <span className={c.getValue() === 'rejected' ? 'font-bold' : undefined}>{OUTCOME[c.getValue()]}</span> }),
-        column.accessor('reason', { header: 'Reason' }),
+        column.accessor('rowNumber', { header: t('report.row'), cell: (c) => <span className="tabular-nums">{c.getValue() ?? '—'}</span> }),
+        column.accessor('station', { header: t('report.station'), cell: (c) => <span className="font-mono text-sm">{c.getValue() ?? ''}</span> }),
+        column.accessor('date', { header: t('report.date') }),
+        column.accessor('column', { header: t('report.column'), cell: (c) => (c.getValue() === '(row)' ? t('report.wholeRow') : c.getValue()) }),
+        column.accessor((i) => issueValue(i, upload, units, format), {
+          id: 'value',
+          header: t('report.value'),
+          cell: (c) => <code className="font-mono text-sm break-all">{c.getValue() ?? ''}</code>,
+        }),
+        column.accessor('severity', {
+          header: t('report.outcome'),
+          cell: (c) => <span className={c.getValue() === 'rejected' ? 'font-bold' : undefined}>{t(`report.severity.${c.getValue()}`)}</span>,
+        }),
+        column.accessor((i) => issueReason(i, units, format, t, i18n.language), {
+          id: 'reason',
+          header: t('report.reason'),
+          cell: (c) => {
+            const { text, detail } = c.getValue();
+            return (
+              <>
+                {text}
+                {detail ? <span className="block text-xs text-ink-muted">{t('report.serverDetail', { reason: detail })}</span> : null}
+              </>
+            );
+          },
+        }),
         column.display({
           id: 'fix',
-          header: 'Fix',
+          header: t('report.fix'),
           cell: ({ row }) =>
             onFix && row.original.severity === 'rejected' && row.original.station && row.original.date ? (
               <button type="button" className="btn btn-secondary btn-small" onClick={() => onFix(row.original)}>
-                Correct
+                {t('report.correct')}
               </button>
             ) : null,
         }),
       ]),
-    [onFix],
+    [onFix, t, i18n.language, upload, units, format],
   );
   const data = issues.data?.issues ?? [];
   const table = useTable({ features: plainTableFeatures, columns, data, getRowId: (_r, i) => String(offset + i) });
   const total = issues.data?.total ?? 0;
   return (
-    <section aria-labelledby={`report-${uploadId}`} className="space-y-3">
+    <section aria-labelledby={`report-${uploadId}`} className="min-w-0 space-y-3">
       <div className="flex flex-wrap items-center justify-between gap-2">
         <h3 id={`report-${uploadId}`} className="section-title">
-          Row report {total ? `(${total.toLocaleString('en')} findings)` : ''}
+          {total ? t('report.findings', { count: total, formatted: format.number(total) }) : t('report.title')}
         </h3>
-        <a className="btn btn-secondary btn-small" href={issuesCsvUrl(uploadId)} download>
-          Download the report (CSV)
+        <a className="btn btn-secondary btn-small" href={issuesCsvUrl(uploadId, units)} download>
+          {t('report.download')}
         </a>
       </div>
-      <DataTable table={table} caption="Rows rejected or flagged, with the reason" captionVisible={false} emptyText="Every row passed the checks." />
+      <DataTable table={table} caption={t('report.caption')} captionVisible={false} emptyText={t('report.empty')} />
       {total > ISSUES_PAGE ? (
-        <div className="flex items-center gap-3 text-sm">
+        <div className="flex flex-wrap items-center gap-3 text-sm">
           <button type="button" className="btn btn-secondary btn-small" disabled={offset === 0} onClick={() => setOffset(Math.max(0, offset - ISSUES_PAGE))}>
-            Previous
+            {t('report.previous')}
           </button>
           <span className="tabular-nums">
-            {offset + 1}–{Math.min(total, offset + ISSUES_PAGE)} of {total.toLocaleString('en')}
+            {t('report.range', { from: format.number(offset + 1), to: format.number(Math.min(total, offset + ISSUES_PAGE)), total: format.number(total) })}
           </span>
           <button type="button" className="btn btn-secondary btn-small" disabled={offset + ISSUES_PAGE >= total} onClick={() => setOffset(offset + ISSUES_PAGE)}>
-            Next
+            {t('report.next')}
           </button>
         </div>
       ) : null}

@@ -1,4 +1,6 @@
 import { useState } from 'react';
+import { useTranslation } from 'react-i18next';
+import { useFormat } from '../../../i18n/format';
 import type { IssueDto, UploadDto } from '../../../../shared/api/weather.schema';
 import { FormMessage } from '../../../components/form';
 import { useUpload } from '../api/uploads.api';
@@ -6,24 +8,24 @@ import { CorrectionForm } from './correction.form';
 import { IssuesTable } from './issues.table';
 import { ProgressBar } from './progress-bar';
 
-const n = (x: number) => x.toLocaleString('en');
-
 /** One intake: the server's checking progress while it runs, then the counts and the row report. */
 export function UploadResult({ initial }: { initial: UploadDto }) {
+  const { t } = useTranslation('weather');
+  const { number: n } = useFormat();
   const upload = useUpload(initial.id);
   const u = upload.data ?? initial;
   const [fixing, setFixing] = useState<IssueDto | null>(null);
   return (
     <section aria-labelledby="result-title" className="card space-y-4" aria-live="polite">
       <h2 id="result-title" className="section-title">
-        {u.fileName ?? (u.source === 'feed' ? 'Feed pull' : 'Correction')} — {u.status === 'processing' ? 'checking' : u.status === 'done' ? 'loaded' : 'not loaded'}
+        {t('result.title', { name: u.fileName ?? t(`intake.source.${u.source}`), status: t(`result.status.${u.status}`) })}
       </h2>
       {u.status === 'processing' ? (
         <ProgressBar
-          label="Checking the rows"
+          label={t('result.checking')}
           value={u.bytesProcessed}
           max={u.bytesTotal || 1}
-          detail={`${n(u.rowsProcessed)} rows checked`}
+          detail={t('result.rowsChecked', { rows: n(u.rowsProcessed) })}
         />
       ) : null}
       {u.status === 'failed' ? <FormMessage kind="error">{u.message}</FormMessage> : null}
@@ -31,10 +33,10 @@ export function UploadResult({ initial }: { initial: UploadDto }) {
         <>
           <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">
             {[
-              ['Rows accepted', u.rowsAccepted],
-              ['Rows flagged (kept)', u.rowsFlagged],
-              ['Rows rejected', u.rowsRejected],
-              ['Values replaced', u.rowsReplaced],
+              [t('result.accepted'), u.rowsAccepted],
+              [t('result.flagged'), u.rowsFlagged],
+              [t('result.rejected'), u.rowsRejected],
+              [t('result.replaced'), u.rowsReplaced],
             ].map(([label, value]) => (
               <div key={label as string} className="rounded-md border border-line p-3">
                 <dt className="text-sm text-ink-muted">{label}</dt>
@@ -43,7 +45,7 @@ export function UploadResult({ initial }: { initial: UploadDto }) {
             ))}
           </dl>
           {u.message ? <FormMessage kind="info">{u.message}</FormMessage> : null}
-          <IssuesTable uploadId={u.id} onFix={setFixing} />
+          <IssuesTable upload={u} onFix={setFixing} />
           {fixing ? <CorrectionForm key={`${fixing.station}-${fixing.date}-${fixing.rowNumber}`} from={fixing} /> : null}
         </>
       ) : null}

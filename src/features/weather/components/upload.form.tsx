@@ -1,16 +1,24 @@
 import { useId, useRef, useState, type FormEvent } from 'react';
+import { Trans, useTranslation } from 'react-i18next';
 import type { UploadDto } from '../../../../shared/api/weather.schema';
 import { FormMessage, SelectField } from '../../../components/form';
 import { isApiError } from '../../../lib/api-client';
+import { errorText } from '../../../lib/error-text';
+import { useFormat } from '../../../i18n/format';
+import { useUnits } from '../../../lib/units';
 import { uploadWeatherFile } from '../api/upload-file.api';
 import { ProgressBar } from './progress-bar';
 
 /** The weather file, its units, and the sending progress. Hands the new upload to the page, which follows its checks. */
 export function UploadForm({ onUploaded }: { onUploaded: (u: UploadDto) => void }) {
+  const { t } = useTranslation('weather');
+  const { number } = useFormat();
+  const units = useUnits();
   const fileId = useId();
   const fileRef = useRef<HTMLInputElement>(null);
-  const [tempUnit, setTempUnit] = useState<'C' | 'F'>('C');
-  const [rainUnit, setRainUnit] = useState<'mm' | 'in'>('mm');
+  // The file's units: the user's display units to start with (files from a station keep their own).
+  const [tempUnit, setTempUnit] = useState<'C' | 'F'>(units.temperature);
+  const [rainUnit, setRainUnit] = useState<'mm' | 'in'>(units.rain);
   const [sent, setSent] = useState<{ loaded: number; total: number } | null>(null);
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -20,7 +28,7 @@ export function UploadForm({ onUploaded }: { onUploaded: (u: UploadDto) => void 
     setError(null);
     const file = fileRef.current?.files?.[0];
     if (!file) {
-      setError('Choose a CSV file first.');
+      setError(t('upload.chooseFile'));
       return;
     }
     setBusy(true);
@@ -30,7 +38,19 @@ export function UploadForm({ onUploaded }: { onUploaded: (u: UploadDto) => void 
       onUploaded(upload);
       if (fileRef.current) fileRef.current.value = '';
     } catch (err) {
-      setError(isApiError(err) ? (err.status === 413 ? `${file.name} is over the size limit of the server.` : err.message) : 'The upload failed.');
+      setError(
+        isApiError(err)
+          ? err.status === 413
+            ? t('upload.tooLarge', { file: file.name })
+            : err.code === 'network_error'
+              ? t('upload.interrupted')
+              : err.code === 'aborted'
+                ? t('upload.cancelled')
+                : err.code === 'invalid_response'
+                  ? t('upload.unreadable')
+                  : errorText(err)
+          : t('upload.failed'),
+      );
     } finally {
       setBusy(false);
       setSent(null);
@@ -40,35 +60,38 @@ export function UploadForm({ onUploaded }: { onUploaded: (u: UploadDto) => void 
   return (
     <form onSubmit={onSubmit} noValidate className="space-y-4" aria-labelledby="upload-title">
       <h2 id="upload-title" className="section-title">
-        Upload daily station weather
+        {t('upload.title')}
       </h2>
-      <p className="text-sm text-ink-muted">
-        A CSV file with the header <code className="font-mono">station,date,tmin,tmax,rh,rain</code> (rh and rain optional;
-        <code className="font-mono"> dewpoint</code> instead of rh is accepted). Dates as YYYY-MM-DD. Uploading a file again changes
-        only the rows whose values differ; earlier values stay in the revisions.
+      <p className="break-words text-sm text-ink-muted">
+        <Trans t={t} i18nKey="upload.help" components={[<code key="header" className="font-mono" />, <code key="dew" className="font-mono" />]} />
       </p>
       {error ? <FormMessage kind="error">{error}</FormMessage> : null}
       <div className="grid gap-3 sm:grid-cols-3">
         <div className="field">
           <label htmlFor={fileId} className="field-label">
-            Weather file (CSV)
+            {t('upload.file')}
           </label>
           <input id={fileId} ref={fileRef} type="file" accept=".csv,text/csv" className="input" />
         </div>
-        <SelectField label="Temperatures in" value={tempUnit} onChange={(e) => setTempUnit(e.currentTarget.value as 'C' | 'F')}>
+        <SelectField label={t('upload.tempUnit')} value={tempUnit} onChange={(e) => setTempUnit(e.currentTarget.value as 'C' | 'F')}>
           <option value="C">°C</option>
           <option value="F">°F</option>
         </SelectField>
-        <SelectField label="Rainfall in" value={rainUnit} onChange={(e) => setRainUnit(e.currentTarget.value as 'mm' | 'in')}>
-          <option value="mm">millimetres</option>
-          <option value="in">inches</option>
+        <SelectField label={t('upload.rainUnit')} value={rainUnit} onChange={(e) => setRainUnit(e.currentTarget.value as 'mm' | 'in')}>
+          <option value="mm">{t('upload.millimetres')}</option>
+          <option value="in">{t('upload.inches')}</option>
         </SelectField>
       </div>
       {sent ? (
-        <ProgressBar label="Sending the file" value={sent.loaded} max={sent.total} detail={`${(sent.loaded / 1e6).toFixed(1)} of ${(sent.total / 1e6).toFixed(1)} MB`} />
+        <ProgressBar
+          label={t('upload.sending')}
+          value={sent.loaded}
+          max={sent.total}
+          detail={t('upload.sendingDetail', { sent: number(sent.loaded / 1e6, 1, true), total: number(sent.total / 1e6, 1, true) })}
+        />
       ) : null}
       <button type="submit" className="btn btn-primary" disabled={busy}>
-        {busy ? 'Sending…' : 'Upload and check'}
+        {busy ? t('upload.busy') : t('upload.submit')}
       </button>
     </form>
   );
