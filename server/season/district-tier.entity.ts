@@ -4,6 +4,8 @@ import type { DriverResult } from '../../shared/tier';
 /** A district's tier for one epidemiological week, with the drivers that explain it. */
 @Entity({ name: 'district_tiers' })
 @Index('district_tiers_week_idx', ['epiYear', 'epiWeek'])
+// The board's cache version reads max(computed_at) on every request: an index makes it one lookup.
+@Index('district_tiers_computed_at_idx', ['computedAt'])
 @Check('district_tiers_tier_check', "tier IN ('baseline', 'raised', 'high', 'critical')")
 export class DistrictTierEntity {
   @PrimaryColumn({ name: 'district_id', type: 'uuid' })

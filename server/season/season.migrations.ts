@@ -1,5 +1,6 @@
 import { SeasonRun1796165312435 } from './migrations/1796165312435-SeasonRun';
 import { VectorClockSeasons1796192751564 } from './migrations/1796192751564-VectorClockSeasons';
+import { TierComputedAtIndex1796194567806 } from './migrations/1796194567806-TierComputedAtIndex';
 
 /** Reviewed migrations of the season run and tiers. */
-export const seasonMigrations: Function[] = [SeasonRun1796165312435, VectorClockSeasons1796192751564];
+export const seasonMigrations: Function[] = [SeasonRun1796165312435, VectorClockSeasons1796192751564, TierComputedAtIndex1796194567806];
