@@ -121,7 +121,8 @@ describe('the app shell in French, Spanish and Portuguese', () => {
       await act(() => setLanguage(c.lng));
       const running = seasonRun({ rowsWritten: 1_234_567 });
       fakeApi({
-        'GET /api/me': () => json(200, adminMe),
+        // The account's own language is what the signed-in layout applies.
+        'GET /api/me': () => json(200, { ...adminMe, preferences: { ...adminMe.preferences, language: c.lng } }),
         'GET /api/season-runs': () => json(200, { runs: [running] }),
         [`GET /api/season-runs/${running.id}`]: () => json(200, running),
       });

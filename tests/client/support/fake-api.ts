@@ -25,7 +25,10 @@ export const demoDistricts = [
   { id: id(2), code: 'HV-02', name: 'Orrin Valley', isDemo: true, populations: [], hasBoundary: false, centroid: null },
 ];
 
-export const adminMe = { id: id(100), email: 'admin@halvern.example', displayName: 'Ada Admin', role: 'admin', districts: [] };
+export const adminMe = {
+  id: id(100), email: 'admin@halvern.example', displayName: 'Ada Admin', role: 'admin', districts: [],
+  preferences: { language: 'en', temperatureUnit: 'C', rainUnit: 'mm' },
+};
 export const officerMe = { ...adminMe, id: id(101), email: 'officer@halvern.example', displayName: 'Otto Officer', role: 'officer' };
 
 export const demoUsers = [
