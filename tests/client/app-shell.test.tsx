@@ -1,28 +1,14 @@
 import { act } from 'react';
-import { afterEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
-import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
+import { describe, expect, it } from 'vitest';
 import { adminMe, demoDistricts, demoUsers, fakeApi, json, officerMe } from './support/fake-api';
 import { demoBoard } from './support/board-fixtures';
-import { render, waitFor, type Rendered } from './support/render';
+import { waitFor, type Rendered, renderRoutes } from './support/render';
 
 let view: Rendered | undefined;
-afterEach(() => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
-});
-
 async function open(path: string) {
-  const router = createMemoryRouter(routes, { initialEntries: [path] });
-  view = await render(
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>,
-  );
+  const opened = await renderRoutes(path);
+  view = opened;
+  const router = opened.router;
   return { container: view.container, router };
 }
 

@@ -1,25 +1,14 @@
-import { afterEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { describe, expect, it, vi } from 'vitest';
 import { districtFileResponse } from '../../shared/api/board.schema';
-import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
 import { CAUTIONS } from '../../src/features/cautions/cautions-panel';
 import { generationDays } from '../../src/features/district-file/charts/vector-clock.charts';
 import { demoDistrictFile } from './support/board-fixtures';
 import { fakeApi, json, officerMe } from './support/fake-api';
-import { click, render, selectOption, waitFor, type Rendered } from './support/render';
+import { click, selectOption, waitFor, type Rendered, renderRoutes } from './support/render';
 
 vi.mock('../../src/components/chart/echart', () => import('./support/echart-stub'));
 
 let view: Rendered | undefined;
-afterEach(() => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
-});
-
 const file = demoDistrictFile();
 const path = `/districts/${file.district.id}`;
 
@@ -39,12 +28,9 @@ async function open(url = path) {
     }
     return json(404, { error: { code: 'not_found', message: 'not found' } });
   });
-  const router = createMemoryRouter(routes, { initialEntries: [url] });
-  view = await render(
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>,
-  );
+  const opened = await renderRoutes(url);
+  view = opened;
+  const router = opened.router;
   const c = view.container;
   await waitFor(() => expect(c.querySelector('h1')?.textContent).toBe('Saltmarsh Coast'), 5000);
   return { c, router, seasons };

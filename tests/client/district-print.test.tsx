@@ -1,21 +1,13 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
-import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
 import { CAUTIONS } from '../../src/features/cautions/cautions-panel';
 import { demoDistrictFile } from './support/board-fixtures';
 import { fakeApi, json, officerMe } from './support/fake-api';
-import { click, getButton, render, waitFor, type Rendered } from './support/render';
+import { click, getButton, waitFor, type Rendered, renderRoutes } from './support/render';
 
 vi.mock('../../src/components/chart/echart', () => import('./support/echart-stub'));
 
 let view: Rendered | undefined;
 afterEach(() => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
   vi.restoreAllMocks();
 });
 
@@ -26,12 +18,9 @@ async function open(url: string) {
     'GET /api/me': () => json(200, officerMe),
     [`GET /api/districts/${file.district.id}/file`]: () => json(200, file),
   });
-  const router = createMemoryRouter(routes, { initialEntries: [url] });
-  view = await render(
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>,
-  );
+  const opened = await renderRoutes(url);
+  view = opened;
+  const router = opened.router;
   return { c: view.container, router };
 }
 

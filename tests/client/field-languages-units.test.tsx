@@ -1,9 +1,6 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { i18n } from '../../src/i18n';
-import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
 import { unitsFor, UnitsContext } from '../../src/lib/units';
 import { formattersFor } from '../../src/i18n/format';
 import { OUTBOX_KEY } from '../../src/features/surveys/offline-queue';
@@ -14,7 +11,7 @@ import { OFFLINE_SESSION_KEY, rememberedSession, restoreOfflineSession, watchSes
 import { ApiError } from '../../src/lib/api-client';
 import { queryKeys } from '../../src/lib/query-keys';
 import { demoDistricts, fakeApi, json } from './support/fake-api';
-import { click, getButton, getByLabel, render, typeInto, waitFor, type Rendered } from './support/render';
+import { click, getButton, getByLabel, render, typeInto, waitFor, type Rendered, renderRoutes } from './support/render';
 
 const districtId = demoDistricts[0].id;
 const workerMe = {
@@ -29,10 +26,6 @@ const fahrenheitInches = unitsFor({ temperature: 'F', rain: 'in' });
 let view: Rendered | undefined;
 beforeEach(() => localStorage.clear());
 afterEach(async () => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
   await i18n.changeLanguage('en');
 });
 
@@ -45,11 +38,7 @@ describe('the survey screen in another language', () => {
       'GET /api/districts': () => json(200, { districts: [demoDistricts[0]] }),
       [`GET /api/districts/${districtId}/surveys`]: () => json(200, { district: workerMe.districts[0], surveys: [], weeks: [] }),
     });
-    view = await render(
-      <QueryClientProvider client={queryClient}>
-        <RouterProvider router={createMemoryRouter(routes, { initialEntries: ['/surveys'] })} />
-      </QueryClientProvider>,
-    );
+    view = await renderRoutes('/surveys');
     const locality = await waitFor(() => getByLabel(view!.container, 'Localité'), 3000);
     await typeInto(locality, 'Rue du Port');
     await typeInto(getByLabel(view.container, 'Maisons inspectées'), '10');

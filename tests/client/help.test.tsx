@@ -1,29 +1,19 @@
 import { act } from 'react';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
 import { HelpButton } from '../../src/features/help/help-button';
 import { TOUR_STEPS, tourSeen } from '../../src/features/help/first-run-tour';
 import { HELP_SOURCES, HELP_TOPICS } from '../../src/features/help/help-topics';
 import { i18n } from '../../src/i18n';
 import { demoBoard, demoBoundaries } from './support/board-fixtures';
 import { fakeApi, json, officerMe } from './support/fake-api';
-import { click, getButton, render, waitFor, type Rendered } from './support/render';
+import { click, getButton, render, waitFor, type Rendered, renderRoutes } from './support/render';
 
 vi.mock('../../src/components/chart/echart', () => import('./support/echart-stub'));
 vi.mock('../../src/components/chart/echarts-core', () => ({ echarts: { registerMap: vi.fn() } }));
 
 let view: Rendered | undefined;
 beforeEach(() => localStorage.clear());
-afterEach(() => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
-});
-
 const press = async (el: Element, key: string) =>
   act(async () => {
     el.dispatchEvent(new KeyboardEvent('keydown', { key, bubbles: true }));
@@ -99,12 +89,9 @@ async function openLadder(me = officerMe) {
     'GET /api/board': () => json(200, demoBoard),
     'GET /api/districts/boundaries': () => json(200, demoBoundaries),
   });
-  const router = createMemoryRouter(routes, { initialEntries: ['/'] });
-  view = await render(
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>,
-  );
+  const opened = await renderRoutes('/');
+  view = opened;
+  const router = opened.router;
   const c = view.container;
   await waitFor(() => expect(c.querySelector('tr[data-district="HV-01"]')).not.toBeNull(), 3000);
   return c;

@@ -1,31 +1,20 @@
 import { act } from 'react';
-import { afterEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
-import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
+import { afterEach, describe, expect, it } from 'vitest';
 import { i18n, setLanguage, type Language } from '../../src/i18n';
 import { seasonRun } from './support/board-fixtures';
 import { adminMe, fakeApi, json } from './support/fake-api';
-import { click, getButton, getByLabel, render, selectOption, typeInto, waitFor, type Rendered } from './support/render';
+import { click, getButton, getByLabel, selectOption, typeInto, waitFor, type Rendered, renderRoutes } from './support/render';
 
 let view: Rendered | undefined;
 afterEach(async () => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
   await act(() => setLanguage('en'));
   localStorage.removeItem('broodcast.language');
 });
 
 async function open(path: string) {
-  const router = createMemoryRouter(routes, { initialEntries: [path] });
-  view = await render(
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>,
-  );
+  const opened = await renderRoutes(path);
+  view = opened;
+  const router = opened.router;
   return view.container;
 }
 

@@ -1,19 +1,8 @@
-import { afterEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
-import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
+import { describe, expect, it } from 'vitest';
 import { adminMe, demoDistricts, demoUsers, fakeApi, json } from './support/fake-api';
-import { click, getButton, getByLabel, render, selectOption, typeInto, waitFor, type Rendered } from './support/render';
+import { click, getButton, getByLabel, selectOption, typeInto, waitFor, type Rendered, renderRoutes } from './support/render';
 
 let view: Rendered | undefined;
-afterEach(() => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
-});
-
 describe('invite form', () => {
   it('when the server rejects fields, then each message shows beside its field', async () => {
     const fetchMock = fakeApi({
@@ -29,11 +18,7 @@ describe('invite form', () => {
           },
         }),
     });
-    view = await render(
-      <QueryClientProvider client={queryClient}>
-        <RouterProvider router={createMemoryRouter(routes, { initialEntries: ['/admin/users'] })} />
-      </QueryClientProvider>,
-    );
+    view = await renderRoutes('/admin/users');
     const form = await waitFor(() => {
       const f = view!.container.querySelector<HTMLFormElement>('form[aria-labelledby="invite-title"]');
       if (!f) throw new Error('no invite form yet');

@@ -1,29 +1,19 @@
 import { act } from 'react';
-import { afterEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, MemoryRouter, RouterProvider } from 'react-router-dom';
+import { describe, expect, it, vi } from 'vitest';
+import { MemoryRouter } from 'react-router-dom';
 import { boardResponse, type LadderRow } from '../../shared/api/board.schema';
 import { TIERS } from '../../shared/tier';
-import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
 import { LadderTable, ladderCsv } from '../../src/features/ladder/components/ladder.table';
 import { TIER_COLOURS, relativeLuminance } from '../../src/features/ladder/tier-scale';
 import { neutraliseCell, toCsv } from '../../src/lib/csv';
 import { demoBoard, demoBoardRows, demoBoundaries, ladderRow } from './support/board-fixtures';
 import { fakeApi, json, officerMe } from './support/fake-api';
-import { click, render, typeInto, waitFor, type Rendered } from './support/render';
+import { click, render, typeInto, waitFor, type Rendered, renderRoutes } from './support/render';
 
 vi.mock('../../src/components/chart/echart', () => import('./support/echart-stub'));
 vi.mock('../../src/components/chart/echarts-core', () => ({ echarts: { registerMap: vi.fn() } }));
 
 let view: Rendered | undefined;
-afterEach(() => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
-});
-
 const rows = boardResponse.parse(demoBoard).rows;
 
 async function renderTable(data: LadderRow[]) {
@@ -173,12 +163,9 @@ describe('the Ladder screen', () => {
       'GET /api/board': () => json(200, demoBoard),
       'GET /api/districts/boundaries': () => json(200, demoBoundaries),
     });
-    const router = createMemoryRouter(routes, { initialEntries: ['/'] });
-    view = await render(
-      <QueryClientProvider client={queryClient}>
-        <RouterProvider router={router} />
-      </QueryClientProvider>,
-    );
+    const opened = await renderRoutes('/');
+    view = opened;
+    const router = opened.router;
     const c = view.container;
     await waitFor(() => expect(c.querySelector('tr[data-district="HV-01"]')).not.toBeNull());
     expect(c.querySelector('h1')?.textContent).toBe('Ladder');

@@ -1,28 +1,15 @@
-import { afterEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { describe, expect, it } from 'vitest';
 import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
 import { seasonRun } from './support/board-fixtures';
 import { adminMe, fakeApi, json } from './support/fake-api';
-import { click, getButton, render, waitFor, type Rendered } from './support/render';
+import { click, getButton, waitFor, type Rendered, renderRoutes } from './support/render';
 
 let view: Rendered | undefined;
-afterEach(() => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
-});
-
 async function open(handlers: Parameters<typeof fakeApi>[0]) {
   const fetch = fakeApi({ 'GET /api/me': () => json(200, adminMe), ...handlers });
-  const router = createMemoryRouter(routes, { initialEntries: ['/season-runs'] });
-  view = await render(
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={router} />
-    </QueryClientProvider>,
-  );
+  const opened = await renderRoutes('/season-runs');
+  view = opened;
+  const router = opened.router;
   await waitFor(() => expect(view!.container.querySelector('h1')?.textContent).toBe('Season runs'), 5000);
   return { c: view.container, fetch };
 }

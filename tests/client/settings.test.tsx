@@ -1,18 +1,10 @@
-import { afterEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
-import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
+import { afterEach, describe, expect, it } from 'vitest';
 import { i18n } from '../../src/i18n';
 import { adminMe, fakeApi, json } from './support/fake-api';
-import { click, getButton, getByLabel, render, selectOption, waitFor, type Rendered } from './support/render';
+import { click, getButton, getByLabel, selectOption, waitFor, type Rendered, renderRoutes } from './support/render';
 
 let view: Rendered | undefined;
 afterEach(async () => {
-  view?.unmount();
-  view = undefined;
-  queryClient.clear();
-  vi.unstubAllGlobals();
   await i18n.changeLanguage('en'); // the next test reads the English interface again
 });
 
@@ -32,11 +24,7 @@ function preferencesServer() {
 }
 
 async function openSettings() {
-  view = await render(
-    <QueryClientProvider client={queryClient}>
-      <RouterProvider router={createMemoryRouter(routes, { initialEntries: ['/settings'] })} />
-    </QueryClientProvider>,
-  );
+  view = await renderRoutes('/settings');
   return waitFor(() => {
     const form = view!.container.querySelector<HTMLFormElement>('form');
     if (!form) throw new Error('no settings form yet');

@@ -1,11 +1,8 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
-import { QueryClientProvider } from '@tanstack/react-query';
-import { createMemoryRouter, RouterProvider } from 'react-router-dom';
 import { queryClient } from '../../src/app/query-client';
-import { routes } from '../../src/app/router';
 import { OUTBOX_KEY, SurveyOutbox } from '../../src/features/surveys/offline-queue';
 import { demoDistricts, fakeApi, json } from './support/fake-api';
-import { click, getButton, getByLabel, render, typeInto, waitFor, type Rendered } from './support/render';
+import { click, getButton, getByLabel, typeInto, waitFor, type Rendered, renderRoutes } from './support/render';
 
 const districtId = demoDistricts[0].id;
 const survey = (id: string) => ({
@@ -122,11 +119,7 @@ describe('the survey form', () => {
       'GET /api/districts': () => json(200, { districts: [demoDistricts[0]] }),
       [`GET /api/districts/${districtId}/surveys`]: () => json(200, { district: workerMe.districts[0], surveys: [], weeks: [] }),
     });
-    view = await render(
-      <QueryClientProvider client={queryClient}>
-        <RouterProvider router={createMemoryRouter(routes, { initialEntries: ['/surveys'] })} />
-      </QueryClientProvider>,
-    );
+    view = await renderRoutes('/surveys');
     const locality = await waitFor(() => getByLabel(view!.container, 'Locality'), 3000);
     await typeInto(locality, 'Harbour Row');
     await typeInto(getByLabel(view.container, 'Houses inspected'), '10');

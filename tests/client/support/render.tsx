@@ -1,10 +1,17 @@
 import { act, type ReactNode } from 'react';
 import { createRoot, type Root } from 'react-dom/client';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { createMemoryRouter, RouterProvider } from 'react-router-dom';
+import { queryClient } from '../../../src/app/query-client';
+import { routes } from '../../../src/app/router';
 
 // Tell React this is a test environment, so act() flushes effects without warnings.
 (globalThis as { IS_REACT_ACT_ENVIRONMENT?: boolean }).IS_REACT_ACT_ENVIRONMENT = true;
 
 export type Rendered = { container: HTMLElement; unmount: () => void };
+
+/** What is on screen now; tests/client/support/setup.ts unmounts it after each test. */
+const mounted = new Set<Rendered>();
 
 /** Renders into a fresh container with react-dom/client (no testing library is installed). */
 export async function render(ui: ReactNode): Promise<Rendered> {
@@ -15,13 +22,32 @@ export async function render(ui: ReactNode): Promise<Rendered> {
     root = createRoot(container);
     root.render(ui);
   });
-  return {
+  const rendered: Rendered = {
     container,
     unmount: () => {
+      if (!mounted.delete(rendered)) return; // already unmounted
       act(() => root.unmount());
       container.remove();
     },
   };
+  mounted.add(rendered);
+  return rendered;
+}
+
+/** Unmounts everything still rendered (after each test). */
+export function unmountAll(): void {
+  for (const r of [...mounted]) r.unmount();
+}
+
+/** The whole app's routes at `path`, with the app's query client, as the browser would get them. */
+export async function renderRoutes(path: string): Promise<Rendered & { router: ReturnType<typeof createMemoryRouter> }> {
+  const router = createMemoryRouter(routes, { initialEntries: [path] });
+  const rendered = await render(
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>,
+  );
+  return { ...rendered, router };
 }
 
 /** The form control whose <label> reads exactly `text`. */

@@ -1,12 +1,18 @@
-import { afterEach, beforeAll, expect } from 'vitest';
+import { afterEach, beforeAll, expect, vi } from 'vitest';
+import { queryClient } from '../../../src/app/query-client';
 import { i18n, missingKeys } from '../../../src/i18n';
+import { unmountAll } from './render';
 
 // Client tests read the English interface; a key that English lacks fails the test that rendered it.
 beforeAll(async () => {
   await i18n.changeLanguage('en');
 });
 
+// Every test starts with nothing rendered, an empty query cache and the real globals (fetch, …).
 afterEach(() => {
+  unmountAll();
+  queryClient.clear();
+  vi.unstubAllGlobals();
   const missing = [...missingKeys];
   missingKeys.clear();
   expect(missing, 'translation keys missing in English').toEqual([]);
