@@ -83,7 +83,8 @@ function isRunning(dataDir: string): boolean {
 
 export async function startCluster(opts: {
   projectDir: string;
-  name: 'dev' | 'test';
+  /** The folder under .local/pg: dev (npm start), test (npm test), drill (bench/drills' throw-away cluster). */
+  name: 'dev' | 'test' | 'drill';
   port: number;
   /** fsync off: only for the throw-away test cluster, never for `npm start`. */
   durable: boolean;

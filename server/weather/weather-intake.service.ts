@@ -3,7 +3,7 @@ import { createReadStream } from 'node:fs';
 import { unlink } from 'node:fs/promises';
 import { pipeline, Transform } from 'node:stream';
 import { finished } from 'node:stream/promises';
-import { parse } from 'csv-parse';
+import { CsvError, parse } from 'csv-parse';
 import type pg from 'pg';
 import { from as copyFrom } from 'pg-copy-streams';
 import type { EntityManager } from 'typeorm';
@@ -89,7 +89,8 @@ export function recordsSource(header: string[], rows: string[][]): IntakeSource 
 
 function csvProblem(err: any): IntakeFailure {
   if (err instanceof IntakeFailure) return err;
-  if (typeof err?.code === 'string' && err.code.startsWith('CSV_')) {
+  // csv-parse's errors are CsvError; their codes start with CSV_ but for one (INVALID_OPENING_QUOTE).
+  if (err instanceof CsvError || (typeof err?.code === 'string' && err.code.startsWith('CSV_'))) {
     const where = err.lines ? ` near line ${err.lines}` : '';
     if (err.code === 'CSV_QUOTE_NOT_CLOSED')
       return new IntakeFailure('truncated_file', `The file ends inside a quoted value${where}: it looks cut off. ${NOTHING_KEPT} Upload the complete file.`);

@@ -222,6 +222,15 @@ describe('bad files', () => {
     expect(await countRows(t.ds, ...WEATHER_TABLES)).toEqual(before);
   });
 
+  it('when a value opens a quote in the middle of a field, then the upload fails as invalid CSV naming the line, and nothing is kept', async () => {
+    const station = await makeStation(t.ds, { latitude: 44.5, longitude: 44.5 });
+    const before = await countRows(t.ds, ...WEATHER_TABLES);
+    const res = await upload(`${HEADER}\n${station.code},2026-01-01,1,2,50,0\n${station.code},2026-01-02,1 "x",2,50,0\n`);
+    expect(res.body.status).toBe('failed');
+    expect(res.body.message).toMatch(/not valid CSV near line 3.*Nothing from it was saved/);
+    expect(await countRows(t.ds, ...WEATHER_TABLES)).toEqual(before);
+  });
+
   it('when the file is over the size limit, then the answer is 413 naming the file and no upload is recorded', async () => {
     const small = await createTestApp({ SIGN_IN_LIMIT_PER_ADDRESS: '1000', WEATHER_UPLOAD_MAX_BYTES: '200' });
     try {

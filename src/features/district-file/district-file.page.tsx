@@ -17,6 +17,7 @@ import { KeyNumbers } from './components/key-numbers';
 import { weatherSourceText } from './district-file-format';
 import { useLadderWords } from '../ladder/ladder-format';
 import './district-file.css';
+import { errorText } from '../../lib/error-text';
 
 const seasonParam = (v: string | null) => (v && /^\d{4}$/.test(v) ? Number(v) : null);
 const byWeek = (a: { epiYear: number; epiWeek: number }, b: { epiYear: number; epiWeek: number }) => a.epiYear - b.epiYear || a.epiWeek - b.epiWeek;
@@ -52,7 +53,7 @@ export function DistrictFilePage() {
     return (
       <section aria-labelledby="page-title">
         <PageHeading>{t('title')}</PageHeading>
-        <FormMessage kind="error">{file.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(file.error)}</FormMessage>
         <p className="mt-4">
           <Link to="/" className="link">
             {t('backToLadder')}

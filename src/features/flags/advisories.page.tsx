@@ -6,6 +6,7 @@ import { TierBadge } from '../ladder/components/tier-badge';
 import { CautionsPanel } from '../cautions/cautions-panel';
 import { useAdvisories } from './api/advisories.api';
 import { useFlagFormat } from './flag-format';
+import { errorText } from '../../lib/error-text';
 
 /** Every advisory sent (a community worker: their district's), newest first, with the current ones marked. */
 export function AdvisoriesPage() {
@@ -29,7 +30,7 @@ export function AdvisoriesPage() {
       {advisories.isPending ? (
         <p className="text-ink-muted">{t('advisories.loading')}</p>
       ) : advisories.isError ? (
-        <FormMessage kind="error">{advisories.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(advisories.error)}</FormMessage>
       ) : advisories.data.length === 0 ? (
         <p className="card">{t('advisories.empty')}</p>
       ) : (

@@ -6,6 +6,7 @@ import { useFlag } from './api/flags.api';
 import { DecisionForm } from './components/decision.form';
 import { FlagSummary } from './components/flag-summary';
 import { useFlagFormat } from './flag-format';
+import { errorText } from '../../lib/error-text';
 
 /** One flag with its whole history (who raised, approved or rejected it, when, and what changed). */
 export function FlagPage() {
@@ -20,7 +21,7 @@ export function FlagPage() {
       {detail.isPending ? (
         <p className="text-ink-muted">{t('flag.loading')}</p>
       ) : detail.isError ? (
-        <FormMessage kind="error">{detail.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(detail.error)}</FormMessage>
       ) : (
         <div className="space-y-6">
           <div className="card space-y-3">

@@ -4,6 +4,7 @@ import { PageHeading } from '../../components/page-heading';
 import { useFlags } from './api/flags.api';
 import { DecisionForm } from './components/decision.form';
 import { FlagSummary } from './components/flag-summary';
+import { errorText } from '../../lib/error-text';
 
 /** The sign-off queue (supervisor): open flags, highest tier first, then newest; decide each in place. */
 export function SignOffPage() {
@@ -15,7 +16,7 @@ export function SignOffPage() {
       {flags.isPending ? (
         <p className="text-ink-muted">{t('signOff.loading')}</p>
       ) : flags.isError ? (
-        <FormMessage kind="error">{flags.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(flags.error)}</FormMessage>
       ) : flags.data.length === 0 ? (
         <p className="card">{t('signOff.empty')}</p>
       ) : (

@@ -11,6 +11,7 @@ import { useBoard } from './api/board.api';
 import { LadderTable } from './components/ladder.table';
 import { useLadderWords } from './ladder-format';
 import './ladder.css';
+import { errorText } from '../../lib/error-text';
 
 const EMPTY: never[] = [];
 
@@ -40,7 +41,7 @@ export function LadderPage() {
       {board.isPending ? (
         <p className="text-ink-muted">{t('loading')}</p>
       ) : board.isError ? (
-        <FormMessage kind="error">{board.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(board.error)}</FormMessage>
       ) : (
         <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,22rem)]">
           <div className="min-w-0" data-tour="ladder-table">

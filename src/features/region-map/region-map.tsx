@@ -6,6 +6,7 @@ import { FormMessage } from '../../components/form';
 import { TierSwatch } from '../ladder/components/tier-badge';
 import { useLadderWords } from '../ladder/ladder-format';
 import { useBoundaries } from './api/boundaries.api';
+import { errorText } from '../../lib/error-text';
 
 // ECharts arrives with this chunk only: the Ladder's text and table show before it, and sign-in never loads it.
 const RegionMapChart = lazy(() => import('./region-map-chart'));
@@ -38,7 +39,7 @@ export function RegionMap({ rows }: { rows: LadderRow[] }) {
       {boundaries.isPending ? (
         <p className="chart-empty">{t('loading')}</p>
       ) : boundaries.isError ? (
-        <FormMessage kind="error">{boundaries.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(boundaries.error)}</FormMessage>
       ) : boundaries.data.features.length === 0 ? (
         <p className="chart-empty">{t('noBoundaries')}</p>
       ) : (

@@ -11,6 +11,7 @@ import { downloadCsv, toCsv } from '../../lib/csv';
 import { useUnits } from '../../lib/units';
 import { useDistricts } from '../districts/api/districts.api';
 import { useDistrictSeries } from './api/district-series.api';
+import { errorText } from '../../lib/error-text';
 
 const column = createColumnHelper<PlainTableFeatures, SeriesDayDto>();
 
@@ -72,7 +73,7 @@ export function DistrictWeatherPage() {
           </option>
         ))}
       </SelectField>
-      {series.isError ? <FormMessage kind="error">{series.error.message}</FormMessage> : null}
+      {series.isError ? <FormMessage kind="error">{errorText(series.error)}</FormMessage> : null}
       {s ? (
         <>
           {s.district.isDemo ? <p className="demo-label">{t('demo')}</p> : null}

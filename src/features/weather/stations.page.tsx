@@ -8,6 +8,7 @@ import { FormMessage } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
 import { useFormat } from '../../i18n/format';
 import { useStations } from './api/stations.api';
+import { errorText } from '../../lib/error-text';
 
 const column = createColumnHelper<PlainTableFeatures, StationDto>();
 
@@ -54,7 +55,7 @@ export function StationsPage() {
       <PageHeading lead={t('stations.lead')}>{t('stations.title')}</PageHeading>
       {stations.data?.some((s) => s.isDemo) ? <p className="demo-label">{t('demo')}</p> : null}
       {stations.isError ? (
-        <FormMessage kind="error">{stations.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(stations.error)}</FormMessage>
       ) : (
         <DataTable table={table} caption={t('stations.caption')} emptyText={t('stations.empty')} />
       )}

@@ -19,7 +19,7 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
   return (
     <div className="space-y-2">
       {message ? <FormMessage kind="error">{message}</FormMessage> : null}
-      <div className="table-wrap">
+      <div className="table-wrap" tabIndex={0} role="region" aria-label={t('signals.caption', { disease: data.disease.name, district: data.district.name, year: data.year })}>
         <table className="data-table" data-testid="signals-table">
           <caption className="table-caption">
             {t('signals.caption', { disease: data.disease.name, district: data.district.name, year: data.year })}

@@ -16,6 +16,7 @@ import { channelMethodText } from '../district-file-format';
 import '../district-file.css';
 import { PrintCasesChart, PrintDegreeDaysChart } from './print-charts';
 import './district-print.css';
+import { errorText } from '../../../lib/error-text';
 
 const seasonParam = (v: string | null) => (v && /^\d{4}$/.test(v) ? Number(v) : null);
 
@@ -37,7 +38,7 @@ export function DistrictPrintPage() {
         <h1 id="page-title" className="text-2xl font-bold">
           {t('print.title')}
         </h1>
-        <FormMessage kind="error">{file.error.message}</FormMessage>
+        <FormMessage kind="error">{errorText(file.error)}</FormMessage>
         <p className="mt-4">
           <Link to="/" className="link">
             {t('backToLadder')}

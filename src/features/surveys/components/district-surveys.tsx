@@ -3,6 +3,7 @@ import { FormMessage } from '../../../components/form';
 import { useFormat } from '../../../i18n/format';
 import { useDistrictSurveys } from '../api/district-surveys.api';
 import { formatIndex } from '../survey-format';
+import { errorText } from '../../../lib/error-text';
 
 /** A district's larval indices per epidemiological week (counts pooled) and its latest surveys. */
 export function DistrictSurveys({ districtId, limit = 10 }: { districtId: string; limit?: number }) {
@@ -10,13 +11,13 @@ export function DistrictSurveys({ districtId, limit = 10 }: { districtId: string
   const { number, date } = useFormat();
   const surveys = useDistrictSurveys(districtId);
   if (surveys.isPending) return <p className="text-ink-muted">{t('district.loading')}</p>;
-  if (surveys.isError) return <FormMessage kind="error">{surveys.error.message}</FormMessage>;
+  if (surveys.isError) return <FormMessage kind="error">{errorText(surveys.error)}</FormMessage>;
   const { weeks, surveys: list } = surveys.data;
   const district = surveys.data.district.name;
   if (list.length === 0) return <p className="text-sm text-ink-muted">{t('district.empty', { district })}</p>;
   return (
     <div className="space-y-4">
-      <div className="table-wrap">
+      <div className="table-wrap" tabIndex={0} role="region" aria-label={t('district.caption', { district })}>
         <table className="data-table">
           <caption className="table-caption">{t('district.caption', { district })}</caption>
           <thead>
