@@ -3,12 +3,9 @@ import { createRequire } from 'node:module';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemoIfEmpty } from '../../sample/seed-demo';
 import { DEMO_PASSWORD } from '../../sample/demo-region';
-import { runSeasonNow } from '../../server/season/season-run.service';
 import { TIER_COLOURS, TIER_TEXT } from '../../src/features/ladder/tier-scale';
-import { launchBrowser } from '../support/browser';
-import { startLiveServer } from '../support/live-server';
+import { startDemoBrowser, type LiveServer } from '../support/demo-browser';
 
 /*
  * Accessibility in a real browser (docs/accessibility.md): axe-core's WCAG 2.0, 2.1 and 2.2 level A and AA
@@ -25,19 +22,14 @@ const axeSource = readFileSync(path.join(path.dirname(createRequire(import.meta.
 type AxeNode = { target: unknown[]; failureSummary?: string };
 type AxeViolation = { id: string; impact: string | null; help: string; nodes: AxeNode[] };
 
-let server: Awaited<ReturnType<typeof startLiveServer>>;
+let server: LiveServer;
 let browser: Browser;
+let stop: (() => Promise<void>) | undefined;
 
 beforeAll(async () => {
-  server = await startLiveServer();
-  await seedDemoIfEmpty(server.ds, { nodeEnv: 'test', bcryptCost: 4 });
-  await runSeasonNow(server.ctx);
-  browser = await launchBrowser();
+  ({ server, browser, stop } = await startDemoBrowser());
 });
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+afterAll(() => stop?.());
 
 async function newPage(language: 'en' | 'fr'): Promise<{ page: Page; context: BrowserContext }> {
   const context = await browser.newContext({ viewport: { width: 1280, height: 800 }, locale: language === 'fr' ? 'fr-FR' : 'en-GB' });

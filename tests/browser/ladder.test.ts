@@ -1,25 +1,17 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemoIfEmpty } from '../../sample/seed-demo';
 import { DEMO_PASSWORD } from '../../sample/demo-region';
-import { runSeasonNow } from '../../server/season/season-run.service';
-import { launchBrowser } from '../support/browser';
-import { startLiveServer } from '../support/live-server';
+import { startDemoBrowser, type LiveServer } from '../support/demo-browser';
 
-let server: Awaited<ReturnType<typeof startLiveServer>>;
+let server: LiveServer;
 let browser: Browser;
+let stop: (() => Promise<void>) | undefined;
 const problems: string[] = [];
 
 beforeAll(async () => {
-  server = await startLiveServer();
-  await seedDemoIfEmpty(server.ds, { nodeEnv: 'test', bcryptCost: 4 });
-  await runSeasonNow(server.ctx);
-  browser = await launchBrowser();
+  ({ server, browser, stop } = await startDemoBrowser());
 });
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+afterAll(() => stop?.());
 
 async function signInAsOfficer(): Promise<Page> {
   const context = await browser.newContext();

@@ -3,11 +3,8 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { seedDemoIfEmpty } from '../../sample/seed-demo';
 import { DEMO_PASSWORD } from '../../sample/demo-region';
-import { startupRuns } from '../../server/season/season-run.service';
-import { launchBrowser } from '../support/browser';
-import { startLiveServer } from '../support/live-server';
+import { startDemoBrowser, type LiveServer } from '../support/demo-browser';
 
 /*
  * The screenshots in the README (docs/screenshots/): the Ladder and a District file with the demo data, at
@@ -25,22 +22,17 @@ const SIZES = {
   desktop: { viewport: { width: 1280, height: 800 }, deviceScaleFactor: 1, isMobile: false, hasTouch: false },
 } as const;
 
-let server: Awaited<ReturnType<typeof startLiveServer>>;
+let server: LiveServer;
 let browser: Browser;
+let stop: (() => Promise<void>) | undefined;
 const problems: string[] = [];
 
+// As `npm start` does on a fresh installation: the last eight weeks' tiers, then today's, so the
+// pictures show "since last week" and a tier history.
 beforeAll(async () => {
-  server = await startLiveServer();
-  await seedDemoIfEmpty(server.ds, { nodeEnv: 'test', bcryptCost: 4 });
-  // As `npm start` does on a fresh installation: the last eight weeks' tiers, then today's, so the
-  // pictures show "since last week" and a tier history.
-  await startupRuns(server.ctx);
-  browser = await launchBrowser();
+  ({ server, browser, stop } = await startDemoBrowser({ runs: 'startup' }));
 });
-afterAll(async () => {
-  await browser?.close();
-  await server?.stop();
-});
+afterAll(() => stop?.());
 
 async function signedInPage(size: keyof typeof SIZES): Promise<Page> {
   const context = await browser.newContext({ ...SIZES[size], locale: 'en-GB', reducedMotion: 'reduce' });
