@@ -38,6 +38,7 @@ describe('invite form', () => {
       email: 'new.person@halvern.example',
       displayName: 'New Person',
       role: 'officer',
+      language: 'en', // the invitee's language, English unless the admin picks another
       districtIds: [],
     });
   });

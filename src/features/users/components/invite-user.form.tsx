@@ -9,8 +9,9 @@ import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../com
 import { useInviteUser } from '../api/invite-user.api';
 import { useDistrictOptions } from './district-options';
 import { RoleOptions, useDistrictHint } from './role-options';
+import { LANGUAGES, LANGUAGE_NAMES } from '../../../i18n/languages';
 
-const FIELDS = ['email', 'displayName', 'role', 'districtIds'] as const;
+const FIELDS = ['email', 'displayName', 'role', 'language', 'districtIds'] as const;
 
 export function InviteUserForm() {
   const { t } = useTranslation('users');
@@ -27,7 +28,7 @@ export function InviteUserForm() {
     formState: { errors, isSubmitting },
   } = useForm({
     resolver: zodResolver(userInviteBody),
-    defaultValues: { email: '', displayName: '', role: undefined, districtIds: [] },
+    defaultValues: { email: '', displayName: '', role: undefined, language: 'en' as const, districtIds: [] },
   });
   const role = watch('role');
   const districtHint = useDistrictHint(role);
@@ -65,6 +66,14 @@ export function InviteUserForm() {
         <TextField label={t('fields.name')} autoComplete="off" error={errors.displayName?.message} {...register('displayName')} />
         <SelectField label={t('fields.role')} error={roleError} {...register('role')}>
           <RoleOptions placeholder={t('invite.rolePlaceholder')} />
+        </SelectField>
+        {/* The invite mail is written in it, and it is the account's language until its owner changes it. */}
+        <SelectField label={t('fields.language')} error={errors.language?.message} {...register('language')}>
+          {LANGUAGES.map((lng) => (
+            <option key={lng} value={lng} lang={lng}>
+              {LANGUAGE_NAMES[lng]}
+            </option>
+          ))}
         </SelectField>
       </div>
       <Controller
