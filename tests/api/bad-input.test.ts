@@ -34,6 +34,16 @@ describe('bad input', () => {
     expect(await countRows(t.ds, ...ALL_TABLES)).toEqual(before);
   });
 
+  it('when a text holds a NUL character, which PostgreSQL text cannot store, then the answer is 400 naming the field and nothing is written', async () => {
+    const before = await countRows(t.ds, ...ALL_TABLES);
+    const res = await admin.post('/api/districts').send({ code: 'NUL-1', name: 'Bad\u0000name' });
+    expect(res.status).toBe(400);
+    expect(res.body.error.fields).toEqual([{ path: 'name', message: 'must not contain a NUL character' }]);
+    const query = await admin.get('/api/weather/stations?x=%00');
+    expect(query.status).toBeLessThan(500);
+    expect(await countRows(t.ds, ...ALL_TABLES)).toEqual(before);
+  });
+
   it('when the body is missing, then the answer is 400 naming the body', async () => {
     const res = await admin.post('/api/districts');
     expect(res.status).toBe(400);
