@@ -36,19 +36,15 @@ export class BoardService {
     return this.cache;
   }
 
-  /** The board as JSON text for this principal (community workers: their own districts). */
-  async boardJson(p: Principal): Promise<string> {
-    const cache = await this.load();
-    if (seesAllDistricts(p)) return cache.json;
-    const rows = cache.board.rows.filter((r) => p.districtIds.includes(r.districtId)).map((r, i) => ({ ...r, rank: i + 1 }));
-    return JSON.stringify({ ...cache.board, rows });
-  }
-
-  /** The board's body for this principal, gzip-compressed when the client accepts it and it is the cached whole. */
+  /**
+   * The board's body for this principal: community workers get their own districts (ranked among
+   * themselves); everyone else the cached whole, gzip-compressed when the client accepts it.
+   */
   async boardBody(p: Principal, acceptsGzip: boolean): Promise<BoardBody> {
     const cache = await this.load();
     if (!seesAllDistricts(p)) {
-      return { data: await this.boardJson(p), gzip: false, etag: etagOf(`${cache.version}|${[...p.districtIds].sort().join(',')}`) };
+      const rows = cache.board.rows.filter((r) => p.districtIds.includes(r.districtId)).map((r, i) => ({ ...r, rank: i + 1 }));
+      return { data: JSON.stringify({ ...cache.board, rows }), gzip: false, etag: etagOf(`${cache.version}|${[...p.districtIds].sort().join(',')}`) };
     }
     if (!acceptsGzip) return { data: cache.json, gzip: false, etag: cache.etag };
     cache.gzip ??= gzipSync(cache.json, { level: 6 });

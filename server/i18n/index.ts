@@ -2,7 +2,8 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import i18next, { type TFunction } from 'i18next';
-import { LANGUAGES, type Language } from '../../shared/api/auth.schema';
+import { isLanguage, LANGUAGES, type Language } from '../../shared/languages';
+import { formattersFor, type Formatters } from '../../shared/locale-format';
 
 /**
  * i18next for the server's own words: mails (invite, password reset), advisories, the weekly bulletin
@@ -11,7 +12,7 @@ import { LANGUAGES, type Language } from '../../shared/api/auth.schema';
  * checks that every language has the same keys and placeholders. Each mail is written in its
  * recipient's language (their user preference), English when there is none.
  */
-export type { Language } from '../../shared/api/auth.schema';
+export type { Language } from '../../shared/languages';
 export const DEFAULT_LANGUAGE: Language = 'en';
 
 const root = fileURLToPath(new URL('./locales/', import.meta.url));
@@ -39,51 +40,16 @@ void instance.init({
 });
 
 /** A language from a stored value, English for anything else (a subscriber without a preference). */
-export const languageOr = (x: unknown): Language => ((LANGUAGES as readonly unknown[]).includes(x) ? (x as Language) : DEFAULT_LANGUAGE);
+export const languageOr = (x: unknown): Language => (isLanguage(x) ? x : DEFAULT_LANGUAGE);
 
 /** The translate function of one language and namespace (`t('key', { vars })`). */
 export function textsFor(language: Language, ns: ServerNamespace = 'common'): TFunction {
   return instance.getFixedT(languageOr(language), ns);
 }
 
-/** Intl locale per language (the client uses the same: src/i18n/languages.ts). */
-export const LOCALES: Record<Language, string> = { en: 'en-GB', fr: 'fr', es: 'es', pt: 'pt-PT' };
-
-export interface ServerFormat {
-  locale: string;
-  /** A number with at most `digits` decimals (exactly `digits` when `fixed`); '-' for null. */
-  number: (x: number | null | undefined, digits?: number, fixed?: boolean) => string;
-  /** A share 0…1 as a whole percentage. */
-  percent: (x: number) => string;
-  /** A calendar date (YYYY-MM-DD or an ISO instant, read in UTC), e.g. "20 Aug 2026" / "20 août 2026". */
-  date: (iso: string) => string;
-}
-
-const formats = new Map<Language, ServerFormat>();
-
-/** Locale-aware numbers and dates for a mail or a PDF in `language`. */
-export function formatFor(language: Language): ServerFormat {
-  const lng = languageOr(language);
-  const hit = formats.get(lng);
-  if (hit) return hit;
-  const locale = LOCALES[lng];
-  const numberFormats = new Map<string, Intl.NumberFormat>();
-  const nf = (digits: number, fixed: boolean) => {
-    const key = `${digits}:${fixed}`;
-    let f = numberFormats.get(key);
-    if (!f) numberFormats.set(key, (f = new Intl.NumberFormat(locale, { maximumFractionDigits: digits, minimumFractionDigits: fixed ? digits : 0 })));
-    return f;
-  };
-  const percent = new Intl.NumberFormat(locale, { style: 'percent', maximumFractionDigits: 0 });
-  const dateFormat = new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-  const f: ServerFormat = {
-    locale,
-    number: (x, digits = 0, fixed = false) => (x === null || x === undefined || Number.isNaN(x) ? '-' : nf(digits, fixed).format(x)),
-    percent: (x) => percent.format(x),
-    date: (iso) => dateFormat.format(new Date(iso.length === 10 ? `${iso}T00:00:00Z` : iso)),
-  };
-  formats.set(lng, f);
-  return f;
+/** Locale-aware numbers and dates for a mail or a PDF in `language` ('-' for a missing value). */
+export function formatFor(language: Language): Formatters {
+  return formattersFor(languageOr(language), '-');
 }
 
 /**

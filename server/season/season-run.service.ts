@@ -5,7 +5,7 @@ import { withAdvisoryLock } from '../../jobs/advisory-lock';
 import { computeDistrictSeason, type DistrictSeasonResult } from './district-season';
 import { DistrictRunStateEntity } from './district-run-state.entity';
 import { DistrictTierEntity } from './district-tier.entity';
-import { type DistrictForRun, emptyWeatherColumns, SeasonRepository, weatherByYear } from './season.repository';
+import { type DistrictForRun, SeasonRepository, weatherByYear } from './season.repository';
 import { SeasonRunEntity } from './season-run.entity';
 import { TierSettingsService } from './tier-settings.service';
 import { CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
@@ -143,10 +143,8 @@ export class SeasonRunService {
             stop = new Error('drill: stopped part-way');
             break;
           }
-          const priorRange = prior.get(district.id);
           const result = computeDistrictSeason({
-            district, asOf, seasonYear, weather: weather.get(district.id) ?? emptyWeatherColumns(seasonStart, isoDaysBetween(seasonStart, asOf) + 1),
-            priorWeather: priorRange ? weatherByYear(priorRange) : new Map(),
+            district, asOf, seasonYear, weather: weather.get(district.id)!, priorWeather: weatherByYear(prior.get(district.id)!),
             cases: casesOf.get(district.id) ?? [], excludedYears: excluded,
             surveys: surveysOf.get(district.id) ?? [], settings,
             epiSystem: this.ctx.config.EPI_WEEK_SYSTEM, channelMethod: this.ctx.config.CHANNEL_METHOD,
@@ -239,7 +237,6 @@ function groupBy<T>(xs: T[], key: (x: T) => string): Map<string, T[]> {
   }
   return out;
 }
-const isoDaysBetween = (a: string, b: string) => parseIsoDate(b) - parseIsoDate(a);
 
 /**
  * At start: when no tier exists yet (a fresh installation), compute the tiers of the last `weeks`

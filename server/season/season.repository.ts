@@ -25,7 +25,7 @@ export interface WeatherColumns {
   rows: number;
 }
 
-export function emptyWeatherColumns(startDate: string, length: number): WeatherColumns {
+function emptyWeatherColumns(startDate: string, length: number): WeatherColumns {
   return {
     startDate, length, rows: 0,
     tmin: new Float64Array(length).fill(Number.NaN), tmax: new Float64Array(length).fill(Number.NaN),
@@ -123,7 +123,7 @@ export class SeasonRepository {
   }
 
   /**
-   * Each district's daily weather from `from` to `to` as dense columns (a day without a row, or
+   * Each requested district's daily weather from `from` to `to` as dense columns (a day without a row, or
    * without Tmin or Tmax, is NaN: a gap, never zero heat). One row of arrays per district from
    * PostgreSQL, day offsets instead of date strings, so no object or date is made per day.
    */
@@ -159,6 +159,7 @@ export class SeasonRepository {
       }
       out.set(r.district_id, c);
     }
+    for (const id of districtIds) if (!out.has(id)) out.set(id, emptyWeatherColumns(from, n)); // no row at all: every day a gap
     return out;
   }
 

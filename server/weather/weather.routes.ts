@@ -6,9 +6,8 @@ import type { NextFunction, Request, Response } from 'express';
 import multer from 'multer';
 import { idParams } from '../../shared/api/common.schema';
 import {
-  correctionBody, issuesQuery, rangeQuery, revisionsQuery, stationCreateBody, stationUpdateBody, uploadForm, uploadQuery,
+  correctionBody, issuesReportQuery, rangeQuery, revisionsQuery, stationCreateBody, stationUpdateBody, uploadForm, uploadQuery,
 } from '../../shared/api/weather.schema';
-import { z } from 'zod';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
 import { checkCsvUpload, uploadLimit } from '../http/uploads';
@@ -68,12 +67,7 @@ export function weatherRoutes(ctx: AppContext) {
     }),
     defineRoute({
       method: 'get', path: '/weather/uploads/:id/issues', access: EDITORS, params: idParams,
-      query: issuesQuery.extend({
-        format: z.enum(['json', 'csv']).default('json'),
-        // Units of the CSV's temperatures and rain (the reader's display units; SI by default).
-        temperature: z.enum(['C', 'F'], { message: 'must be C or F' }).default('C'),
-        rain: z.enum(['mm', 'in'], { message: 'must be mm or in' }).default('mm'),
-      }),
+      query: issuesReportQuery,
       handler: ({ params, query }, _req, res) =>
         query.format === 'csv'
           ? service.issuesCsv(params.id, res, { temperature: query.temperature, rain: query.rain })

@@ -2,7 +2,8 @@ import type { Response } from 'express';
 import type {
   CorrectionBody, DistrictWeatherSource, IssueDto, StationCreateBody, StationUpdateBody,
 } from '../../shared/api/weather.schema';
-import { csvCell } from '../../shared/weather/qc';
+import { fromCelsius, fromMillimetres, type RainUnit, type TemperatureUnit, toCelsius, toMillimetres } from '../../shared/units';
+import { csvCell, issueValueUnit } from '../../shared/weather/qc';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import { assertDistrictVisible, type Principal, seesAllDistricts } from '../auth/principal';
@@ -224,37 +225,30 @@ export class WeatherService {
 }
 
 export interface IssueUnits {
-  temperature: 'C' | 'F';
-  rain: 'mm' | 'in';
+  temperature: TemperatureUnit;
+  rain: RainUnit;
 }
 
-const TEMPERATURE_COLUMNS = new Set(['tmin', 'tmax', 'dewpoint']);
 const round2 = (x: number) => Math.round(x * 100) / 100;
 
 /**
- * One report value in the units asked for. A rejected value is what the file said, in the upload's
- * units; a flagged or filled one is a stored value, in °C and mm. Text that is not a number (a bad
- * number, a whole row) and columns without a unit are left as they are.
+ * One report value in the units asked for (issueValueUnit says which units it is in). Text that is not
+ * a number (a bad number, a whole row) and columns without a unit are left as they are.
  */
 export function issueValueIn(
   issue: { column: string; value: string | null; severity: string },
-  upload: { tempUnit: 'C' | 'F'; rainUnit: 'mm' | 'in' },
+  upload: { tempUnit: TemperatureUnit; rainUnit: RainUnit },
   units: IssueUnits,
 ): string | null {
   const text = issue.value?.trim() ?? '';
   if (issue.value === null || text === '' || !Number.isFinite(Number(text))) return issue.value;
   const x = Number(text);
-  if (TEMPERATURE_COLUMNS.has(issue.column)) {
-    const from = issue.severity === 'rejected' ? upload.tempUnit : 'C';
-    if (from === units.temperature) return issue.value;
-    const celsius = from === 'F' ? ((x - 32) * 5) / 9 : x;
-    return String(round2(units.temperature === 'F' ? (celsius * 9) / 5 + 32 : celsius));
+  const from = issueValueUnit(issue, upload);
+  if (from?.kind === 'temperature') {
+    return from.unit === units.temperature ? issue.value : String(round2(fromCelsius(toCelsius(x, from.unit), units.temperature)));
   }
-  if (issue.column === 'rain') {
-    const from = issue.severity === 'rejected' ? upload.rainUnit : 'mm';
-    if (from === units.rain) return issue.value;
-    const mm = from === 'in' ? x * 25.4 : x;
-    return String(round2(units.rain === 'in' ? mm / 25.4 : mm));
+  if (from?.kind === 'rain') {
+    return from.unit === units.rain ? issue.value : String(round2(fromMillimetres(toMillimetres(x, from.unit), units.rain)));
   }
   return issue.value;
 }

@@ -1,15 +1,14 @@
 import { z } from 'zod';
+import { LANGUAGES } from '../languages';
+import { RAIN_UNITS, TEMPERATURE_UNITS } from '../units';
 import { ROLES } from '../roles';
 import { email, newPassword, uuid } from './common.schema';
 
 /**
- * Each user's language and display units. The languages are the interface's (src/i18n/languages.ts keeps
- * the same list for the client); stored and exchanged values stay SI whatever the units chosen.
+ * Each user's language (shared/languages.ts) and display units (shared/units.ts); stored and exchanged
+ * values stay SI whatever the units chosen.
  */
-export const LANGUAGES = ['en', 'fr', 'es', 'pt'] as const;
-export type Language = (typeof LANGUAGES)[number];
-export const TEMPERATURE_UNITS = ['C', 'F'] as const;
-export const RAIN_UNITS = ['mm', 'in'] as const;
+export { LANGUAGES, type Language } from '../languages';
 export const DEFAULT_PREFERENCES = { language: 'en', temperatureUnit: 'C', rainUnit: 'mm' } as const;
 
 export const language = z.enum(LANGUAGES, { message: 'must be one of: ' + LANGUAGES.join(', ') });

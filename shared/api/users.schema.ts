@@ -2,7 +2,8 @@ import { z } from 'zod';
 import { ROLES } from '../roles';
 import { districtRef, language } from './auth.schema';
 
-export { DEFAULT_PREFERENCES, LANGUAGES, RAIN_UNITS, TEMPERATURE_UNITS, preferencesBody, preferencesDto } from './auth.schema';
+export { DEFAULT_PREFERENCES, LANGUAGES, preferencesBody, preferencesDto } from './auth.schema';
+export { RAIN_UNITS, TEMPERATURE_UNITS } from '../units';
 export type { Language, PreferencesBody, PreferencesDto } from './auth.schema';
 import { email, uuid } from './common.schema';
 

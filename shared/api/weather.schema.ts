@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { RAIN_UNITS, TEMPERATURE_UNITS } from '../units';
 import { uuid } from './common.schema';
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a date written YYYY-MM-DD' });
@@ -75,12 +76,10 @@ export const revisionDto = z.object({
 export const revisionsQuery = z.strictObject({ date: isoDate.optional() });
 export const revisionsResponse = z.object({ revisions: z.array(revisionDto) });
 
-export const TEMP_UNITS = ['C', 'F'] as const;
-export const RAIN_UNITS = ['mm', 'in'] as const;
 
 /** The form fields beside the file (multipart). */
 export const uploadForm = z.strictObject({
-  tempUnit: z.enum(TEMP_UNITS, { message: 'must be C or F' }).default('C'),
+  tempUnit: z.enum(TEMPERATURE_UNITS, { message: 'must be C or F' }).default('C'),
   rainUnit: z.enum(RAIN_UNITS, { message: 'must be mm or in' }).default('mm'),
 });
 export const uploadQuery = z.strictObject({ wait: z.enum(['true', 'false']).optional() });
@@ -90,7 +89,7 @@ export const uploadDto = z.object({
   source: z.enum(['upload', 'feed', 'correction']),
   fileName: z.string().nullable(),
   status: z.enum(['processing', 'done', 'failed']),
-  tempUnit: z.enum(TEMP_UNITS),
+  tempUnit: z.enum(TEMPERATURE_UNITS),
   rainUnit: z.enum(RAIN_UNITS),
   bytesTotal: z.number(),
   bytesProcessed: z.number(),
@@ -122,6 +121,12 @@ export const issuesQuery = z.strictObject({
   offset: z.coerce.number().int().min(0).default(0),
   limit: z.coerce.number().int().min(1).max(5000).default(500),
 });
+/** The row report as a page of JSON, or whole as CSV in the reader's units (SI by default). */
+export const issuesReportQuery = issuesQuery.extend({
+  format: z.enum(['json', 'csv']).default('json'),
+  temperature: z.enum(TEMPERATURE_UNITS, { message: 'must be C or F' }).default('C'),
+  rain: z.enum(RAIN_UNITS, { message: 'must be mm or in' }).default('mm'),
+});
 export const issuesResponse = z.object({ total: z.number(), issues: z.array(issueDto) });
 
 /** One corrected day of one station, in the units given; it goes through the same checks as an upload. */
@@ -133,7 +138,7 @@ export const correctionBody = z.strictObject({
   rh: z.number().nullable().optional(),
   dewpoint: z.number().nullable().optional(),
   rain: z.number().nullable().optional(),
-  tempUnit: z.enum(TEMP_UNITS).default('C'),
+  tempUnit: z.enum(TEMPERATURE_UNITS).default('C'),
   rainUnit: z.enum(RAIN_UNITS).default('mm'),
 });
 export type CorrectionBody = z.infer<typeof correctionBody>;

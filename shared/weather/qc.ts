@@ -4,8 +4,11 @@
  * docs/weather-intake.md; the server applies these on every path in (upload, feed, correction).
  */
 
-export type TempUnit = 'C' | 'F';
-export type RainUnit = 'mm' | 'in';
+import { type RainUnit, type TemperatureUnit, toCelsius, toMillimetres } from '../units';
+
+export type TempUnit = TemperatureUnit;
+export type { RainUnit };
+export { toCelsius, toMillimetres };
 
 /** Physical limits, in SI, beyond which a value is rejected (docs/weather-intake.md § Reject). */
 export const LIMITS = {
@@ -49,8 +52,22 @@ export function readHeader(header: string[]): { index: ColumnIndex } | { problem
   return { index };
 }
 
-export const toCelsius = (v: number, unit: TempUnit) => (unit === 'F' ? ((v - 32) * 5) / 9 : v);
-export const toMillimetres = (v: number, unit: RainUnit) => (unit === 'in' ? v * 25.4 : v);
+
+const TEMPERATURE_COLUMNS = new Set(['tmin', 'tmax', 'dewpoint']);
+
+/**
+ * The unit a row-report value is in: a rejected value is what the file said, in the upload's units; a
+ * flagged or filled one is a stored value, in °C and mm. Null for a column without a unit.
+ */
+export function issueValueUnit(
+  issue: { column: string; severity: string },
+  upload: { tempUnit: TempUnit; rainUnit: RainUnit },
+): { kind: 'temperature'; unit: TempUnit } | { kind: 'rain'; unit: RainUnit } | null {
+  const asFiled = issue.severity === 'rejected';
+  if (TEMPERATURE_COLUMNS.has(issue.column)) return { kind: 'temperature', unit: asFiled ? upload.tempUnit : 'C' };
+  if (issue.column === 'rain') return { kind: 'rain', unit: asFiled ? upload.rainUnit : 'mm' };
+  return null;
+}
 
 /** Relative humidity (%) of the day from its dew point and mean temperature (Magnus form, see docs), capped at 100. */
 export function rhFromDewPoint(dewPointC: number, meanC: number): number {
@@ -181,7 +198,7 @@ function fastCheck(rec: string[], col: ColumnIndex, ctx: RowContext): CheckedRow
   let rain = col.rain < 0 ? null : numOrNull(rec[col.rain]);
   if (rain === undefined) return null;
   if (rain !== null) {
-    if (ctx.rainUnit === 'in') rain = round2(rain * 25.4);
+    if (ctx.rainUnit === 'in') rain = round2(toMillimetres(rain, 'in'));
     if (!(rain >= 0 && rain <= LIMITS.rainMaxMm)) return null;
   }
   return { stationId: station.id, date: dateText, day, tmin, tmax, rh, rain };

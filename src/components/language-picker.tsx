@@ -1,7 +1,7 @@
 import { useId } from 'react';
 import { useTranslation } from 'react-i18next';
 import { setLanguage } from '../i18n';
-import { LANGUAGES, LANGUAGE_NAMES, isLanguage } from '../i18n/languages';
+import { LANGUAGES, LANGUAGE_NAMES, isLanguage } from '../../shared/languages';
 
 /**
  * The interface language, chosen before sign-in (and remembered on this device by `setLanguage`).

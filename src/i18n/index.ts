@@ -1,6 +1,6 @@
 import i18next, { type i18n as I18n } from 'i18next';
 import { initReactI18next } from 'react-i18next';
-import { LANGUAGES, isLanguage, matchLanguage, type Language } from './languages';
+import { LANGUAGES, isLanguage, matchLanguage, type Language } from '../../shared/languages';
 
 /**
  * i18next for the client. Resources are bundled JSON, one file per language and namespace
@@ -68,4 +68,4 @@ export async function setLanguage(lng: Language): Promise<void> {
   if (typeof document !== 'undefined') document.documentElement.lang = lng;
 }
 
-export type { Language } from './languages';
+export type { Language } from '../../shared/languages';

@@ -1,27 +1,19 @@
 import { createContext, useContext } from 'react';
+import {
+  celsiusDeltaToFahrenheit, celsiusToFahrenheit, fahrenheitToCelsius, inchesToMm, mmToInches, type RainUnit, type TemperatureUnit,
+} from '../../shared/units';
 
 /**
- * Display units. Stored and exchanged values stay SI (°C, mm); conversion happens only at the edge:
- * when a value is shown, exported for a user, or typed into a form in the user's unit.
+ * Display units. Stored and exchanged values stay SI (°C, mm); conversion happens only at the edge
+ * (shared/units.ts): when a value is shown, exported for a user, or typed into a form in the user's unit.
  */
-export type TemperatureUnit = 'C' | 'F';
-export type RainUnit = 'mm' | 'in';
+export type { RainUnit, TemperatureUnit };
+
 export interface UnitPreferences {
   temperature: TemperatureUnit;
   rain: RainUnit;
 }
 export const SI_UNITS: UnitPreferences = { temperature: 'C', rain: 'mm' };
-
-/** °C → °F (exact: 9/5 and 32 by definition of the Fahrenheit scale). */
-export const celsiusToFahrenheit = (c: number) => (c * 9) / 5 + 32;
-export const fahrenheitToCelsius = (f: number) => ((f - 32) * 5) / 9;
-/** A temperature difference (degree-days, ranges): no offset. */
-export const celsiusDeltaToFahrenheit = (c: number) => (c * 9) / 5;
-export const fahrenheitDeltaToCelsius = (f: number) => (f * 5) / 9;
-/** 1 inch = 25.4 mm exactly (international yard and pound agreement, 1959). */
-export const MM_PER_INCH = 25.4;
-export const mmToInches = (mm: number) => mm / MM_PER_INCH;
-export const inchesToMm = (inches: number) => inches * MM_PER_INCH;
 
 export interface Units extends UnitPreferences {
   /** °C → the user's unit. */

@@ -6,7 +6,7 @@ import { useSession } from '../../app/session';
 import { FormMessage, SelectField } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
 import { useFormat } from '../../i18n/format';
-import { LANGUAGES, LANGUAGE_NAMES } from '../../i18n/languages';
+import { LANGUAGES, LANGUAGE_NAMES } from '../../../shared/languages';
 import { isApiError } from '../../lib/api-client';
 import { errorText } from '../../lib/error-text';
 import { useUnits } from '../../lib/units';

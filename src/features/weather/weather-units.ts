@@ -1,30 +1,23 @@
 import type { TFunction } from 'i18next';
 import type { IssueDto, UploadDto } from '../../../shared/api/weather.schema';
-import { FLAG_RULES, LIMITS, REJECT_RULES, toCelsius, toMillimetres } from '../../../shared/weather/qc';
+import { toCelsius, toMillimetres } from '../../../shared/units';
+import { FLAG_RULES, issueValueUnit, LIMITS, REJECT_RULES } from '../../../shared/weather/qc';
 import type { Formatters } from '../../i18n/format';
 import type { Units } from '../../lib/units';
 
-const TEMPERATURE_COLUMNS = new Set(['tmin', 'tmax', 'dewpoint']);
 const NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)$/;
 
 /**
- * A row-report value in the user's display units. Rejected rows keep the text as it was in the file (in
- * the upload's units); flagged and filled rows hold the stored value (°C, mm). A value that is not a
- * number is shown as it is.
+ * A row-report value in the user's display units (issueValueUnit says which units it is in). A value that
+ * is not a number is shown as it is.
  */
 export function issueValue(issue: IssueDto, upload: Pick<UploadDto, 'tempUnit' | 'rainUnit'>, units: Units, f: Formatters): string | null {
   const raw = issue.value;
   if (raw === null || !NUMBER.test(raw.trim())) return raw;
   const x = Number(raw.trim());
-  const asStored = issue.severity !== 'rejected';
-  if (TEMPERATURE_COLUMNS.has(issue.column)) {
-    const c = asStored ? x : toCelsius(x, upload.tempUnit);
-    return `${f.number(units.toTemperature(c), 1)} ${units.temperatureSymbol}`;
-  }
-  if (issue.column === 'rain') {
-    const mm = asStored ? x : toMillimetres(x, upload.rainUnit);
-    return `${f.number(units.toRain(mm), units.rainDigits)} ${units.rainSymbol}`;
-  }
+  const from = issueValueUnit(issue, upload);
+  if (from?.kind === 'temperature') return `${f.number(units.toTemperature(toCelsius(x, from.unit)), 1)} ${units.temperatureSymbol}`;
+  if (from?.kind === 'rain') return `${f.number(units.toRain(toMillimetres(x, from.unit)), units.rainDigits)} ${units.rainSymbol}`;
   if (issue.column === 'rh') return `${f.number(x, 1)} %`;
   return raw;
 }

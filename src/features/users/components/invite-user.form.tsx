@@ -9,7 +9,7 @@ import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../com
 import { useInviteUser } from '../api/invite-user.api';
 import { useDistrictOptions } from './district-options';
 import { RoleOptions, useDistrictHint } from './role-options';
-import { LANGUAGES, LANGUAGE_NAMES } from '../../../i18n/languages';
+import { LANGUAGES, LANGUAGE_NAMES } from '../../../../shared/languages';
 
 const FIELDS = ['email', 'displayName', 'role', 'language', 'districtIds'] as const;
 

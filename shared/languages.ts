@@ -1,4 +1,7 @@
-/** The interface languages, with the locale used for dates and numbers (BCP 47). */
+/**
+ * The languages of the interface, the mail and the bulletins, with the locale each uses for dates and
+ * numbers (BCP 47): one list for the client, the server and the API schemas.
+ */
 export const LANGUAGES = ['en', 'fr', 'es', 'pt'] as const;
 export type Language = (typeof LANGUAGES)[number];
 
