@@ -4,7 +4,7 @@
  */
 import {
   computeSeasonColumns, createSeasonColumns, epiWeek, formatIsoDate, isLeapYear, parseIsoDate, type EpiWeekSystem, getProfile, type SeasonColumns, type SeasonColumnsInput,
-  type SeasonInputDay, weeksInYear,
+  weeksInYear,
 } from '../../shared/model';
 import { aggregateLarvalIndices } from '../../shared/signals';
 import { buildSignals } from '../cases/case-signals';
