@@ -27,8 +27,9 @@ const freePort = () =>
 
 describe('a server killed during a load', () => {
   it('when the server process is killed with SIGKILL mid-load, then none of the upload is kept and the upload is marked failed afterwards', async () => {
-    // 1,000 stations × 365 days: long enough to be killed while checking.
-    const STATIONS = 1000;
+    // 3,000 stations × 365 days (about 36 MB): long enough that the first heartbeat (after 1 s) still finds
+    // the rows being read and checked on a quiet machine, so the kill lands mid-load.
+    const STATIONS = 3000;
     await t.ds.query(
       `INSERT INTO weather_stations (code, name, latitude, longitude) SELECT 'K-' || i, 'Kill ' || i, -40 + i * 0.01, -70 FROM generate_series(1, $1) i`,
       [STATIONS],
