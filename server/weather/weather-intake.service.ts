@@ -99,6 +99,14 @@ function csvProblem(err: any): IntakeFailure {
   return err;
 }
 
+/** Every station by code, with its active days, as the row checks read them. */
+async function stationRefs(manager: EntityManager): Promise<Map<string, StationRef>> {
+  const rows: { id: string; code: string; af: number | null; at: number | null }[] = await manager.query(
+    `SELECT id, code, active_from - DATE '1970-01-01' AS af, active_to - DATE '1970-01-01' AS at FROM weather_stations`,
+  );
+  return new Map(rows.map((s) => [s.code, { id: s.id, activeFrom: s.af ?? -Infinity, activeTo: s.at ?? Infinity }]));
+}
+
 /**
  * The one intake pipeline behind uploads, the feed and corrections. Rows stream through the checks into
  * a temporary staging table with COPY; then, in the same transaction: duplicates out, replaced values
@@ -114,6 +122,19 @@ export class WeatherIntakeService {
       source: opts.source, fileName: opts.fileName, status: 'processing', tempUnit: opts.tempUnit, rainUnit: opts.rainUnit,
       bytesTotal: String(opts.bytesTotal), createdBy: opts.actorId,
     }));
+  }
+
+  /**
+   * The row checks alone, on rows already in memory, writing nothing: what a one-day correction is
+   * refused for before any upload is recorded. The same checks as the intake's (shared/weather/qc.ts).
+   */
+  async rowIssues(header: string[], rows: string[][], units: { tempUnit: TempUnit; rainUnit: RainUnit }): Promise<RowIssue[]> {
+    const col = readHeader(header);
+    if ('problem' in col) throw new IntakeFailure('bad_header', col.problem);
+    const ctx: RowContext = { stations: await stationRefs(this.ctx.ds.manager), ...units, lastDay: Math.floor(Date.now() / 86_400_000) };
+    const issues: RowIssue[] = [];
+    rows.forEach((rec, i) => checkRow(rec, col.index, i + 2, ctx, issues));
+    return issues;
   }
 
   /** Check and load a file written by multer, then delete it. Never throws: the upload row tells the outcome. */
@@ -176,12 +197,7 @@ export class WeatherIntakeService {
 
   private async load(manager: EntityManager, client: pg.PoolClient, upload: WeatherUploadEntity, source: IntakeSource, progress: { rows: number }) {
     const { config } = this.ctx;
-    const stationRows: { id: string; code: string; af: number | null; at: number | null }[] = await manager.query(
-      `SELECT id, code, active_from - DATE '1970-01-01' AS af, active_to - DATE '1970-01-01' AS at FROM weather_stations`,
-    );
-    const stations = new Map<string, StationRef>(
-      stationRows.map((s) => [s.code, { id: s.id, activeFrom: s.af ?? -Infinity, activeTo: s.at ?? Infinity }]),
-    );
+    const stations = await stationRefs(manager);
     // The flag windows and joins sort the whole intake: give this transaction room to do it in memory.
     await manager.query("SET LOCAL work_mem = '256MB'");
     const rowCtx: RowContext = {

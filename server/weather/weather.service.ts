@@ -173,21 +173,19 @@ export class WeatherService {
 
   /** One corrected day: a one-row intake through the same checks; a rejected row is a 400 with the reasons. */
   async correct(actor: Principal, body: CorrectionBody) {
+    const s = (v: number | null | undefined) => (v === null || v === undefined ? '' : String(v));
+    const header = ['station', 'date', 'tmin', 'tmax', 'rh', 'dewpoint', 'rain'];
+    const rows = [[body.station, body.date, s(body.tmin), s(body.tmax), s(body.rh), s(body.dewpoint), s(body.rain)]];
+    // A refused correction writes nothing: the row checks run first, before any upload is recorded.
+    const refused = await this.intake.rowIssues(header, rows, { tempUnit: body.tempUnit, rainUnit: body.rainUnit });
+    if (refused.length > 0) throw rowRejected(refused);
     const upload = await this.intake.start({
       source: 'correction', fileName: null, tempUnit: body.tempUnit, rainUnit: body.rainUnit, bytesTotal: 0, actorId: actor.userId,
     });
-    const s = (v: number | null | undefined) => (v === null || v === undefined ? '' : String(v));
-    await this.intake.run(upload, recordsSource(
-      ['station', 'date', 'tmin', 'tmax', 'rh', 'dewpoint', 'rain'],
-      [[body.station, body.date, s(body.tmin), s(body.tmax), s(body.rh), s(body.dewpoint), s(body.rain)]],
-    ));
+    await this.intake.run(upload, recordsSource(header, rows));
     const result = await this.upload(upload.id);
     if (result.status === 'failed') throw badRequest('correction_failed', result.message ?? 'The correction could not be saved.');
-    if (result.rowsRejected > 0) {
-      const { issues } = await this.issues(upload.id, 0, 50);
-      throw badRequest('row_rejected', `The corrected row was not accepted: ${issues.map((i) => i.reason).join(' ')}`,
-        issues.map((i) => ({ path: i.column, message: i.reason })));
-    }
+    if (result.rowsRejected > 0) throw rowRejected((await this.issues(upload.id, 0, 50)).issues);
     return result;
   }
 
@@ -230,6 +228,10 @@ export interface IssueUnits {
 }
 
 const round2 = (x: number) => Math.round(x * 100) / 100;
+
+const rowRejected = (issues: { column: string; reason: string }[]) =>
+  badRequest('row_rejected', `The corrected row was not accepted: ${issues.map((i) => i.reason).join(' ')}`,
+    issues.map((i) => ({ path: i.column, message: i.reason })));
 
 /**
  * One report value in the units asked for (issueValueUnit says which units it is in). Text that is not

@@ -285,6 +285,15 @@ describe('corrections, stations and reading', () => {
     expect(await countRows(t.ds, 'weather_observations', 'weather_observation_revisions')).toEqual(before);
   });
 
+  it('when a correction is refused, then no upload, report line or audit event is recorded either', async () => {
+    const station = await makeStation(t.ds, { latitude: 45.5, longitude: 45.5 });
+    const before = await countRows(t.ds, 'weather_uploads', 'weather_upload_issues', ...WEATHER_TABLES);
+    const bad = await officer.put('/api/weather/observations').send({ station: station.code, date: '2026-01-10', tmin: 30, tmax: 13 });
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.code).toBe('row_rejected');
+    expect(await countRows(t.ds, 'weather_uploads', 'weather_upload_issues', ...WEATHER_TABLES)).toEqual(before);
+  });
+
   it('when an officer adds a station inside a district, then it is assigned to it; moved out, the district falls back to interpolation', async () => {
     const district = await makeDistrict(t.ds, { boundary: square(70, 10), centroidLat: 10.5, centroidLon: 70.5 });
     const res = await officer.post('/api/weather/stations').send({ code: 'NEW-ST-1', name: 'New one', latitude: 10.4, longitude: 70.6, elevation: 12 });
