@@ -10,6 +10,7 @@ import { createReadStream, createWriteStream, openAsBlob, readFileSync, rmSync, 
 import { createServer } from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
+import { createInterface } from 'node:readline';
 import { pipeline } from 'node:stream/promises';
 import bcrypt from 'bcryptjs';
 import pg from 'pg';
@@ -85,10 +86,20 @@ const port = await new Promise<number>((resolve) => {
     srv.close(() => resolve(p));
   });
 });
-const child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
+const child = spawn(process.execPath, [...(process.env.BENCH_PROF ? ['--cpu-prof', '--cpu-prof-dir=/tmp/prof'] : []), '--import', 'tsx', 'server/main.ts'], {
   cwd: projectDir,
-  stdio: ['ignore', 'ignore', 'inherit'],
-  env: { ...process.env, NODE_ENV: 'development', PORT: String(port), DATABASE_URL: benchUrl, JWT_SECRET: 'bench-secret-that-is-long-enough-for-signing', LOG_LEVEL: 'warn' },
+  stdio: ['ignore', 'pipe', 'inherit'],
+  env: { ...process.env, NODE_ENV: 'development', PORT: String(port), DATABASE_URL: benchUrl, JWT_SECRET: 'bench-secret-that-is-long-enough-for-signing', LOG_LEVEL: 'info' },
+});
+// The server logs one line per request; keep only the intake's stage timings.
+let stagesMs: Record<string, number> | null = null;
+createInterface({ input: child.stdout! }).on('line', (line) => {
+  if (!line.includes('weather intake stages')) return;
+  try {
+    stagesMs = JSON.parse(line).stagesMs;
+  } catch {
+    /* not a JSON log line */
+  }
 });
 // Never leave the server behind, whatever happens to the bench.
 process.on('exit', () => child.kill('SIGKILL'));
@@ -121,7 +132,7 @@ try {
   const tUploaded = performance.now();
   let state: { status: string; rowsAccepted: number; rowsFlagged: number; rowsRejected: number; message: string | null } = { status: 'processing' } as never;
   while (state.status === 'processing') {
-    await new Promise((r) => setTimeout(r, 200));
+    await new Promise((r) => setTimeout(r, 50));
     state = await (await fetch(`${base}/api/weather/uploads/${created.id}`, { headers: { cookie } })).json() as typeof state;
   }
   const intakeSeconds = (performance.now() - t1) / 1000;
@@ -131,6 +142,7 @@ try {
   console.log(`plain COPY into a bare table: ${plainSeconds.toFixed(2)} s = ${Math.round(plainRate).toLocaleString('en')} rows/s`);
   console.log(`HTTP intake (upload + checks + load): ${intakeSeconds.toFixed(2)} s = ${Math.round(intakeRate).toLocaleString('en')} rows/s` +
     ` (sending ${((tUploaded - t1) / 1000).toFixed(2)} s, checking and loading ${((performance.now() - tUploaded) / 1000).toFixed(2)} s)`);
+  if (stagesMs) console.log(`server stages (ms): ${Object.entries(stagesMs).map(([k, v]) => `${k} ${v}`).join(', ')}`);
   console.log(`result: ${state.status}, accepted ${state.rowsAccepted}, flagged ${state.rowsFlagged}, rejected ${state.rowsRejected}${state.message ? ` — ${state.message}` : ''}`);
   console.log(`ratio intake / plain: ${(intakeRate / plainRate).toFixed(2)} (goal ≥ 0.5: ${intakeRate / plainRate >= 0.5 ? 'met' : 'NOT met'})`);
   console.log(`server RSS: idle ${(idleRss / 1024).toFixed(0)} MB, peak ${(peak / 1024).toFixed(0)} MB (file ${(bytes / 1e6).toFixed(0)} MB)`);

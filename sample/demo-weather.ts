@@ -9,6 +9,7 @@
 import type { EntityManager } from 'typeorm';
 import { recomputeDistrictSeries } from '../server/weather/district-series.repository';
 import { refreshAssignments } from '../server/weather/weather-geo';
+import { emptyStationYear, type StationYear, stationYearKey, writeStationYears } from '../server/weather/station-years.repository';
 import { dayOfIsoDate, isoOfDay } from '../shared/weather/qc';
 import { DEMO_SEED, type DemoZone } from './demo-region';
 import { buildDemoStations, type DemoStation } from './demo-stations';
@@ -63,16 +64,20 @@ export async function seedDemoWeather(manager: EntityManager, opts: { fillMaxDay
       stations.map((s) => s.elevation), stations.map((s) => s.activeFrom)],
   );
   const idOf = new Map(ids.map((r) => [r.code, r.id]));
-  const days = demoWeather(DEMO_WEATHER_START, yesterday(), stations);
-  for (let i = 0; i < days.length; i += 5000) {
-    const part = days.slice(i, i + 5000);
-    await manager.query(
-      `INSERT INTO weather_observations (station_id, date, tmin, tmax, rh, rain)
-       SELECT * FROM unnest($1::uuid[], $2::date[], $3::float8[], $4::float8[], $5::float8[], $6::float8[])`,
-      [part.map((d) => idOf.get(d.station)), part.map((d) => d.date), part.map((d) => d.tmin), part.map((d) => d.tmax),
-        part.map((d) => d.rh), part.map((d) => d.rain)],
-    );
+  const years = new Map<string, StationYear>();
+  for (const d of demoWeather(DEMO_WEATHER_START, yesterday(), stations)) {
+    const stationId = idOf.get(d.station)!;
+    const year = +d.date.slice(0, 4);
+    const key = stationYearKey(stationId, year);
+    let y = years.get(key);
+    if (!y) years.set(key, (y = emptyStationYear(stationId, year)));
+    const i = dayOfIsoDate(d.date) - y.start;
+    y.tmin[i] = d.tmin;
+    y.tmax[i] = d.tmax;
+    y.rh[i] = d.rh ?? Number.NaN;
+    y.rain[i] = d.rain ?? Number.NaN;
   }
+  await writeStationYears(manager, [...years.values()]);
   const touched = await refreshAssignments(manager, opts.idwStations ?? 3);
   await recomputeDistrictSeries(manager, touched, opts.fillMaxDays ?? 3);
 }

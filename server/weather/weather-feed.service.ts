@@ -1,8 +1,7 @@
 import { Readable } from 'node:stream';
-import { parse } from 'csv-parse';
 import type { AppContext } from '../app-context';
 import { conflict } from '../http/errors';
-import { type IntakeSource, recordsSource, WeatherIntakeService } from './weather-intake.service';
+import { csvStreamSource, type IntakeSource, recordsSource, WeatherIntakeService } from './weather-intake.service';
 
 const HEADER = ['station', 'date', 'tmin', 'tmax', 'rh', 'dewpoint', 'rain'];
 const cell = (v: unknown) => (v === null || v === undefined ? '' : String(v));
@@ -45,9 +44,7 @@ export class WeatherFeedService {
           source = recordsSource(HEADER, rows);
         }
       } else if (res.body) {
-        const parser = parse({ bom: true, relax_column_count: true, skip_empty_lines: true });
-        Readable.fromWeb(res.body as never).pipe(parser);
-        source = { records: parser };
+        source = csvStreamSource(Readable.fromWeb(res.body as never));
       } else problem = 'The feed sent an empty answer. Nothing was loaded.';
     } catch (err) {
       problem = `The feed could not be reached (${(err as Error).message}). Nothing was loaded.`;

@@ -1,4 +1,6 @@
 import { bbox, booleanPointInPolygon, distance, point } from '@turf/turf';
+import { around } from 'geokdbush';
+import KDBush from 'kdbush';
 import type { EntityManager } from 'typeorm';
 import type { PolygonGeometry } from '../../shared/api/districts.schema';
 import { idwWeights } from '../../shared/weather/qc';
@@ -96,25 +98,18 @@ export const LAPSE_C_PER_M = 0.0065;
 /**
  * For the spatial check: each station's up to four nearest other stations within `maxKm`, with
  * inverse-distance weights and the lapse-rate correction that brings a neighbour's temperature to the
- * station's elevation. A latitude band narrows the candidates before turf measures the distance.
+ * station's elevation. A k-d tree of the stations (kdbush, searched by great-circle distance with
+ * geokdbush) finds them; turf measures the distances the weights use.
  */
 export function neighbours(stations: StationPos[], maxKm: number, count = 4): Neighbour[] {
-  const sorted = [...stations].sort((a, b) => a.latitude - b.latitude);
-  const band = maxKm / 111;
   const out: Neighbour[] = [];
-  for (let i = 0; i < sorted.length; i++) {
-    const s = sorted[i];
-    const found: { n: StationPos; d: number }[] = [];
-    for (const dir of [-1, 1]) {
-      for (let j = i + dir; j >= 0 && j < sorted.length && Math.abs(sorted[j].latitude - s.latitude) <= band; j += dir) {
-        const n = sorted[j];
-        const lonBand = band / Math.max(0.1, Math.cos((s.latitude * Math.PI) / 180));
-        if (Math.abs(n.longitude - s.longitude) > lonBand) continue;
-        const d = km([s.longitude, s.latitude], [n.longitude, n.latitude]);
-        if (d <= maxKm) found.push({ n, d });
-      }
-    }
-    const nearest = found.sort((a, b) => a.d - b.d).slice(0, count);
+  if (!stations.length) return out;
+  const index = new KDBush(stations.length);
+  for (const s of stations) index.add(s.longitude, s.latitude);
+  index.finish();
+  stations.forEach((s, i) => {
+    const nearest = around(index, s.longitude, s.latitude, count, maxKm, (j) => j !== i)
+      .map((j) => ({ n: stations[j], d: km([s.longitude, s.latitude], [stations[j].longitude, stations[j].latitude]) }));
     const weights = idwWeights(nearest.map((x) => Math.max(x.d, 0.1)));
     nearest.forEach((x, k) =>
       out.push({
@@ -122,6 +117,6 @@ export function neighbours(stations: StationPos[], maxKm: number, count = 4): Ne
         lapse: s.elevation !== null && x.n.elevation !== null ? LAPSE_C_PER_M * (x.n.elevation - s.elevation) : 0,
       }),
     );
-  }
+  });
   return out;
 }

@@ -1,7 +1,7 @@
 import { DistrictWeatherDayEntity } from './district-weather-day.entity';
 import { DistrictWeatherSourceEntity } from './district-weather-source.entity';
 import { WeatherObservationRevisionEntity } from './weather-observation-revision.entity';
-import { WeatherObservationEntity } from './weather-observation.entity';
+import { WeatherStationYearEntity } from './weather-station-year.entity';
 import { WeatherStationEntity } from './weather-station.entity';
 import { WeatherUploadIssueEntity } from './weather-upload-issue.entity';
 import { WeatherUploadEntity } from './weather-upload.entity';
@@ -11,7 +11,7 @@ export const weatherEntities: Function[] = [
   WeatherStationEntity,
   WeatherUploadEntity,
   WeatherUploadIssueEntity,
-  WeatherObservationEntity,
+  WeatherStationYearEntity,
   WeatherObservationRevisionEntity,
   DistrictWeatherSourceEntity,
   DistrictWeatherDayEntity,

@@ -81,8 +81,9 @@ describe('a server killed during a load', () => {
       child.kill('SIGKILL');
       await exited;
       expect(statusAtKill).toBe('processing');
+      // The kill lands after the server began on the file and before it finished: while rows are read, or while the
+      // checked rows are being written (reading a file this size takes the intake under a second).
       expect(processed).toBeGreaterThan(0);
-      expect(processed).toBeLessThan(STATIONS * 365);
       // PostgreSQL rolls back the dead connection's transaction: the upload's rows are all absent.
       await new Promise((r) => setTimeout(r, 300));
       expect(await countRows(t.ds, 'weather_observations', 'weather_observation_revisions', 'district_weather_days')).toEqual(before);

@@ -222,10 +222,18 @@ describe('bad files', () => {
     expect(await countRows(t.ds, ...WEATHER_TABLES)).toEqual(before);
   });
 
-  it('when a value opens a quote in the middle of a field, then the upload fails as invalid CSV naming the line, and nothing is kept', async () => {
+  it('when a value has a quote in the middle of a field, then that row is rejected naming the column and value, and the other rows load', async () => {
     const station = await makeStation(t.ds, { latitude: 44.5, longitude: 44.5 });
-    const before = await countRows(t.ds, ...WEATHER_TABLES);
     const res = await upload(`${HEADER}\n${station.code},2026-01-01,1,2,50,0\n${station.code},2026-01-02,1 "x",2,50,0\n`);
+    expect(res.body).toMatchObject({ status: 'done', rowsAccepted: 1, rowsRejected: 1 });
+    const report = await officer.get(`/api/weather/uploads/${res.body.id}/issues`);
+    expect(report.body.issues).toEqual([expect.objectContaining({ rowNumber: 3, column: 'tmin', value: '1 "x"', rule: 'bad-number' })]);
+  });
+
+  it('when a quoted value is closed and then followed by more text, then the upload fails as invalid CSV naming the line, and nothing is kept', async () => {
+    const station = await makeStation(t.ds, { latitude: 44.6, longitude: 44.6 });
+    const before = await countRows(t.ds, ...WEATHER_TABLES);
+    const res = await upload(`${HEADER}\n${station.code},2026-01-01,1,2,50,0\n${station.code},2026-01-02,"1"x,2,50,0\n`);
     expect(res.body.status).toBe('failed');
     expect(res.body.message).toMatch(/not valid CSV near line 3.*Nothing from it was saved/);
     expect(await countRows(t.ds, ...WEATHER_TABLES)).toEqual(before);
