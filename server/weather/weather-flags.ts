@@ -69,12 +69,19 @@ export function flagStationYears(
       extMax = new Float64Array(len);
       runLen = new Int32Array(len);
     }
-    for (let j = 0; j < len; j++) {
-      const i = j - R;
-      const src = i < 0 ? prev : i >= n ? next : y;
-      const at = i < 0 ? (prev ? prev.tmin.length + i : -1) : i >= n ? i - n : i;
-      extMin[j] = src && at >= 0 && at < src.tmin.length ? src.tmin[at] : Number.NaN;
-      extMax[j] = src && at >= 0 && at < src.tmax.length ? src.tmax[at] : Number.NaN;
+    // The year itself in the middle, then R days of the years either side (NaN where not loaded).
+    extMin.fill(Number.NaN, 0, len);
+    extMax.fill(Number.NaN, 0, len);
+    extMin.set(y.tmin, R);
+    extMax.set(y.tmax, R);
+    if (prev) {
+      const from = Math.max(0, prev.tmin.length - R);
+      extMin.set(prev.tmin.subarray(from), R - (prev.tmin.length - from));
+      extMax.set(prev.tmax.subarray(from), R - (prev.tmax.length - from));
+    }
+    if (next) {
+      extMin.set(next.tmin.subarray(0, Math.min(R, next.tmin.length)), R + n);
+      extMax.set(next.tmax.subarray(0, Math.min(R, next.tmax.length)), R + n);
     }
     for (let j = 0; j < len; ) {
       let e = j + 1;

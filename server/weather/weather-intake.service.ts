@@ -1,7 +1,4 @@
-import { createReadStream } from 'node:fs';
 import { unlink } from 'node:fs/promises';
-import { pipeline, type Readable, Transform } from 'node:stream';
-import Papa from 'papaparse';
 import type pg from 'pg';
 import type { EntityManager } from 'typeorm';
 import {
@@ -17,23 +14,10 @@ import {
 import { type FlagFinding, flagStationYears } from './weather-flags';
 import { neighbours, refreshAssignments } from './weather-geo';
 import { type UploadSource, WeatherUploadEntity } from './weather-upload.entity';
+import { type CheckedBatch, type ReaderOptions, readChecked } from './intake-reader';
+import { csvFileSource, IntakeFailure, type IntakeSource, NOTHING_KEPT } from './intake-source';
 
-/** A failure that ends an intake with a message for the person who sent it; nothing from it is kept. */
-export class IntakeFailure extends Error {
-  constructor(readonly code: string, message: string) {
-    super(message);
-  }
-}
-
-/** Where the rows come from: a header record, then data records (arrays of fields in file order). */
-export interface IntakeSource {
-  /** Hands every record to `each`, in order, and resolves at the end; rejects with an IntakeFailure for a broken file. */
-  read(each: (rec: string[]) => void): Promise<void>;
-  /** Bytes read so far (for the progress bar), when the source is a file. */
-  bytesRead?: () => number;
-  /** Whether the source ended with a line break; a short last row without one means a cut-off file. */
-  endedWithNewline?: () => boolean;
-}
+export { csvFileSource, csvStreamSource, IntakeFailure, type IntakeSource, recordsSource } from './intake-source';
 
 export interface IntakeStart {
   source: UploadSource;
@@ -44,98 +28,6 @@ export interface IntakeStart {
   actorId: string | null;
 }
 
-const NOTHING_KEPT = 'Nothing from it was saved.';
-
-/**
- * CSV text from a byte stream as records, through PapaParse's streaming parser (quoted fields, CRLF line
- * ends), which reads a national file about three times faster than csv-parse (docs/weather-intake.md
- * § Speed). The first bytes are checked for binary data, a byte-order mark is dropped, and bytes are
- * counted for the progress bar.
- */
-export function csvStreamSource(input: Readable): IntakeSource {
-  let bytes = 0;
-  let last = -1;
-  let first = true;
-  const decoder = new TextDecoder('utf-8', { fatal: true });
-  const sniff = new Transform({
-    transform(chunk: Buffer, _enc, cb) {
-      if (first) {
-        first = false;
-        const head = chunk.subarray(0, 64 * 1024);
-        let text = true;
-        try {
-          decoder.decode(head, { stream: true });
-        } catch {
-          text = false;
-        }
-        if (!text || head.includes(0))
-          return cb(new IntakeFailure('binary_file', `This is not a text CSV file (it holds binary data). ${NOTHING_KEPT} Save the sheet as CSV (UTF-8) and upload that.`));
-        if (chunk[0] === 0xef && chunk[1] === 0xbb && chunk[2] === 0xbf) chunk = chunk.subarray(3);
-      }
-      bytes += chunk.length;
-      if (chunk.length) last = chunk[chunk.length - 1];
-      cb(null, chunk);
-    },
-  });
-  return {
-    bytesRead: () => bytes,
-    endedWithNewline: () => last === 0x0a || last === 0x0d,
-    read: (each) => new Promise<void>((resolve, reject) => {
-      const text = pipeline(input, sniff, () => undefined);
-      text.setEncoding('utf8'); // characters split across chunks are joined before the parser sees them
-      let done = 0;
-      let failed = false;
-      const fail = (err: unknown) => {
-        if (failed) return;
-        failed = true;
-        input.destroy();
-        reject(err);
-      };
-      Papa.parse<string[]>(text as never, {
-        delimiter: ',',
-        skipEmptyLines: true,
-        chunk(results, parser) {
-          if (failed) return;
-          try {
-            const broken = results.errors.find((e) => e.type === 'Quotes');
-            if (broken) throw csvProblem(broken, done);
-            for (const rec of results.data) each(rec);
-            done += results.data.length;
-          } catch (err) {
-            fail(err); // first: aborting calls `complete` at once
-            parser.abort();
-          }
-        },
-        complete: () => {
-          if (!failed) resolve();
-        },
-        error: (err: unknown) => fail(err),
-      });
-    }),
-  };
-}
-
-/** A CSV file written by multer as records. */
-export const csvFileSource = (path: string): IntakeSource => csvStreamSource(createReadStream(path, { highWaterMark: 1 << 18 }));
-
-/** Rows already in memory (the feed's JSON, a one-row correction) as records. */
-export function recordsSource(header: string[], rows: string[][]): IntakeSource {
-  return {
-    read: async (each) => {
-      each(header);
-      for (const r of rows) each(r);
-    },
-    endedWithNewline: () => true,
-  };
-}
-
-/** PapaParse's quote errors in the sender's words. */
-function csvProblem(err: Papa.ParseError, recordsBefore: number): IntakeFailure {
-  const where = ` near line ${recordsBefore + (err.row ?? 0) + 1}`;
-  if (err.code === 'MissingQuotes')
-    return new IntakeFailure('truncated_file', `The file ends inside a quoted value${where}: it looks cut off. ${NOTHING_KEPT} Upload the complete file.`);
-  return new IntakeFailure('bad_csv', `The file is not valid CSV${where} (${err.message}). ${NOTHING_KEPT}`);
-}
 /** Every station by code, with its active days, as the row checks read them. */
 async function stationRefs(manager: EntityManager): Promise<Map<string, StationRef>> {
   const rows: { id: string; code: string; af: number | null; at: number | null }[] = await manager.query(
@@ -186,12 +78,12 @@ export class WeatherIntakeService {
   /** Run an intake to its end; the upload row says done or failed (and why). Never throws. */
   async run(upload: WeatherUploadEntity, source: IntakeSource): Promise<void> {
     const { ds, config, logger } = this.ctx;
-    const progress = { rows: 0 };
+    const progress = { rows: 0, bytes: 0 };
     let beatInFlight: Promise<unknown> = Promise.resolve();
     const beat = () => {
       beatInFlight = ds
         .query(`UPDATE weather_uploads SET heartbeat_at = now(), rows_processed = $2, bytes_processed = $3 WHERE id = $1 AND status = 'processing'`,
-          [upload.id, progress.rows, source.bytesRead?.() ?? 0])
+          [upload.id, progress.rows, progress.bytes])
         .catch(() => undefined);
     };
     const timer = setInterval(beat, 1000);
@@ -203,7 +95,7 @@ export class WeatherIntakeService {
     try {
       await qr.connect();
       await qr.startTransaction();
-      const result = await this.load(qr.manager, (qr as unknown as { databaseConnection: pg.PoolClient }).databaseConnection, upload, source, progress);
+      const result = await this.load(qr.manager, upload, source, progress);
       await stopBeat();
       await qr.query(
         `UPDATE weather_uploads SET status = 'done', rows_processed = $2, rows_accepted = $3, rows_flagged = $4, rows_rejected = $5,
@@ -232,7 +124,7 @@ export class WeatherIntakeService {
     }
   }
 
-  private async load(manager: EntityManager, client: pg.PoolClient, upload: WeatherUploadEntity, source: IntakeSource, progress: { rows: number }) {
+  private async load(manager: EntityManager, upload: WeatherUploadEntity, source: IntakeSource, progress: { rows: number; bytes: number }) {
     const { config } = this.ctx;
     let mark = performance.now();
     const stages: Record<string, number> = {};
@@ -242,8 +134,13 @@ export class WeatherIntakeService {
       mark = now;
     };
     const stations = await stationRefs(manager);
-    const rowCtx: RowContext = {
-      stations, tempUnit: upload.tempUnit, rainUnit: upload.rainUnit, lastDay: Math.floor(Date.now() / 86_400_000),
+    const list = [...stations.entries()];
+    const ids = list.map(([, ref]) => ref.id);
+    const codes = list.map(([code]) => code);
+    const readerOptions: ReaderOptions = {
+      stations: { codes, activeFrom: list.map(([, r]) => r.activeFrom), activeTo: list.map(([, r]) => r.activeTo) },
+      tempUnit: upload.tempUnit, rainUnit: upload.rainUnit, lastDay: Math.floor(Date.now() / 86_400_000),
+      maxIssues: config.WEATHER_REPORT_MAX_ISSUES,
     };
 
     const issues: RowIssue[] = [];
@@ -259,6 +156,9 @@ export class WeatherIntakeService {
     // One intake at a time: each reads the stored years it changes and writes them whole.
     await manager.query("SELECT pg_advisory_xact_lock(hashtext('broodcast.weather-intake'))");
     const storedKeys = await storedStationYearKeys(manager);
+    const positions: { id: string; latitude: number; longitude: number; elevation: number | null }[] = await manager.query(
+      'SELECT id, latitude, longitude, elevation FROM weather_stations',
+    );
 
     // The accepted rows, by station and year, stay in memory until the end of the file (the flag rules
     // read them): a station-year is about 13 kB whatever the file's size, so a national year holds about
@@ -275,88 +175,54 @@ export class WeatherIntakeService {
       void early.add(adopt(inc, upload.id));
       written.add(inc);
     };
-    let header: string[] | null = null;
-    let col: ReturnType<typeof readHeader> | null = null;
-    let rowNo = 1;
-    let shortLast: string[] | null = null;
-    const rowIssues: RowIssue[] = [];
-    const scratch: CheckedRow = { stationId: '', date: '', day: 0, tmin: 0, tmax: 0, rh: null, rain: null };
-    const codeOf = new Map([...stations].map(([code, s]) => [s.id, code]));
-
-    const rejectShort = (rec: string[], n: number) => {
-      rejected++;
-      note({ rowNumber: n, station: rec[0] ?? null, date: rec[1] ?? null, column: '(row)', value: rec.join(',').slice(0, 200),
-        severity: 'rejected', rule: 'column-count', reason: `${REJECT_RULES['column-count']} (${rec.length} of ${header!.length}).` });
+    // Each batch of checked rows into its station-year; a station and date met twice keeps the first.
+    const onBatch = (b: CheckedBatch) => {
+      progress.rows = b.rowsRead;
+      progress.bytes = b.bytesRead;
+      rejected += b.rejected;
+      issuesDropped += b.issuesDropped;
+      for (const i of b.issues) note(i);
+      for (let k = 0; k < b.n; k++) {
+        const day = b.day[k];
+        const st = b.station[k];
+        if (!cur || cur.stationIndex !== st || day < cur.start || day >= cur.start + cur.row.length) {
+          if (cur) writeEarly(cur);
+          const year = new Date(day * 86_400_000).getUTCFullYear();
+          const key = stationYearKey(ids[st], year);
+          cur = incoming.get(key) ?? null;
+          if (!cur) incoming.set(key, (cur = newIncoming(ids[st], st, year)));
+          else if (written.has(cur)) dirty.add(cur);
+        }
+        const i = day - cur.start;
+        const first = cur.row[i];
+        if (first !== 0) {
+          rejected++;
+          note({ rowNumber: b.row[k], station: codes[st], date: iso(day), column: '(row)', value: null, severity: 'rejected',
+            rule: 'duplicate-row', reason: `The same station and date are on row ${first}; that first row was kept.` });
+          continue;
+        }
+        accepted++;
+        cur.row[i] = b.row[k];
+        cur.tmin[i] = b.tmin[k];
+        cur.tmax[i] = b.tmax[k];
+        cur.rh[i] = b.rh[k];
+        cur.rain[i] = b.rain[k];
+      }
     };
-    const each = (rec: string[]) => {
-      if (!header) {
-        header = rec;
-        col = readHeader(rec);
-        if ('problem' in col) throw new IntakeFailure('bad_header', `${col.problem} ${NOTHING_KEPT}`);
-        return;
-      }
-      rowNo++;
-      progress.rows = rowNo - 1;
-      if (shortLast) {
-        rejectShort(shortLast, rowNo - 1);
-        shortLast = null;
-      }
-      if (rec.length !== header.length) {
-        shortLast = rec;
-        return;
-      }
-      rowIssues.length = 0;
-      const row: CheckedRow | null = checkRow(rec, (col as { index: never }).index, rowNo, rowCtx, rowIssues, scratch);
-      if (!row) {
-        rejected++;
-        for (const i of rowIssues) note(i);
-        return;
-      }
-      if (!cur || cur.stationId !== row.stationId || row.day < cur.start || row.day >= cur.start + cur.row.length) {
-        if (cur) writeEarly(cur);
-        const year = new Date(row.day * 86_400_000).getUTCFullYear();
-        const key = stationYearKey(row.stationId, year);
-        cur = incoming.get(key) ?? null;
-        if (!cur) incoming.set(key, (cur = newIncoming(row.stationId, year)));
-        else if (written.has(cur)) dirty.add(cur);
-      }
-      const i = row.day - cur.start;
-      const first = cur.row[i];
-      if (first !== 0) {
-        rejected++;
-        note({ rowNumber: rowNo, station: codeOf.get(row.stationId) ?? null, date: row.date, column: '(row)', value: null, severity: 'rejected',
-          rule: 'duplicate-row', reason: `The same station and date are on row ${first}; that first row was kept.` });
-        return;
-      }
-      accepted++;
-      cur.row[i] = rowNo;
-      cur.tmin[i] = row.tmin;
-      cur.tmax[i] = row.tmax;
-      cur.rh[i] = row.rh ?? Number.NaN;
-      cur.rain[i] = row.rain ?? Number.NaN;
-    };
+    let processed: number;
     try {
-      await source.read(each);
+      processed = await readChecked(source, readerOptions, onBatch);
     } catch (err) {
       await (early as ReturnType<typeof stationYearCopy> | null)?.abort();
       throw err;
     }
-    await (early as ReturnType<typeof stationYearCopy> | null)?.end();
-    if (!header) throw new IntakeFailure('empty_file', `The file is empty. ${NOTHING_KEPT} Choose the CSV file with the header station, date, tmin, tmax.`);
-    if (shortLast) {
-      const fields = (shortLast as string[]).length;
-      if (source.endedWithNewline && !source.endedWithNewline())
-        throw new IntakeFailure('truncated_file', `The file ends in the middle of row ${rowNo} (it has ${fields} of ${(header as string[]).length} fields): it looks cut off. ${NOTHING_KEPT} Upload the complete file.`);
-      rejectShort(shortLast, rowNo);
-    }
-    const processed = rowNo - 1;
     progress.rows = processed;
-    if (processed === 0) throw new IntakeFailure('no_rows', `The file has a header but no rows. ${NOTHING_KEPT}`);
     stage('read');
+    // The database finishes the COPY while this thread finds the neighbours (and, when nothing stored
+    // is needed, runs the merge and the flag rules); the connection is free again once it resolves.
+    const copied = (early as ReturnType<typeof stationYearCopy> | null)?.end() ?? Promise.resolve();
+    copied.catch(() => undefined); // awaited below
 
-    const positions: { id: string; latitude: number; longitude: number; elevation: number | null }[] = await manager.query(
-      'SELECT id, latitude, longitude, elevation FROM weather_stations',
-    );
     const seenStations = new Set([...incoming.values()].map((y) => y.stationId));
     const nb = neighbours(positions, config.WEATHER_QC_NEIGHBOUR_KM).filter((n) => seenStations.has(n.stationId));
     // The stored years to read: those this intake changes, the years either side (the day before 1 January,
@@ -372,6 +238,7 @@ export class WeatherIntakeService {
       yearsOf.set(y.stationId, [...(yearsOf.get(y.stationId) ?? []), y.year]);
     }
     for (const n of nb) for (const yr of yearsOf.get(n.stationId) ?? []) want(n.neighbourId, yr);
+    if (wanted.size) await copied;
     const years = await readStationYears(manager, [...wanted.values()]);
     stage('stored');
 
@@ -431,6 +298,7 @@ export class WeatherIntakeService {
     }
     stage('flags');
 
+    await copied;
     await writeStationYears(manager, [...rewrite]);
     await writeStationYearFlags(manager, [...reflag]);
     await insertRevisions(manager, revisions, upload.id, upload.createdBy);
@@ -441,6 +309,7 @@ export class WeatherIntakeService {
     await recomputeDistrictSeries(manager, touched, config.WEATHER_FILL_MAX_DAYS);
     stage('series');
 
+    const codeOf = new Map(ids.map((id, k) => [id, codes[k]]));
     const flagged = flagIssues(findings, codeOf, config, maxIssues - issues.length);
     await insertIssues(manager, upload.id, [...issues, ...flagged.issues]);
     const listed = issues.length + flagged.issues.length;
@@ -478,6 +347,7 @@ async function insertIssues(manager: EntityManager, uploadId: string, issues: Ro
 /** A station-year of accepted rows as the file gives them; row[i] is the file's row number of day i (0: none). */
 interface Incoming {
   stationId: string;
+  stationIndex: number;
   year: number;
   start: number;
   tmin: Float64Array;
@@ -489,9 +359,9 @@ interface Incoming {
   y: StationYear | null;
 }
 
-function newIncoming(stationId: string, year: number): Incoming {
+function newIncoming(stationId: string, stationIndex: number, year: number): Incoming {
   const y = emptyStationYear(stationId, year);
-  return { stationId, year, start: y.start, tmin: y.tmin, tmax: y.tmax, rh: y.rh, rain: y.rain, row: new Int32Array(y.tmin.length), y: null };
+  return { stationId, stationIndex, year, start: y.start, tmin: y.tmin, tmax: y.tmax, rh: y.rh, rain: y.rain, row: new Int32Array(y.tmin.length), y: null };
 }
 
 /** The incoming rows as a year to store when nothing is stored for it: the same arrays, written by this upload. */

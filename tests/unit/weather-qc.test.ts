@@ -1,6 +1,7 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
-  checkRow, csvCell, dayOfIsoDate, fillGaps, idwWeights, readHeader, rhFromDewPoint, type RowIssue, toCelsius, toMillimetres,
+  checkRow, csvCell, dayOfIsoDate, fillGaps, idwWeights, plainNumber, readHeader, rhFromDewPoint, type RowIssue, toCelsius, toMillimetres,
 } from '../../shared/weather/qc';
 import { relativeHumidityFromDewPoint } from '../../shared/model';
 import { buildDemoStations } from '../../sample/demo-stations';
@@ -86,5 +87,21 @@ describe('weather quality rules', () => {
     expect(meanTmax('plateau', '2026-07-01', '2026-07-31')).toBeGreaterThan(24);
     expect(meanTmax('plateau', '2026-01-01', '2026-01-31')).toBeLessThan(12);
     for (const r of a) expect(r.tmin).toBeLessThanOrEqual(r.tmax);
+  });
+});
+
+describe('reading numbers', () => {
+  it('when a field is a plain decimal number, then it reads as exactly the value Number() gives', () => {
+    const decimal = fc.tuple(fc.constantFrom('', '+', '-'), fc.stringMatching(/^\d{0,12}$/), fc.boolean(), fc.stringMatching(/^\d{0,8}$/))
+      .map(([sign, whole, point, frac]) => `${sign}${whole}${point ? '.' : ''}${point ? frac : ''}`)
+      .filter((t) => /\d/.test(t));
+    fc.assert(fc.property(decimal, (t) => Object.is(plainNumber(t), Number(t))), { numRuns: 5000 });
+    // More than 15 digits: left to Number().
+    expect(plainNumber('1234567890.1234567')).toBe(1234567890.1234567);
+  });
+
+  it('when a field is not a plain decimal number, then it is refused (no exponent, hex, inner space or second point)', () => {
+    for (const t of ['1e5', '0x10', '1.2.3', '.', '+', '-', '1 2', 'Infinity', 'NaN', '٣', '1,5']) expect(plainNumber(t), t).toBeUndefined();
+    for (const [t, v] of [['-.5', -0.5], ['1.', 1], ['+3', 3], ['007', 7], ['-0', -0]] as const) expect(Object.is(plainNumber(t), v), t).toBe(true);
   });
 });
