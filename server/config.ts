@@ -60,6 +60,8 @@ export const configSchema = z.object({
   WEATHER_QC_SPATIAL_C: z.coerce.number().positive().default(8),
   WEATHER_QC_NEIGHBOUR_KM: z.coerce.number().positive().default(150),
   WEATHER_IDW_STATIONS: z.coerce.number().int().min(1).max(10).default(3),
+  /** How often a running intake reports its progress (and that it is alive), in milliseconds. */
+  WEATHER_HEARTBEAT_MS: z.coerce.number().int().min(10).max(10_000).default(1000),
   /** An upload whose process has not touched it for this long is marked failed. */
   WEATHER_UPLOAD_STALE_SECONDS: z.coerce.number().int().min(1).default(60),
   WEATHER_REPORT_MAX_ISSUES: z.coerce.number().int().min(100).default(100_000),

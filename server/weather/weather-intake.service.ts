@@ -1,8 +1,7 @@
 import { unlink } from 'node:fs/promises';
-import type pg from 'pg';
 import type { EntityManager } from 'typeorm';
 import {
-  type CheckedRow, checkRow, type RainUnit, readHeader, REJECT_RULES, type RowContext, type RowIssue, type StationRef, type TempUnit,
+  checkRow, type RainUnit, readHeader, type RowContext, type RowIssue, type StationRef, type TempUnit,
 } from '../../shared/weather/qc';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
@@ -86,7 +85,7 @@ export class WeatherIntakeService {
           [upload.id, progress.rows, progress.bytes])
         .catch(() => undefined);
     };
-    const timer = setInterval(beat, 1000);
+    const timer = setInterval(beat, config.WEATHER_HEARTBEAT_MS);
     const stopBeat = async () => {
       clearInterval(timer);
       await beatInFlight;
@@ -170,7 +169,7 @@ export class WeatherIntakeService {
     const written = new Set<Incoming>();
     const dirty = new Set<Incoming>();
     const writeEarly = (inc: Incoming) => {
-      if (written.has(inc) || storedKeys.has(stationYearKey(inc.stationId, inc.year))) return;
+      if (written.has(inc) || storedKeys.has(stationYearKey(inc.y.stationId, inc.y.year))) return;
       early ??= stationYearCopy(manager);
       void early.add(adopt(inc, upload.id));
       written.add(inc);
@@ -185,7 +184,7 @@ export class WeatherIntakeService {
       for (let k = 0; k < b.n; k++) {
         const day = b.day[k];
         const st = b.station[k];
-        if (!cur || cur.stationIndex !== st || day < cur.start || day >= cur.start + cur.row.length) {
+        if (!cur || cur.stationIndex !== st || day < cur.y.start || day >= cur.y.start + cur.row.length) {
           if (cur) writeEarly(cur);
           const year = new Date(day * 86_400_000).getUTCFullYear();
           const key = stationYearKey(ids[st], year);
@@ -193,7 +192,7 @@ export class WeatherIntakeService {
           if (!cur) incoming.set(key, (cur = newIncoming(ids[st], st, year)));
           else if (written.has(cur)) dirty.add(cur);
         }
-        const i = day - cur.start;
+        const i = day - cur.y.start;
         const first = cur.row[i];
         if (first !== 0) {
           rejected++;
@@ -203,10 +202,10 @@ export class WeatherIntakeService {
         }
         accepted++;
         cur.row[i] = b.row[k];
-        cur.tmin[i] = b.tmin[k];
-        cur.tmax[i] = b.tmax[k];
-        cur.rh[i] = b.rh[k];
-        cur.rain[i] = b.rain[k];
+        cur.y.tmin[i] = b.tmin[k];
+        cur.y.tmax[i] = b.tmax[k];
+        cur.y.rh[i] = b.rh[k];
+        cur.y.rain[i] = b.rain[k];
       }
     };
     let processed: number;
@@ -223,7 +222,7 @@ export class WeatherIntakeService {
     const copied = (early as ReturnType<typeof stationYearCopy> | null)?.end() ?? Promise.resolve();
     copied.catch(() => undefined); // awaited below
 
-    const seenStations = new Set([...incoming.values()].map((y) => y.stationId));
+    const seenStations = new Set([...incoming.values()].map((inc) => inc.y.stationId));
     const nb = neighbours(positions, config.WEATHER_QC_NEIGHBOUR_KM).filter((n) => seenStations.has(n.stationId));
     // The stored years to read: those this intake changes, the years either side (the day before 1 January,
     // runs across the new year) and the neighbours' same years (the spatial rule).
@@ -233,7 +232,7 @@ export class WeatherIntakeService {
       if (storedKeys.has(key)) wanted.set(key, { stationId, year });
     };
     const yearsOf = new Map<string, number[]>();
-    for (const y of incoming.values()) {
+    for (const { y } of incoming.values()) {
       for (const yr of [y.year - 1, y.year, y.year + 1]) want(y.stationId, yr);
       yearsOf.set(y.stationId, [...(yearsOf.get(y.stationId) ?? []), y.year]);
     }
@@ -248,7 +247,7 @@ export class WeatherIntakeService {
     const rewrite = new Set<StationYear>();
     const merged: { y: StationYear; rows: Int32Array }[] = [];
     for (const inc of incoming.values()) {
-      const key = stationYearKey(inc.stationId, inc.year);
+      const key = stationYearKey(inc.y.stationId, inc.y.year);
       const stored = years.get(key);
       if (!stored) {
         const y = adopt(inc, upload.id);
@@ -262,17 +261,18 @@ export class WeatherIntakeService {
       for (let i = 0; i < inc.row.length; i++) {
         if (inc.row[i] === 0) continue;
         const had = y.tmin[i] === y.tmin[i];
-        if (had && same(y.tmin[i], inc.tmin[i]) && same(y.tmax[i], inc.tmax[i]) && same(y.rh[i], inc.rh[i]) && same(y.rain[i], inc.rain[i])) continue;
+        const v = inc.y;
+        if (had && same(y.tmin[i], v.tmin[i]) && same(y.tmax[i], v.tmax[i]) && same(y.rh[i], v.rh[i]) && same(y.rain[i], v.rain[i])) continue;
         if (had)
           revisions.push({
             stationId: y.stationId, day: y.start + i, tmin: y.tmin[i], tmax: y.tmax[i], rh: nullable(y.rh[i]), rain: nullable(y.rain[i]),
             flags: flagNames(y.flags[i]), previousUploadId: y.uploadIx[i] ? y.uploads[y.uploadIx[i] - 1] : null,
           });
         if (!ix) ix = uploadIndex(y, upload.id);
-        y.tmin[i] = inc.tmin[i];
-        y.tmax[i] = inc.tmax[i];
-        y.rh[i] = inc.rh[i];
-        y.rain[i] = inc.rain[i];
+        y.tmin[i] = v.tmin[i];
+        y.tmax[i] = v.tmax[i];
+        y.rh[i] = v.rh[i];
+        y.rain[i] = v.rain[i];
         y.uploadIx[i] = ix;
         rewrite.add(y);
       }
@@ -344,35 +344,27 @@ async function insertIssues(manager: EntityManager, uploadId: string, issues: Ro
   }
 }
 
-/** A station-year of accepted rows as the file gives them; row[i] is the file's row number of day i (0: none). */
+/**
+ * A station-year of accepted rows as the file gives them: the values in `y` (a year not stored before is
+ * stored as it is), row[i] the file's row number of day i (0: none).
+ */
 interface Incoming {
-  stationId: string;
   stationIndex: number;
-  year: number;
-  start: number;
-  tmin: Float64Array;
-  tmax: Float64Array;
-  rh: Float64Array;
-  rain: Float64Array;
   row: Int32Array;
-  /** The same arrays as a year to store, once adopted (nothing stored for it before). */
-  y: StationYear | null;
+  y: StationYear;
 }
 
-function newIncoming(stationId: string, stationIndex: number, year: number): Incoming {
+const newIncoming = (stationId: string, stationIndex: number, year: number): Incoming => {
   const y = emptyStationYear(stationId, year);
-  return { stationId, stationIndex, year, start: y.start, tmin: y.tmin, tmax: y.tmax, rh: y.rh, rain: y.rain, row: new Int32Array(y.tmin.length), y: null };
-}
+  return { stationIndex, row: new Int32Array(y.tmin.length), y };
+};
 
-/** The incoming rows as a year to store when nothing is stored for it: the same arrays, written by this upload. */
+/** The incoming year as written by this upload alone (nothing stored for it before): its days point at the upload. */
 function adopt(inc: Incoming, uploadId: string): StationYear {
-  if (inc.y) return inc.y;
-  const n = inc.row.length;
-  const uploadIx = new Int16Array(n);
-  for (let i = 0; i < n; i++) if (inc.row[i] !== 0) uploadIx[i] = 1;
-  inc.y = { stationId: inc.stationId, year: inc.year, start: inc.start, tmin: inc.tmin, tmax: inc.tmax, rh: inc.rh, rain: inc.rain,
-    flags: new Int16Array(n), uploadIx, uploads: [uploadId] };
-  return inc.y;
+  const { y, row } = inc;
+  for (let i = 0; i < row.length; i++) y.uploadIx[i] = row[i] !== 0 ? 1 : 0;
+  y.uploads = [uploadId];
+  return y;
 }
 
 /** Equal values, a missing value (NaN) equal only to a missing one: SQL's IS NOT DISTINCT FROM. */

@@ -42,6 +42,7 @@ describe('a server killed during a load', () => {
       env: {
         ...process.env, NODE_ENV: 'test', PORT: String(port), HOST: '127.0.0.1', DATABASE_URL: process.env.DATABASE_URL, JWT_SECRET: TEST_JWT_SECRET,
         BCRYPT_COST: '4', LOG_LEVEL: 'silent', SMTP_PORT: process.env.TEST_SMTP_PORT ?? '1026', WEATHER_UPLOAD_DIR: uploadDir, WEATHER_SWEEP_CRON: '0 0 1 1 *',
+        WEATHER_HEARTBEAT_MS: '20', // the whole load takes about a second: report often, so the kill lands inside it
       },
     });
     const exited = new Promise((r) => child.once('exit', r));

@@ -44,6 +44,17 @@ describe('weather uploads', () => {
     expect(series.body.days.map((d: { date: string; tmax: number }) => [d.date, d.tmax])).toEqual([['2026-02-01', 30], ['2026-02-02', 20]]);
   });
 
+  it('when a station comes back later in the file, then all its rows are kept and each day names the upload', async () => {
+    const a = await makeStation(t.ds, { latitude: 40.2, longitude: 40.2 });
+    const b = await makeStation(t.ds, { latitude: 40.4, longitude: 40.4 });
+    const rows = [...month(a.code, '2026-01-01', 10), ...month(b.code, '2026-01-01', 10), ...month(a.code, '2026-01-11', 10)];
+    const res = await upload(csv(HEADER, rows));
+    expect(res.body).toMatchObject({ status: 'done', rowsAccepted: 30, rowsRejected: 0 });
+    const days = await t.ds.query('SELECT upload_id FROM weather_observations WHERE station_id = $1 ORDER BY date', [a.id]);
+    expect(days).toHaveLength(20);
+    for (const d of days) expect(d.upload_id).toBe(res.body.id);
+  });
+
   it('when the same file is uploaded twice, then the second upload changes nothing', async () => {
     const station = await makeStation(t.ds, { latitude: 40, longitude: 40 });
     const file = csv(HEADER, month(station.code));
