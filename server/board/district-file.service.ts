@@ -104,7 +104,7 @@ export class DistrictFileService {
     const larval = [...larvalByWeek.entries()].map(([k, list]) => {
       const [epiYear, epiWeek] = k.split(':').map(Number);
       const idx = aggregateLarvalIndices(list.map(({ epi_year: _y, epi_week: _w, ...rest }: Record<string, unknown>) => rest) as never);
-      return { epiYear, epiWeek, surveys: list.length, house: idx.house, container: idx.container, breteau: idx.breteau, pupa: idx.pupa };
+      return { epiYear, epiWeek, surveys: list.length, pupaSurveys: idx.pupaSurveys, house: idx.house, container: idx.container, breteau: idx.breteau, pupa: idx.pupa };
     });
 
     return {

@@ -76,13 +76,17 @@ export class LarvalSurveysService {
       surveys: surveys.map((s) => presentSurvey(s, districtRefOf(district))),
       weeks: [...byWeek.entries()]
         .sort(([a], [b]) => b - a)
-        .map(([, group]) => ({
-          year: group[0].epiYear,
-          week: group[0].epiWeek,
-          surveys: group.length,
-          houses: group.reduce((a, s) => a + s.housesInspected, 0),
-          indices: aggregateLarvalIndices(group.map(surveyCounts)),
-        })),
+        .map(([, group]) => {
+          const { house, container, breteau, pupa, pupaSurveys } = aggregateLarvalIndices(group.map(surveyCounts));
+          return {
+            year: group[0].epiYear,
+            week: group[0].epiWeek,
+            surveys: group.length,
+            pupaSurveys,
+            houses: group.reduce((a, s) => a + s.housesInspected, 0),
+            indices: { house, container, breteau, pupa },
+          };
+        }),
     };
   }
 }

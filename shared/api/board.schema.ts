@@ -94,7 +94,7 @@ export const districtFileResponse = z.object({
     }),
   ),
   larval: z.array(
-    z.object({ epiYear: z.number().int(), epiWeek: z.number().int(), surveys: z.number().int(), house: z.number().nullable(), container: z.number().nullable(), breteau: z.number().nullable(), pupa: z.number().nullable() }),
+    z.object({ epiYear: z.number().int(), epiWeek: z.number().int(), surveys: z.number().int(), pupaSurveys: z.number().int(), house: z.number().nullable(), container: z.number().nullable(), breteau: z.number().nullable(), pupa: z.number().nullable() }),
   ),
   tiers: z.array(
     z.object({ epiYear: z.number().int(), epiWeek: z.number().int(), tier, tierLow: tier, tierHigh: tier, score: z.number(), confidence, drivers: z.array(driverDto), notes: z.array(z.string()), leadingDriver: driverId.nullable(), changedDriver: driverId.nullable() }),

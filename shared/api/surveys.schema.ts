@@ -106,6 +106,7 @@ export type SurveyDto = z.infer<typeof surveyDto>;
 export const districtSurveysResponse = z.object({
   district: districtRef,
   surveys: z.array(surveyDto),
-  weeks: z.array(z.object({ year: z.number(), week: z.number(), surveys: z.number(), houses: z.number(), indices: indicesDto })),
+  /** `pupaSurveys`: how many of the week's surveys counted pupae (the pupa index pools those alone). */
+  weeks: z.array(z.object({ year: z.number(), week: z.number(), surveys: z.number(), pupaSurveys: z.number(), houses: z.number(), indices: indicesDto })),
 });
 export type DistrictSurveysResponse = z.infer<typeof districtSurveysResponse>;

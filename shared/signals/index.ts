@@ -37,4 +37,4 @@ export {
   type FittedGrowth,
 } from './growth';
 export { incidencePer100k } from './incidence';
-export { larvalIndices, aggregateLarvalIndices, type LarvalIndices } from './larval-indices';
+export { larvalIndices, aggregateLarvalIndices, type LarvalIndices, type PooledLarvalIndices } from './larval-indices';

@@ -26,7 +26,8 @@ function indicesOf(s: LarvalSurvey): LarvalIndices {
     house: per100(s.housesPositive, s.housesInspected),
     container: per100(s.containersPositive, s.containersInspected),
     breteau: per100(s.containersPositive, s.housesInspected),
-    pupa: s.pupae === undefined ? null : per100(s.pupae, s.housesInspected),
+    // null and absent both mean "pupae not counted".
+    pupa: s.pupae === undefined || s.pupae === null ? null : per100(s.pupae, s.housesInspected),
   };
 }
 
@@ -35,21 +36,41 @@ export function larvalIndices(survey: LarvalSurvey): LarvalIndices {
   return indicesOf(larvalSurveySchema.parse(survey));
 }
 
+/** The indices of several surveys, with how many surveys they pool and how many of them counted pupae. */
+export interface PooledLarvalIndices extends LarvalIndices {
+  surveys: number;
+  /** Surveys that counted pupae: the pupa index is computed over these alone (null when none did). */
+  pupaSurveys: number;
+}
+
 /**
  * The indices of several surveys together (e.g. one district-week): the counts are summed first and
  * the indices computed from the sums, so each house and container weighs the same, not each survey.
- * The pupa index is given only when every survey counted pupae.
+ * The pupa index pools only the surveys that counted pupae (their pupae per 100 of their houses
+ * inspected, derived), so one survey without a pupa count does not blank the week; `pupaSurveys` says
+ * how many surveys it rests on.
  */
-export function aggregateLarvalIndices(surveys: readonly LarvalSurvey[]): LarvalIndices {
+export function aggregateLarvalIndices(surveys: readonly LarvalSurvey[]): PooledLarvalIndices {
   const all = larvalSurveysSchema.parse(surveys);
-  const total: LarvalSurvey = { housesInspected: 0, housesPositive: 0, containersInspected: 0, containersPositive: 0 };
-  let pupae: number | undefined = 0;
+  const total = { housesInspected: 0, housesPositive: 0, containersInspected: 0, containersPositive: 0 };
+  let pupae = 0;
+  let pupaHouses = 0;
+  let pupaSurveys = 0;
   for (const s of all) {
     total.housesInspected += s.housesInspected;
     total.housesPositive += s.housesPositive;
     total.containersInspected += s.containersInspected;
     total.containersPositive += s.containersPositive;
-    pupae = pupae === undefined || s.pupae === undefined ? undefined : pupae + s.pupae;
+    if (s.pupae !== undefined && s.pupae !== null) {
+      pupae += s.pupae;
+      pupaHouses += s.housesInspected;
+      pupaSurveys++;
+    }
   }
-  return indicesOf(pupae === undefined ? total : { ...total, pupae });
+  return {
+    ...indicesOf(total),
+    pupa: pupaSurveys === 0 ? null : per100(pupae, pupaHouses),
+    surveys: all.length,
+    pupaSurveys,
+  };
 }

@@ -107,7 +107,8 @@ export const incidenceInputSchema = z.object({
 
 /**
  * One larval survey (WHO definitions; docs/signals.md, "Larval indices"). `containersInspected`
- * counts water-holding containers only. `pupae` is optional (not every survey counts pupae).
+ * counts water-holding containers only. `pupae` is optional (not every survey counts pupae): left
+ * out and null mean the same thing (a stored survey without pupae reads back as null).
  */
 export const larvalSurveySchema = z
   .object({
@@ -115,7 +116,7 @@ export const larvalSurveySchema = z
     housesPositive: countSchema,
     containersInspected: countSchema,
     containersPositive: countSchema,
-    pupae: countSchema.optional(),
+    pupae: countSchema.nullish(),
   })
   .superRefine((s, ctx) => {
     if (s.housesPositive > s.housesInspected) {

@@ -66,14 +66,21 @@ describe('aggregateLarvalIndices (sum the counts, then compute)', () => {
   it('when two surveys of a district-week are pooled, then the indices come from the summed counts [derived]', () => {
     // sums: 200 houses, 30 positive, 600 containers, 45 positive, 90 pupae → HI 15, CI 7.5, BI 22.5, PI 45.
     // (Averaging the surveys' house indices, (40 + 6.667)/2 = 23.3, would weigh 50 houses like 150.)
-    expect(aggregateLarvalIndices([a, b])).toEqual({ house: 15, container: 7.5, breteau: 22.5, pupa: 45 });
+    expect(aggregateLarvalIndices([a, b])).toEqual({ house: 15, container: 7.5, breteau: 22.5, pupa: 45, surveys: 2, pupaSurveys: 2 });
   });
 
-  it('when one survey did not count pupae, then the pooled pupa index is null and the others stand', () => {
+  it('when one survey did not count pupae (left out or null), then the pupa index pools the surveys that did and says how many', () => {
     const { pupae: _dropped, ...bWithoutPupae } = b;
-    const r = aggregateLarvalIndices([a, bWithoutPupae]);
-    expect(r.pupa).toBeNull();
-    expect(r.house).toBe(15);
+    // Only survey a counted pupae: 30 pupae in its 50 houses → PI 60 [derived]; the other indices pool both.
+    for (const other of [bWithoutPupae, { ...b, pupae: null }]) {
+      const r = aggregateLarvalIndices([a, other]);
+      expect(r.pupa).toBe(60);
+      expect(r.pupaSurveys).toBe(1);
+      expect(r.surveys).toBe(2);
+      expect(r.house).toBe(15);
+    }
+    expect(aggregateLarvalIndices([{ ...a, pupae: null }, bWithoutPupae])).toMatchObject({ pupa: null, pupaSurveys: 0 });
+    expect(larvalIndices({ ...a, pupae: null }).pupa).toBeNull();
   });
 
   it('when there is no survey or one survey is invalid, then it throws', () => {

@@ -91,8 +91,8 @@ export const demoDistrictFile = (seasonYear = 2025) => ({
     },
   ],
   larval: [
-    { epiYear: 2025, epiWeek: 21, surveys: 3, house: 12, container: 8, breteau: 18, pupa: 0.4 },
-    { epiYear: 2025, epiWeek: 22, surveys: 2, house: 15, container: 9, breteau: 24, pupa: null },
+    { epiYear: 2025, epiWeek: 21, surveys: 3, pupaSurveys: 2, house: 12, container: 8, breteau: 18, pupa: 0.4 },
+    { epiYear: 2025, epiWeek: 22, surveys: 2, pupaSurveys: 0, house: 15, container: 9, breteau: 24, pupa: null },
   ],
   tiers: [
     {

@@ -13,6 +13,11 @@ export function LarvalChart({ larval }: { larval: Larval }) {
   const labels = weeks.map((w) => t('epiWeekShort', { ns: 'common', week: w.epiWeek, year: w.epiYear }));
   const last = weeks[weeks.length - 1];
   const n1 = (x: number | null) => f.number(x, 1);
+  // The pupa index pools only the surveys that counted pupae: say so when not all of the week's did.
+  const pupaCell = (w: Larval[number]) =>
+    w.pupa !== null && w.pupaSurveys < w.surveys
+      ? t('district-file:larval.pupaPartial', { value: f.number(w.pupa, 2), counted: f.number(w.pupaSurveys), surveys: f.number(w.surveys) })
+      : f.number(w.pupa, 2);
   const summary = last
     ? [
         t('district-file:larval.summary', { count: weeks.length }),
@@ -56,7 +61,7 @@ export function LarvalChart({ larval }: { larval: Larval }) {
             names.breteau,
             t('district-file:larval.pupaColumn'),
           ]}
-          rows={weeks.map((w, i) => [labels[i], f.number(w.surveys), n1(w.house), n1(w.container), n1(w.breteau), f.number(w.pupa, 2)])}
+          rows={weeks.map((w, i) => [labels[i], f.number(w.surveys), n1(w.house), n1(w.container), n1(w.breteau), pupaCell(w)])}
           emptyText={t('district-file:table.empty')}
         />
       }

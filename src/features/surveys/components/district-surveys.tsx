@@ -40,7 +40,11 @@ export function DistrictSurveys({ districtId, limit = 10 }: { districtId: string
                 <td className="tabular-nums">{formatIndex(number, w.indices.house, t)}</td>
                 <td className="tabular-nums">{formatIndex(number, w.indices.container, t)}</td>
                 <td className="tabular-nums">{formatIndex(number, w.indices.breteau)}</td>
-                <td className="tabular-nums">{formatIndex(number, w.indices.pupa)}</td>
+                <td className="tabular-nums">
+                  {w.indices.pupa !== null && w.pupaSurveys < w.surveys
+                    ? t('index.pupaPartial', { value: formatIndex(number, w.indices.pupa), counted: number(w.pupaSurveys), surveys: number(w.surveys) })
+                    : formatIndex(number, w.indices.pupa)}
+                </td>
               </tr>
             ))}
           </tbody>
