@@ -68,6 +68,9 @@ export class CaseUploadService {
           const extra = columns.filter((c) => !(UPLOAD_COLUMNS as readonly string[]).includes(c));
           for (const c of missing) add({ row: 1, column: c, value: null, reason: `the header has no "${c}" column (expected: ${UPLOAD_COLUMNS.join(', ')})` });
           for (const c of extra) add({ row: 1, column: c, value: c, reason: `"${c}" is not a column of the case upload (expected: ${UPLOAD_COLUMNS.join(', ')})` });
+          // A column named twice would let the last one win silently: refuse it, naming the column.
+          for (const c of new Set(columns.filter((name, i) => columns.indexOf(name) !== i)))
+            add({ row: 1, column: c, value: c, reason: `the header names "${c}" more than once` });
           headerChecked = true;
           return columns;
         },
@@ -116,6 +119,8 @@ export class CaseUploadService {
       add({ row: e.lines ?? rows + 1, column: null, value: null, reason: `the file is not readable as CSV: ${e.message}` });
     }
     if (!headerChecked) add({ row: 1, column: null, value: null, reason: `the file is empty (expected a header: ${UPLOAD_COLUMNS.join(', ')})` });
+    else if (rows === 0 && problems.length === 0)
+      add({ row: 1, column: null, value: null, reason: `the file has a header but no rows of counts (expected one row per district, disease and week)` });
 
     const report: UploadReport = { accepted: false, rows, created: 0, corrected: 0, unchanged: 0, late: 0, problems };
     if (problems.length) return this.rejected(report);

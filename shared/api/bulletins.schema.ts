@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { uuid } from './common.schema';
+import { uniqueArray, uuid } from './common.schema';
 
 /** What a subscription delivers: advisories as they are approved, and the weekly bulletin. */
 export const MAIL_KINDS = ['advisory', 'bulletin'] as const;
@@ -23,9 +23,10 @@ export const subscriptionsResponse = z.object({
 export type SubscriptionsResponse = z.infer<typeof subscriptionsResponse>;
 
 export const subscriptionsBody = z.strictObject({
-  districts: z
-    .array(z.strictObject({ districtId: uuid, advisory: z.boolean(), bulletin: z.boolean() }))
-    .max(5000),
+  districts: uniqueArray(z.strictObject({ districtId: uuid, advisory: z.boolean(), bulletin: z.boolean() }), {
+    max: 5000,
+    key: (d) => d.districtId,
+  }),
 });
 export type SubscriptionsBody = z.infer<typeof subscriptionsBody>;
 

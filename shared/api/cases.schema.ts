@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { epiWeekEnd, epiWeekStart, weeksInYear, type EpiWeekSystem } from '../model/epi-week';
 import { channelBandSchema, channelMethodSchema, channelZoneSchema } from '../signals/schemas';
 import { districtRef } from './auth.schema';
-import { uuid } from './common.schema';
+import { uniqueArray, uuid } from './common.schema';
 
 /**
  * The Case ledger's API contract (docs/case-ledger.md): diseases, weekly counts with their revisions,
@@ -135,7 +135,7 @@ const diseaseCode = z
 export const diseaseCreateBody = z.strictObject({
   code: diseaseCode,
   name: z.string().trim().min(1, { message: 'is required' }).max(120, { message: 'is too long' }),
-  profileIds: z.array(z.string().regex(/^[a-z0-9-]{2,60}$/, { message: 'is not a profile id' })).max(20).default([]),
+  profileIds: uniqueArray(z.string().regex(/^[a-z0-9-]{2,60}$/, { message: 'is not a profile id' }), { max: 20 }).default([]),
 });
 export type DiseaseCreateBody = z.input<typeof diseaseCreateBody>;
 

@@ -25,3 +25,31 @@ export const errorBody = z.object({
   }),
 });
 export type ErrorBody = z.infer<typeof errorBody>;
+
+/**
+ * A list of ids (or of items keyed by an id) that refuses repeats: the same id twice is a 400 naming
+ * the list and the id, rather than a unique-index failure (500) in the database. Every id list of the
+ * API's bodies is one of these (`districtIds`, subscription districts, profile ids, actions, years).
+ */
+export function uniqueArray<T extends z.ZodType>(
+  item: T,
+  opts: { max: number; key?: (value: z.output<T>) => string | number },
+) {
+  return z
+    .array(item)
+    .max(opts.max, { message: `lists too many (${opts.max.toLocaleString('en')} at most)` })
+    .superRefine((list, ctx) => {
+      const seen = new Set<unknown>();
+      for (const value of list) {
+        const k = opts.key ? opts.key(value) : value;
+        if (seen.has(k)) {
+          ctx.addIssue({ code: 'custom', message: `lists ${String(k)} more than once` });
+          return;
+        }
+        seen.add(k);
+      }
+    });
+}
+
+/** A list of ids (UUIDs) without repeats. */
+export const uniqueIds = (max: number) => uniqueArray(uuid, { max });

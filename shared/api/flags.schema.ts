@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { TIERS } from '../tier/tier-settings';
 import { driverDto } from './board.schema';
-import { uuid } from './common.schema';
+import { uniqueArray, uuid } from './common.schema';
 
 /** Why a flag was raised. The season run raises the first three; people raise the last. */
 export const FLAG_REASONS = ['tier-rise', 'channel-above', 'case-alarm', 'manual'] as const;
@@ -107,7 +107,7 @@ export const raiseFlagBody = z.strictObject({
   note: z.string().trim().min(3, { message: 'must say why (3 characters or more)' }).max(1000),
   /** The message proposed for the advisory; Broodcast writes one from the tier and drivers when left out. */
   message: message.optional(),
-  actions: z.array(z.enum(ACTION_IDS)).min(1, { message: 'choose at least one action' }).max(ACTION_IDS.length).optional(),
+  actions: uniqueArray(z.enum(ACTION_IDS), { max: ACTION_IDS.length }).min(1, { message: 'choose at least one action' }).optional(),
 });
 export type RaiseFlagBody = z.infer<typeof raiseFlagBody>;
 

@@ -1,8 +1,8 @@
 import { z } from 'zod';
-import { isIsoDate } from '../model/dates';
 import { larvalSurveySchema } from '../signals/schemas';
 import { districtRef } from './auth.schema';
 import { uuid } from './common.schema';
+import { isoDate } from './date.schema';
 
 /**
  * Larval surveys (docs/case-ledger.md, "Field surveys"). The cross-field rules (positive houses within
@@ -27,8 +27,6 @@ const count = z
   .int({ message: 'must be a whole number' })
   .min(0, { message: 'cannot be negative' })
   .max(100_000, { message: 'is implausibly large' });
-
-const isoDate = z.string().refine(isIsoDate, { message: 'must be a date (YYYY-MM-DD)' });
 
 const fields = {
   /** Made in the browser when the survey is first saved, so a resubmission is recognised. */

@@ -5,7 +5,7 @@ import { districtRef, language } from './auth.schema';
 export { DEFAULT_PREFERENCES, LANGUAGES, preferencesBody, preferencesDto } from './auth.schema';
 export { RAIN_UNITS, TEMPERATURE_UNITS } from '../units';
 export type { Language, PreferencesBody, PreferencesDto } from './auth.schema';
-import { email, uuid } from './common.schema';
+import { email, uniqueIds, uuid } from './common.schema';
 
 const displayName = z.string().trim().min(1, { message: 'is required' }).max(120, { message: 'is too long' });
 
@@ -13,7 +13,7 @@ export const userInviteBody = z.strictObject({
   email,
   displayName,
   role: z.enum(ROLES, { message: 'must be one of: ' + ROLES.join(', ') }),
-  districtIds: z.array(uuid).max(500).default([]),
+  districtIds: uniqueIds(500).default([]),
   /** The invitee's language (their invite mail is written in it); English when left out. */
   language: language.optional(),
 });
@@ -23,7 +23,7 @@ export const userUpdateBody = z
   .strictObject({
     displayName: displayName.optional(),
     role: z.enum(ROLES, { message: 'must be one of: ' + ROLES.join(', ') }).optional(),
-    districtIds: z.array(uuid).max(500).optional(),
+    districtIds: uniqueIds(500).optional(),
     active: z.boolean().optional(),
   })
   .refine((b) => Object.keys(b).length > 0, { message: 'nothing to change' });

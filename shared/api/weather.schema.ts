@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { RAIN_UNITS, TEMPERATURE_UNITS } from '../units';
 import { uuid } from './common.schema';
+import { isoDate } from './date.schema';
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, { message: 'must be a date written YYYY-MM-DD' });
 const stationCode = z.string().trim().regex(/^[A-Za-z0-9_.-]{2,32}$/, {
   message: 'must be 2–32 letters, digits, dots, hyphens or underscores',
 });
@@ -132,7 +132,7 @@ export const issuesResponse = z.object({ total: z.number(), issues: z.array(issu
 /** One corrected day of one station, in the units given; it goes through the same checks as an upload. */
 export const correctionBody = z.strictObject({
   station: z.string().trim().min(1, { message: 'is required' }),
-  date: z.string().trim().min(1, { message: 'is required' }),
+  date: z.string({ message: 'is required' }).trim().pipe(isoDate),
   tmin: z.number({ message: 'must be a number' }),
   tmax: z.number({ message: 'must be a number' }),
   rh: z.number().nullable().optional(),

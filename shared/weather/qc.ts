@@ -4,6 +4,7 @@
  * docs/weather-intake.md; the server applies these on every path in (upload, feed, correction).
  */
 
+import { calendarDay, dateProblem, DATE_MAX_YEAR, DATE_MIN_YEAR } from '../api/date.schema';
 import { type RainUnit, type TemperatureUnit, toCelsius, toMillimetres } from '../units';
 
 export type TempUnit = TemperatureUnit;
@@ -75,20 +76,11 @@ export function rhFromDewPoint(dewPointC: number, meanC: number): number {
   return Math.min(100, (100 * es(dewPointC)) / es(meanC));
 }
 
-const DATE = /^(\d{4})-(\d{2})-(\d{2})$/;
-const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
-
-/** Days since 1970-01-01 of a YYYY-MM-DD date, or NaN. Hand-written: it runs once per row of a 2-million-row file. */
-export function dayOfIsoDate(text: string): number {
-  const m = DATE.exec(text);
-  if (!m) return Number.NaN;
-  const y = +m[1];
-  const mo = +m[2];
-  const d = +m[3];
-  const leap = (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
-  if (mo < 1 || mo > 12 || d < 1 || d > (mo === 2 && leap ? 29 : DAYS_IN_MONTH[mo - 1])) return Number.NaN;
-  return Date.UTC(y, mo - 1, d) / 86_400_000;
-}
+/**
+ * Days since 1970-01-01 of a YYYY-MM-DD date with a year from 1900 to 2100, or NaN: the shared date
+ * type's check (shared/api/date.schema.ts), so 0099-06-15 is refused rather than read as 1999-06-15.
+ */
+export const dayOfIsoDate = (text: string): number => calendarDay(text);
 
 export const isoOfDay = (day: number) => new Date(day * 86_400_000).toISOString().slice(0, 10);
 
@@ -138,6 +130,7 @@ export interface CheckedRow {
 export const REJECT_RULES = {
   'unknown-station': 'No station has this code. Add the station first, or fix the code.',
   'bad-date': 'Not a calendar date written YYYY-MM-DD.',
+  'date-range': `The year is outside ${DATE_MIN_YEAR} to ${DATE_MAX_YEAR} (a year such as 0099 is not read as 1999).`,
   'future-date': 'The date is after today: a daily value cannot be from the future.',
   'inactive-station': 'The station was not active on this date.',
   'missing-value': 'Tmin and Tmax are required.',
@@ -278,7 +271,7 @@ function fullCheck(rec: string[], col: ColumnIndex, rowNumber: number, ctx: RowC
   const station = ctx.stations.get(code);
   if (!station) reject('station', code, 'unknown-station');
   const day = dayOfIsoDate(dateText);
-  if (Number.isNaN(day)) reject('date', dateText, 'bad-date');
+  if (Number.isNaN(day)) reject('date', dateText, dateProblem(dateText) === 'range' ? 'date-range' : 'bad-date');
   else if (day > ctx.lastDay) reject('date', dateText, 'future-date');
   else if (station && (day < station.activeFrom || day > station.activeTo)) reject('date', dateText, 'inactive-station');
 

@@ -64,6 +64,8 @@ const EXACT: Record<string, string> = {
   'a linear ring must end where it starts': 'ringClosed',
   'is in the future': 'future',
   'cannot be in the future': 'future',
+  'must be a date (YYYY-MM-DD)': 'date',
+  'must be a list without repeats': 'noRepeats',
 };
 
 const PATTERNS: { re: RegExp; key: string; values: (m: RegExpExecArray) => Record<string, string> }[] = [
@@ -72,6 +74,8 @@ const PATTERNS: { re: RegExp; key: string; values: (m: RegExpExecArray) => Recor
   { re: /^is too long \(([\d,]+) characters at most\)$/, key: 'maxChars', values: (m) => ({ n: m[1] }) },
   { re: /^must be one of:? /, key: 'oneOf', values: () => ({}) },
   { re: /^is not a known fields?: (.+)$/, key: 'unknownFields', values: (m) => ({ names: m[1] }) },
+  { re: /^must be between (\d{4}-\d{2}-\d{2}) and (\d{4}-\d{2}-\d{2})$/, key: 'dateRange', values: (m) => ({ from: m[1], to: m[2] }) },
+  { re: /^lists (.+) more than once$/, key: 'repeated', values: (m) => ({ value: m[1] }) },
 ];
 
 /** The `app:validation` key (and values) of a known English predicate, or null. */

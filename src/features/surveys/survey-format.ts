@@ -45,7 +45,9 @@ const KNOWN: Record<string, string> = {
 export function surveyMessage(t: TFunction<'surveys'>, label: string, message: string | undefined): string | undefined {
   if (!message) return undefined;
   const key = KNOWN[message];
-  return key ? t(`validation.${key}`, { field: label }) : message;
+  if (key) return t(`validation.${key}`, { field: label });
+  const range = /^must be between (\d{4}-\d{2}-\d{2}) and (\d{4}-\d{2}-\d{2})$/.exec(message);
+  return range ? t('validation.dateRange', { field: label, from: range[1], to: range[2] }) : message;
 }
 
 /** A form field's label for a path the server names ("body.housesPositive" → "Houses with larvae or pupae"). */
