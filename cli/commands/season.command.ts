@@ -2,7 +2,7 @@ import { z } from 'zod';
 import type { CliCommand } from '../command';
 import { getProfile, PROFILE_IDS } from '../../shared/model/profiles';
 import { computeSeason, type SeasonInputDay } from '../../shared/model/season';
-import { isIsoDate } from '../../shared/model/dates';
+import { isCalendarDate } from '../../shared/api/date.schema';
 import { CliError } from './cli-error';
 import { isoDate, latitude, oneOf } from './options';
 
@@ -41,7 +41,7 @@ export async function readWeatherCsv(lines: AsyncIterable<string>): Promise<Seas
       continue;
     }
     const date = (cells[col.date] ?? '').trim();
-    if (!isIsoDate(date)) throw new CliError(`stdin line ${n}: date: expected a date YYYY-MM-DD, got ${JSON.stringify(date)}`);
+    if (!isCalendarDate(date)) throw new CliError(`stdin line ${n}: date: expected a date YYYY-MM-DD from 1900 to 2100, got ${JSON.stringify(date)}`);
     const tmin = cell(cells[col.tmin], 'tmin', n, -90, 60);
     const tmax = cell(cells[col.tmax], 'tmax', n, -90, 60);
     if (tmin !== null && tmax !== null && tmin > tmax) throw new CliError(`stdin line ${n}: tmin: ${tmin} is above tmax ${tmax}`);
