@@ -94,6 +94,17 @@ describe('the District file', () => {
     expect(rows[3]).toEqual(['Week 22', '42', '3', '9', '18', '9']);
   });
 
+  it('when some of a week’s surveys did not count pupae, then the pupa index says how many surveys it rests on, and a week with none shows a dash', async () => {
+    const { c } = await open();
+    const larval = [...c.querySelectorAll('figure[data-chart]')].find((f) => f.getAttribute('data-chart') === 'Larval indices')!;
+    await click([...larval.querySelectorAll('button')].find((b) => b.textContent === 'Show as table')!);
+    const header = [...larval.querySelectorAll('thead th')].map((x) => x.textContent);
+    expect(header[header.length - 1]).toBe('Pupa index (pupae per 100 houses)');
+    const rows = [...larval.querySelectorAll('tbody tr')].map((r) => [...r.children].map((x) => x.textContent));
+    expect(rows[0][rows[0].length - 1]).toBe('0.4 (pupae counted in 2 of 3 surveys)');
+    expect(rows[1][rows[1].length - 1]).toBe('—');
+  });
+
   it('when another season is chosen, then the file of that season is fetched', async () => {
     const { c, router, seasons } = await open();
     expect(seasons).toEqual([null]);
