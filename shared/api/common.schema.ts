@@ -29,7 +29,7 @@ export type ErrorBody = z.infer<typeof errorBody>;
 /**
  * A list of ids (or of items keyed by an id) that refuses repeats: the same id twice is a 400 naming
  * the list and the id, rather than a unique-index failure (500) in the database. Every id list of the
- * API's bodies is one of these (`districtIds`, subscription districts, profile ids, actions, years).
+ * API's bodies is one of these (`districtIds`, subscription districts, profile ids, flag actions).
  */
 export function uniqueArray<T extends z.ZodType>(
   item: T,

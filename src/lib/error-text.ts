@@ -65,7 +65,6 @@ const EXACT: Record<string, string> = {
   'is in the future': 'future',
   'cannot be in the future': 'future',
   'must be a date (YYYY-MM-DD)': 'date',
-  'must be a list without repeats': 'noRepeats',
 };
 
 const PATTERNS: { re: RegExp; key: string; values: (m: RegExpExecArray) => Record<string, string> }[] = [
@@ -76,6 +75,7 @@ const PATTERNS: { re: RegExp; key: string; values: (m: RegExpExecArray) => Recor
   { re: /^is not a known fields?: (.+)$/, key: 'unknownFields', values: (m) => ({ names: m[1] }) },
   { re: /^must be between (\d{4}-\d{2}-\d{2}) and (\d{4}-\d{2}-\d{2})$/, key: 'dateRange', values: (m) => ({ from: m[1], to: m[2] }) },
   { re: /^lists (.+) more than once$/, key: 'repeated', values: (m) => ({ value: m[1] }) },
+  { re: /^lists too many \(([\d,]+) at most\)$/, key: 'tooMany', values: (m) => ({ n: m[1] }) },
 ];
 
 /** The `app:validation` key (and values) of a known English predicate, or null. */
