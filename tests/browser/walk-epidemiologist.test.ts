@@ -1,7 +1,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startDemoBrowser, type LiveServer } from '../support/demo-browser';
-import { walkAs } from '../support/walk';
+import { WALK_TIMEOUT, walkAs } from '../support/walk';
 
 /*
  * The epidemiologist's week, through the Case ledger: counts typed into the grid and into the form (the
@@ -105,5 +105,5 @@ describe("the epidemiologist's week", () => {
 
     await w.close();
     w.guard.assertClean();
-  });
+  }, WALK_TIMEOUT);
 });

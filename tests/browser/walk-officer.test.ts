@@ -1,7 +1,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startDemoBrowser, type LiveServer } from '../support/demo-browser';
-import { walkAs } from '../support/walk';
+import { WALK_TIMEOUT, walkAs } from '../support/walk';
 
 /*
  * The health officer's week, through the screens: the Ladder, a District file, a weather file uploaded
@@ -121,5 +121,5 @@ describe("the health officer's week", () => {
 
     await w.close();
     w.guard.assertClean();
-  });
+  }, WALK_TIMEOUT);
 });

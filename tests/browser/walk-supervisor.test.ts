@@ -4,7 +4,7 @@ import { DEMO_PASSWORD } from '../../sample/demo-region';
 import { ACTION_IDS } from '../../shared/api/flags.schema';
 import { startDemoBrowser, type LiveServer } from '../support/demo-browser';
 import { signedInAgent } from '../support/factories';
-import { walkAs } from '../support/walk';
+import { WALK_TIMEOUT, walkAs } from '../support/walk';
 
 /*
  * The supervisor's week: the Sign-off queue (one flag approved as proposed, one rejected with a reason),
@@ -84,5 +84,5 @@ describe("the supervisor's week", () => {
 
     await w.close();
     w.guard.assertClean();
-  });
+  }, WALK_TIMEOUT);
 });

@@ -15,6 +15,14 @@ import type { LiveServer } from './demo-browser';
 
 const SHOT_ROOT = fileURLToPath(new URL('../../.local/walks/', import.meta.url));
 
+/**
+ * A walk is a whole week of steps in one test, each step waiting on what the screen shows; the browser
+ * project's 60 s per test is meant for one screen. On an idle machine a walk takes 10–25 s; the two cores
+ * shared with other test runs can make it several times slower, so the walk gets room for that, and
+ * each step still fails on its own 30 s wait.
+ */
+export const WALK_TIMEOUT = 150_000;
+
 export const PHONE = { viewport: { width: 360, height: 740 }, deviceScaleFactor: 1, isMobile: true, hasTouch: true } as const;
 export const DESKTOP = { viewport: { width: 1280, height: 800 }, deviceScaleFactor: 1, isMobile: false, hasTouch: false } as const;
 
