@@ -82,6 +82,9 @@ describe("the epidemiologist's week", () => {
     await panel.getByText('Correct 7 to 9').waitFor();
     await panel.getByLabel('Reason for the correction').fill('Clinic re-sent its tally: two cases were missed');
     await panel.getByRole('button', { name: 'Save the correction' }).click();
+    // The panel closes on saving; the confirmation stays under the grid (it used to vanish with the panel).
+    await page.getByText('Saved: 9 cases.').waitFor();
+    await w.shot('corrected');
     await expect.poll(() => countOf('HV-02', 'DENV', cy, cw)).toMatchObject({ cases: 9, version: 2 });
     await expect.poll(() => cell('HV-02', thisWeek).inputValue()).toBe('9');
     await cell('HV-02', thisWeek).focus();
