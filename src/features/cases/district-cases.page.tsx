@@ -133,7 +133,9 @@ export function DistrictCasesPage() {
         </div>
         <div className="space-y-6 self-start">
           <CautionsPanel />
-          {data && (data.canEnter || me.role === 'admin') ? <EpidemicYearsForm key={`${data.disease.id}-${data.excludedYears.join()}`} data={data} /> : null}
+          {/* Keyed by district and disease only: a key holding the saved years remounted the form when its
+              own save came back, and the "Left out: …" confirmation vanished before it could be read. */}
+          {data && (data.canEnter || me.role === 'admin') ? <EpidemicYearsForm key={`${data.district.id}-${data.disease.id}`} data={data} /> : null}
         </div>
       </div>
     </section>

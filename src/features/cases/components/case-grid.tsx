@@ -23,6 +23,8 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
   const put = usePutCount();
   const [selected, setSelected] = useState<Selected | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
+  // A saved correction closes its panel, so its confirmation is shown here, under the grid.
+  const [saved, setSaved] = useState<string | null>(null);
   // Bumped when the panel closes, so a correction typed but not saved goes back to the recorded value.
   const [epoch, setEpoch] = useState(0);
 
@@ -90,7 +92,10 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
                           type="text"
                           inputMode="numeric"
                           defaultValue={cell.count?.cases ?? ''}
-                          onFocus={() => setSelected({ row, index })}
+                          onFocus={() => {
+                            setSelected({ row, index });
+                            setSaved(null);
+                          }}
                           onBlur={(e) => void save(row, index, e.currentTarget.value)}
                           onKeyDown={(e: KeyboardEvent<HTMLInputElement>) => {
                             if (e.key === 'Enter') e.currentTarget.blur();
@@ -117,6 +122,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
         {t('grid.help')}
       </p>
       {problem ? <FormMessage kind="error">{problem}</FormMessage> : null}
+      {saved ? <FormMessage kind="success">{saved}</FormMessage> : null}
       {selected ? (
         <CellPanel
           key={`${selected.row.district.id}-${selected.index}-${selected.pending ?? ''}`}
@@ -125,6 +131,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
           week={grid.weeks[selected.index]}
           today={today}
           role={me.role}
+          onSaved={setSaved}
           onDone={() => {
             setSelected(null);
             setEpoch((e) => e + 1);
@@ -142,6 +149,7 @@ function CellPanel({
   today,
   role,
   onDone,
+  onSaved,
 }: {
   grid: GridResponse;
   selected: Selected;
@@ -149,6 +157,7 @@ function CellPanel({
   today: string;
   role: string;
   onDone: () => void;
+  onSaved: (text: string) => void;
 }) {
   const { t, weekLabel, weekSpan } = useCaseFormat();
   const { row, index, pending } = selected;
@@ -168,7 +177,7 @@ function CellPanel({
         districtId: row.district.id,
         body: { diseaseId: grid.disease.id, year: cell.year, week: cell.week, cases: pending, reason, source: 'grid' },
       });
-      setMessage({ kind: 'success', text: t('grid.savedCases', { cases: pending }) });
+      onSaved(t('grid.savedCases', { cases: pending }));
       onDone();
     } catch (error) {
       setMessage({

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import { Controller, useForm, type FieldError } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -27,6 +27,12 @@ export function SurveyFormCard({ districts }: { districts: DistrictRef[] }) {
     error ? (error.type === 'invalid_type' ? t('validation.wholeNumberOrZero') : surveyMessage(t, label, error.message)) : undefined;
   const textError = (label: string, error: FieldError | undefined) => surveyMessage(t, label, error?.message);
   const [message, setMessage] = useState<{ kind: 'success' | 'info' | 'error'; text: string } | null>(null);
+  // The outcome is shown above the form; on a phone the save button is a long scroll below it, so the
+  // message is brought into view (a worker who saw nothing happen would fill the survey in again).
+  const messageRef = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (message) messageRef.current?.scrollIntoView?.({ block: 'nearest' });
+  }, [message]);
   const {
     register,
     handleSubmit,
@@ -73,7 +79,11 @@ export function SurveyFormCard({ districts }: { districts: DistrictRef[] }) {
       <h2 id="survey-form-title" className="section-title">
         {t('form.title')}
       </h2>
-      {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
+      {message ? (
+        <div ref={messageRef}>
+          <FormMessage kind={message.kind}>{message.text}</FormMessage>
+        </div>
+      ) : null}
       <SelectField label={t('form.district')} error={textError(t('form.district'), errors.districtId)} {...register('districtId')}>
         {districts.map((d) => (
           <option key={d.id} value={d.id}>
