@@ -4,7 +4,11 @@
  * docs/weather-intake.md; the server applies these on every path in (upload, feed, correction).
  */
 
+import { LIMITS as INPUT_LIMITS } from '../limits';
 import { type RainUnit, type TemperatureUnit, toCelsius, toMillimetres } from '../units';
+
+/** The longest value a row may hold (docs/security.md § Limits). */
+const CSV_FIELD_MAX = INPUT_LIMITS.CSV_FIELD_MAX_CHARS;
 
 export type TempUnit = TemperatureUnit;
 export type { RainUnit };
@@ -149,6 +153,7 @@ export const REJECT_RULES = {
   'rain-limits': `Rainfall must be between 0 and ${LIMITS.rainMaxMm} mm in a day.`,
   'column-count': 'This row does not have as many fields as the header.',
   'duplicate-row': 'The same station and date appear earlier in this file; the first one was kept.',
+  'field-too-long': `A value is longer than ${CSV_FIELD_MAX.toLocaleString('en')} characters, so the row was not read.`,
 } as const;
 export type RejectRule = keyof typeof REJECT_RULES;
 
