@@ -2,12 +2,16 @@ import { LIMITS } from '../../shared/limits';
 
 export { LIMITS };
 
+const CUT = /… \[[\d,]+ more characters cut\]$/;
+
 /**
  * `text` cut to `max` characters, ending with a marker that says how many were cut; null and short
  * texts are returned as they are. Never splits a surrogate pair.
  */
 export function capText<T extends string | null | undefined>(text: T, max: number = LIMITS.MESSAGE_MAX_CHARS): T {
   if (typeof text !== 'string' || text.length <= max) return text;
+  // Already cut to this length (the marker is at most 40 characters): keep its count of what was cut.
+  if (text.length <= max + 40 && CUT.test(text) && text.length - text.lastIndexOf('… [') <= 40) return text;
   let end = max;
   const code = text.charCodeAt(end - 1);
   if (code >= 0xd800 && code <= 0xdbff) end--;
