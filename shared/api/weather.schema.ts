@@ -102,8 +102,8 @@ export const uploadDto = z.object({
   issueCount: z.number(),
   message: z.string().nullable(),
   /** Why the upload was refused or failed, as a stable code, and the values it names (a line, a limit). */
-  reasonCode: z.string().nullable(),
-  reasonParams: z.record(z.string(), z.union([z.string(), z.number()])).nullable(),
+  reasonCode: z.string().nullable().default(null),
+  reasonParams: z.record(z.string(), z.union([z.string(), z.number()])).nullable().default(null),
   createdAt: z.string(),
   finishedAt: z.string().nullable(),
 });
