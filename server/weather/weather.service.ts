@@ -139,6 +139,13 @@ export class WeatherService {
     return { uploads: list.map((u) => presentUpload(u, counts.get(u.id) ?? 0)) };
   }
 
+  /** A feed pull's upload; an answer refused as a whole is a 422 with its reason, as for a file. */
+  async pulled(id: string) {
+    const result = await this.upload(id);
+    if (result.status === 'refused') throw refusal(result);
+    return result;
+  }
+
   /** One intake's state. Reading it also marks failed an intake whose process died (see sweepStale). */
   async upload(id: string) {
     await this.intake.sweepStale();
