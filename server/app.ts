@@ -12,6 +12,8 @@ import { districtsRoutes } from './districts/districts.routes';
 import { healthRoutes } from './health/health.routes';
 import { csrfGuard } from './http/csrf';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
+import { jsonBody } from './http/json-body';
+import { LIMITS } from './http/limits';
 import { requestLog } from './http/request-log';
 import { mountRoutes, type RouteDef } from './http/route';
 import { usersRoutes } from './users/users.routes';
@@ -77,9 +79,9 @@ export function createApp(ctx: AppContext): BroodcastApp {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
-  // District boundaries can be large GeoJSON; every other body stays under 1 MB.
-  api.use('/districts/:id/boundary', express.json({ limit: '10mb', strict: true }));
-  api.use(express.json({ limit: '1mb', strict: true }));
+  // District boundaries can be large GeoJSON; every other body is read by its own route, under 1 MB
+  // (server/http/route.ts), and every JSON body's nesting is bounded before it is parsed.
+  api.use('/districts/:id/boundary', jsonBody(LIMITS.JSON_BOUNDARY_MAX_BYTES));
   api.use(cookieParser());
   api.use(sessionMiddleware(auth));
   mountRoutes(api, routes);

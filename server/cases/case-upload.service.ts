@@ -6,6 +6,7 @@ import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import type { Principal } from '../auth/principal';
 import { HttpError } from '../http/errors';
+import { capText, LIMITS } from '../http/limits';
 import type { CaseLedgerService } from './case-ledger.service';
 
 /** Columns of the case upload (docs/case-ledger.md): district code, epidemiological year and week, disease code, cases. */
@@ -42,8 +43,9 @@ export class CaseUploadService {
   /** Read a CSV of weekly counts; all rows are written in one transaction, or none. The same file twice changes nothing. */
   async upload(actor: Principal, file: { buffer: Buffer; originalname: string }, reason?: string): Promise<UploadReport> {
     const problems: UploadProblem[] = [];
+    // Every quoted value and reason capped (docs/security.md § Limits): the report stays small whatever the file holds.
     const add = (p: UploadProblem) => {
-      problems.push(p);
+      problems.push({ ...p, column: capText(p.column, LIMITS.VALUE_MAX_CHARS), value: capText(p.value, LIMITS.VALUE_MAX_CHARS), reason: capText(p.reason) });
     };
     const parsed: ParsedRow[] = [];
     let rows = 0;
@@ -62,6 +64,8 @@ export class CaseUploadService {
         skip_empty_lines: true,
         relax_column_count: true,
         info: true,
+        // A line past the limit ends the read with a problem naming it, instead of buffering it whole.
+        max_record_size: LIMITS.CSV_LINE_MAX_BYTES,
         columns: (header: string[]) => {
           const columns = header.map((h) => h.trim().toLowerCase());
           const missing = UPLOAD_COLUMNS.filter((c) => !columns.includes(c));
@@ -89,6 +93,12 @@ export class CaseUploadService {
         const value = (c: (typeof UPLOAD_COLUMNS)[number]) => record[c] ?? '';
         const rowProblems: UploadProblem[] = [];
         const bad = (column: string, reason: string) => rowProblems.push({ row, column, value: record[column] ?? null, reason });
+        const long = UPLOAD_COLUMNS.find((c) => (record[c]?.length ?? 0) > LIMITS.CSV_FIELD_MAX_CHARS);
+        if (long) {
+          bad(long, `is longer than ${LIMITS.CSV_FIELD_MAX_CHARS.toLocaleString('en')} characters`);
+          rowProblems.forEach(add);
+          continue;
+        }
 
         const district = districtByCode.get(value('district').toUpperCase());
         if (!value('district')) bad('district', 'is empty');

@@ -10,7 +10,8 @@ function fromKnown(err: any, limitBytes?: number): HttpError | null {
   if (err?.type === 'entity.parse.failed') return new HttpError(400, 'malformed_json', 'The body is not valid JSON.');
   if (err?.type === 'entity.too.large')
     return new HttpError(413, 'payload_too_large',
-      typeof err.limit === 'number' ? `The body is larger than the limit of ${formatBytes(err.limit)}.` : 'The body is too large.');
+      typeof err.limit === 'number' ? `The body is larger than the limit of ${formatBytes(err.limit)}.` : 'The body is too large.',
+      undefined, typeof err.limit === 'number' ? { limitBytes: err.limit } : undefined);
   if (err?.type === 'encoding.unsupported' || err?.type === 'charset.unsupported')
     return new HttpError(415, 'unsupported_encoding', 'The body encoding is not supported.');
   if (err?.name === 'MulterError' && err.code === 'LIMIT_FILE_SIZE' && limitBytes) {
@@ -51,7 +52,13 @@ export function errorMiddleware(logger: Logger): ErrorRequestHandler {
     }
     if (res.headersSent) return;
     res.status(httpError.status).json({
-      error: { code: httpError.code, message: httpError.message, ...(httpError.fields ? { fields: httpError.fields } : {}) },
+      error: {
+        code: httpError.code,
+        message: httpError.message,
+        ...(httpError.params ? { params: httpError.params } : {}),
+        ...(httpError.fields ? { fields: httpError.fields } : {}),
+        ...(httpError.fieldsNotListed > 0 ? { fieldsNotListed: httpError.fieldsNotListed } : {}),
+      },
     });
   };
 }

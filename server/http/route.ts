@@ -3,6 +3,7 @@ import type { ZodType } from 'zod';
 import type { Role } from '../../shared/roles';
 import type { Principal } from '../auth/principal';
 import { forbidden, unauthorized } from './errors';
+import { jsonBody } from './json-body';
 import { parseInput } from './validate';
 
 /** Who may call a route: anybody, any signed-in user, or the listed roles. Every route declares it. */
@@ -42,6 +43,9 @@ function checkAccess(access: Access, principal: Principal | null): void {
 
 /** Mount route definitions on a router; the caller keeps the list as the app's route table. */
 export function mountRoutes(router: Router, routes: RouteDef[]): void {
+  // Only a route that declares a body reads one, and only once its access is checked: a body sent to
+  // any other route is never parsed (docs/security.md § Limits).
+  const json = jsonBody();
   for (const route of routes) {
     const run = async (req: Request, res: Response) => {
       const principal = (req as Request & { principal?: Principal | null }).principal ?? null;
@@ -66,6 +70,6 @@ export function mountRoutes(router: Router, routes: RouteDef[]): void {
         next(err);
       }
     };
-    router[route.method](route.path, guard, ...(route.before ?? []), run);
+    router[route.method](route.path, guard, ...(route.body ? [json] : []), ...(route.before ?? []), run);
   }
 }

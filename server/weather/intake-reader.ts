@@ -1,6 +1,8 @@
 import {
   type CheckedRow, checkRow, type ColumnIndex, type RainUnit, readHeader, REJECT_RULES, type RowContext, type RowIssue, type TempUnit,
 } from '../../shared/weather/qc';
+import { LIMITS } from '../../shared/limits';
+import { capText } from '../http/limits';
 import { IntakeFailure, type IntakeSource, NOTHING_KEPT } from './intake-source';
 
 /** The stations as the row checks need them, in a list whose positions name them in a batch. */
@@ -92,6 +94,7 @@ export class RecordChecker {
       this.shortLast = rec;
       return;
     }
+    if (this.overLong(rec)) return;
     const b = this.batch;
     this.rowIssues.length = 0;
     const row = checkRow(rec, this.col!, this.rowNo, this.ctx, this.rowIssues, this.scratch);
@@ -123,7 +126,7 @@ export class RecordChecker {
     if (!this.header) throw new IntakeFailure('empty_file', `The file is empty. ${NOTHING_KEPT} Choose the CSV file with the header station, date, tmin, tmax.`);
     if (this.shortLast) {
       if (!endedWithNewline)
-        throw new IntakeFailure('truncated_file', `The file ends in the middle of row ${this.rowNo} (it has ${this.shortLast.length} of ${this.header.length} fields): it looks cut off. ${NOTHING_KEPT} Upload the complete file.`);
+        throw new IntakeFailure('truncated_file', `The file ends in the middle of row ${this.rowNo} (it has ${this.shortLast.length} of ${this.header.length} fields): it looks cut off. ${NOTHING_KEPT} Upload the complete file.`, { line: this.rowNo });
       this.rejectShort(this.shortLast, this.rowNo);
       this.shortLast = null;
     }
@@ -141,9 +144,26 @@ export class RecordChecker {
     this.emit(b);
   }
 
+  /**
+   * A row holding a value longer than LIMITS.CSV_FIELD_MAX_CHARS is rejected as a whole (its other values
+   * are not read), and the report quotes the value's start and says how much was cut.
+   */
+  private overLong(rec: string[]): boolean {
+    let k = 0;
+    while (k < rec.length && rec[k].length <= LIMITS.CSV_FIELD_MAX_CHARS) k++;
+    if (k === rec.length) return false;
+    this.batch.rejected++;
+    this.note({
+      rowNumber: this.rowNo, station: capText(rec[0] ?? null, LIMITS.VALUE_MAX_CHARS), date: capText(rec[1] ?? null, LIMITS.VALUE_MAX_CHARS),
+      column: capText(this.header![k], LIMITS.VALUE_MAX_CHARS), value: capText(rec[k], LIMITS.VALUE_MAX_CHARS), severity: 'rejected', rule: 'field-too-long',
+      reason: `${REJECT_RULES['field-too-long']} (${rec[k].length.toLocaleString('en')} characters).`,
+    });
+    return true;
+  }
+
   private rejectShort(rec: string[], n: number) {
     this.batch.rejected++;
-    this.note({ rowNumber: n, station: rec[0] ?? null, date: rec[1] ?? null, column: '(row)', value: rec.join(',').slice(0, 200),
+    this.note({ rowNumber: n, station: capText(rec[0] ?? null, LIMITS.VALUE_MAX_CHARS), date: capText(rec[1] ?? null, LIMITS.VALUE_MAX_CHARS), column: '(row)', value: capText(rec.join(','), LIMITS.VALUE_MAX_CHARS),
       severity: 'rejected', rule: 'column-count', reason: `${REJECT_RULES['column-count']} (${rec.length} of ${this.header!.length}).` });
   }
 }

@@ -3,7 +3,9 @@ import type { EntityManager } from 'typeorm';
 import {
   checkRow, type RainUnit, readHeader, type RowContext, type RowIssue, type StationRef, type TempUnit,
 } from '../../shared/weather/qc';
+import { LIMITS } from '../../shared/limits';
 import type { AppContext } from '../app-context';
+import { capText } from '../http/limits';
 import { recordAudit } from '../audit/audit.repository';
 import { districtsUsingStations, recomputeDistrictSeries } from './district-series.repository';
 import {
@@ -66,16 +68,21 @@ export class WeatherIntakeService {
   }
 
   /** Check and load a file written by multer, then delete it. Never throws: the upload row tells the outcome. */
-  async runFile(upload: WeatherUploadEntity, path: string): Promise<void> {
+  async runFile(upload: WeatherUploadEntity, path: string, onHeader?: () => void): Promise<void> {
     try {
-      await this.run(upload, csvFileSource(path));
+      await this.run(upload, csvFileSource(path), onHeader);
     } finally {
       await unlink(path).catch(() => undefined);
     }
   }
 
-  /** Run an intake to its end; the upload row says done or failed (and why). Never throws. */
-  async run(upload: WeatherUploadEntity, source: IntakeSource): Promise<void> {
+  /**
+   * Run an intake to its end; the upload row says done, refused (and why) or failed. Never throws.
+   * `onHeader` is called once the file's header is read and accepted: from then on the file is not
+   * refused as a whole for its form (only for a later line past the limit, a cut-off end or bad CSV).
+   */
+  async run(upload: WeatherUploadEntity, source: IntakeSource, onHeader?: () => void): Promise<void> {
+    if (onHeader) source = afterHeader(source, onHeader);
     const { ds, config, logger } = this.ctx;
     const progress = { rows: 0, bytes: 0 };
     let beatInFlight: Promise<unknown> = Promise.resolve();
@@ -98,7 +105,7 @@ export class WeatherIntakeService {
       await stopBeat();
       await qr.query(
         `UPDATE weather_uploads SET status = 'done', rows_processed = $2, rows_accepted = $3, rows_flagged = $4, rows_rejected = $5,
-                rows_replaced = $6, bytes_processed = bytes_total, message = $7, heartbeat_at = now(), finished_at = now() WHERE id = $1`,
+                rows_replaced = $6, bytes_processed = bytes_total, message = $7, heartbeat_at = now(), finished_at = clock_timestamp() WHERE id = $1`,
         [upload.id, result.processed, result.accepted, result.flagged, result.rejected, result.replaced, result.message],
       );
       await recordAudit(qr.manager, {
@@ -110,13 +117,15 @@ export class WeatherIntakeService {
       await stopBeat();
       if (qr.isTransactionActive) await qr.rollbackTransaction().catch(() => undefined);
       const err = raw as Error;
-      const known = err instanceof IntakeFailure;
-      if (!known) logger.error({ err, uploadId: upload.id }, 'weather intake failed');
-      const message = known ? err.message : `The data could not be loaded (${(err as Error).message}). ${NOTHING_KEPT}`;
+      // A file that cannot be loaded is refused with its reason (a code the client words, and its
+      // parameters); any other error is the server's fault: logged, and the upload says only that.
+      const refused = err instanceof IntakeFailure;
+      if (!refused) logger.error({ err, uploadId: upload.id }, 'weather intake failed');
+      const message = refused ? capText(err.message) : `The data could not be loaded because of a fault on the server (it is logged). ${NOTHING_KEPT}`;
       await ds.query(
-        `UPDATE weather_uploads SET status = 'failed', message = $2, rows_processed = $3, rows_accepted = 0, rows_flagged = 0,
-                rows_replaced = 0, finished_at = now() WHERE id = $1 AND status = 'processing'`,
-        [upload.id, message, progress.rows],
+        `UPDATE weather_uploads SET status = $4, message = $2, reason_code = $5, reason_params = $6, rows_processed = $3, rows_accepted = 0,
+                rows_flagged = 0, rows_replaced = 0, finished_at = clock_timestamp() WHERE id = $1 AND status = 'processing'`,
+        [upload.id, message, progress.rows, refused ? 'refused' : 'failed', refused ? err.code : 'intake_error', refused ? err.params : {}],
       ).catch((e) => logger.error({ err: e }, 'could not mark the upload failed'));
     } finally {
       await qr.release();
@@ -323,7 +332,7 @@ export class WeatherIntakeService {
   /** Mark failed every upload whose process stopped touching it (a crash or a kill mid-load). */
   async sweepStale(): Promise<number> {
     const rows = await this.ctx.ds.query(
-      `UPDATE weather_uploads SET status = 'failed', finished_at = now(),
+      `UPDATE weather_uploads SET status = 'failed', reason_code = 'server_stopped', finished_at = now(),
               message = 'The server stopped while checking this file, so nothing from it was saved. Upload it again.'
         WHERE status = 'processing' AND heartbeat_at < now() - make_interval(secs => $1) RETURNING id`,
       [this.ctx.config.WEATHER_UPLOAD_STALE_SECONDS],
@@ -332,14 +341,32 @@ export class WeatherIntakeService {
   }
 }
 
+/** The source, calling `then` once its first record (the header) has been taken without an error. */
+function afterHeader(source: IntakeSource, then: () => void): IntakeSource {
+  let seen = false;
+  return {
+    ...source,
+    read: (each) => source.read((rec) => {
+      each(rec);
+      if (!seen) {
+        seen = true;
+        then();
+      }
+    }),
+  };
+}
+
+const short = (text: string | null) => capText(text, LIMITS.VALUE_MAX_CHARS);
+
 async function insertIssues(manager: EntityManager, uploadId: string, issues: RowIssue[]) {
   for (let i = 0; i < issues.length; i += 5000) {
     const part = issues.slice(i, i + 5000);
     await manager.query(
       `INSERT INTO weather_upload_issues (upload_id, row_number, station, date, "column", value, severity, rule, reason)
        SELECT $1, * FROM unnest($2::int[], $3::text[], $4::text[], $5::text[], $6::text[], $7::text[], $8::text[], $9::text[])`,
-      [uploadId, part.map((x) => x.rowNumber), part.map((x) => x.station), part.map((x) => x.date), part.map((x) => x.column),
-        part.map((x) => x.value), part.map((x) => x.severity), part.map((x) => x.rule), part.map((x) => x.reason)],
+      // Every stored text capped (LIMITS.VALUE_MAX_CHARS, MESSAGE_MAX_CHARS), marked with what was cut.
+      [uploadId, part.map((x) => x.rowNumber), part.map((x) => short(x.station)), part.map((x) => short(x.date)), part.map((x) => short(x.column)),
+        part.map((x) => short(x.value)), part.map((x) => x.severity), part.map((x) => short(x.rule)), part.map((x) => capText(x.reason))],
     );
   }
 }

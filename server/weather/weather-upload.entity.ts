@@ -1,6 +1,7 @@
 import { Check, Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
 
-export type UploadStatus = 'processing' | 'done' | 'failed';
+/** done: loaded; refused: the file cannot be loaded (reasonCode says why); failed: a fault on the server's side. */
+export type UploadStatus = 'processing' | 'done' | 'failed' | 'refused';
 export type UploadSource = 'upload' | 'feed' | 'correction';
 
 /**
@@ -8,7 +9,7 @@ export type UploadSource = 'upload' | 'feed' | 'correction';
  * transaction, so the progress (rows processed, heartbeat) is visible while the load runs.
  */
 @Entity({ name: 'weather_uploads' })
-@Check('weather_uploads_status_check', "status IN ('processing', 'done', 'failed')")
+@Check('weather_uploads_status_check', "status IN ('processing', 'done', 'failed', 'refused')")
 @Check('weather_uploads_source_check', "source IN ('upload', 'feed', 'correction')")
 @Check('weather_uploads_units_check', "temp_unit IN ('C', 'F') AND rain_unit IN ('mm', 'in')")
 @Index('weather_uploads_status_idx', ['status', 'heartbeatAt'])
@@ -54,8 +55,17 @@ export class WeatherUploadEntity {
   @Column({ name: 'rows_replaced', type: 'integer', default: 0 })
   rowsReplaced: number;
 
+  /** Capped English text (LIMITS.MESSAGE_MAX_CHARS); the client words a refusal from reasonCode instead. */
   @Column({ type: 'text', nullable: true })
   message: string | null;
+
+  /** Why a refused upload was refused, as a stable code (binary_file, bad_header, line_too_long, …). */
+  @Column({ name: 'reason_code', type: 'text', nullable: true })
+  reasonCode: string | null;
+
+  /** The values the reason names (a line number, a limit). */
+  @Column({ name: 'reason_params', type: 'jsonb', nullable: true })
+  reasonParams: Record<string, string | number> | null;
 
   @Column({ name: 'created_by', type: 'uuid', nullable: true })
   createdBy: string | null;

@@ -1,5 +1,6 @@
 import { WeatherIntake1796165205633 } from './migrations/1796165205633-WeatherIntake';
 import { WeatherStationYears1796207332107 } from './migrations/1796207332107-WeatherStationYears';
+import { WeatherUploadRefused1796262400000 } from './migrations/1796262400000-WeatherUploadRefused';
 
 /** Reviewed migrations of the weather feature (TypeORM orders all migrations by their timestamp). */
-export const weatherMigrations: Function[] = [WeatherIntake1796165205633, WeatherStationYears1796207332107];
+export const weatherMigrations: Function[] = [WeatherIntake1796165205633, WeatherStationYears1796207332107, WeatherUploadRefused1796262400000];

@@ -1,4 +1,5 @@
 import type { StationDto, UploadDto } from '../../shared/api/weather.schema';
+import { capText } from '../http/limits';
 import type { WeatherUploadEntity } from './weather-upload.entity';
 
 export interface StationRow {
@@ -38,7 +39,9 @@ export const presentUpload = (u: WeatherUploadEntity, issueCount: number): Uploa
   rowsRejected: u.rowsRejected,
   rowsReplaced: u.rowsReplaced,
   issueCount,
-  message: u.message,
+  message: capText(u.message),
+  reasonCode: u.reasonCode ?? null,
+  reasonParams: u.reasonParams ?? null,
   createdAt: u.createdAt.toISOString(),
   finishedAt: u.finishedAt ? u.finishedAt.toISOString() : null,
 });

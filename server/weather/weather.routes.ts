@@ -79,7 +79,7 @@ export function weatherRoutes(ctx: AppContext) {
     }),
     defineRoute({
       method: 'post', path: '/weather/feed/pull', access: EDITORS, status: 201,
-      handler: async ({ principal }) => service.upload(await feed.pull(principal.userId)),
+      handler: async ({ principal }) => service.pulled(await feed.pull(principal.userId)),
     }),
     defineRoute({
       method: 'get', path: '/weather/districts/:id/series', access: 'signed-in', params: idParams, query: rangeQuery,

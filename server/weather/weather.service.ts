@@ -1,6 +1,6 @@
 import type { Response } from 'express';
 import type {
-  CorrectionBody, DistrictWeatherSource, IssueDto, StationCreateBody, StationUpdateBody,
+  CorrectionBody, DistrictWeatherSource, IssueDto, StationCreateBody, StationUpdateBody, UploadDto,
 } from '../../shared/api/weather.schema';
 import { fromCelsius, fromMillimetres, type RainUnit, type TemperatureUnit, toCelsius, toMillimetres } from '../../shared/units';
 import { csvCell, issueValueUnit } from '../../shared/weather/qc';
@@ -8,7 +8,7 @@ import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import { assertDistrictVisible, type Principal, seesAllDistricts } from '../auth/principal';
 import { DistrictEntity } from '../districts/district.entity';
-import { badRequest, conflict, forbidden, notFound } from '../http/errors';
+import { badRequest, conflict, forbidden, notFound, unprocessable } from '../http/errors';
 import { recomputeDistrictSeries } from './district-series.repository';
 import { refreshAssignments } from './weather-geo';
 import { recordsSource, WeatherIntakeService } from './weather-intake.service';
@@ -116,10 +116,20 @@ export class WeatherService {
       source: 'upload', fileName: file.originalname.slice(0, 200), tempUnit: form.tempUnit, rainUnit: form.rainUnit,
       bytesTotal: file.size, actorId: actor.userId,
     });
-    const done = this.intake.runFile(upload, file.path);
+    // Without ?wait the answer still waits for the header to be read, so a file refused for its form
+    // (binary, empty, a wrong header, a first line past the limit) is a 422 at once; a refusal found
+    // later is the upload's status (refused, with the reason), which the Intake screen follows.
+    let headerRead!: () => void;
+    const started = new Promise<void>((resolve) => (headerRead = resolve));
+    const done = this.intake.runFile(upload, file.path, headerRead);
     if (wait) await done;
-    else done.catch((err) => this.ctx.logger.error({ err }, 'weather upload crashed'));
-    return this.upload(upload.id);
+    else {
+      done.catch((err) => this.ctx.logger.error({ err }, 'weather upload crashed'));
+      await Promise.race([done, started]);
+    }
+    const result = await this.upload(upload.id);
+    if (result.status === 'refused') throw refusal(result);
+    return result;
   }
 
   async uploads() {
@@ -127,6 +137,13 @@ export class WeatherService {
     const list = await this.ctx.ds.getRepository(WeatherUploadEntity).find({ order: { createdAt: 'DESC' }, take: 50 });
     const counts = await this.repo.issueCounts(list.map((u) => u.id));
     return { uploads: list.map((u) => presentUpload(u, counts.get(u.id) ?? 0)) };
+  }
+
+  /** A feed pull's upload; an answer refused as a whole is a 422 with its reason, as for a file. */
+  async pulled(id: string) {
+    const result = await this.upload(id);
+    if (result.status === 'refused') throw refusal(result);
+    return result;
   }
 
   /** One intake's state. Reading it also marks failed an intake whose process died (see sweepStale). */
@@ -184,7 +201,7 @@ export class WeatherService {
     });
     await this.intake.run(upload, recordsSource(header, rows));
     const result = await this.upload(upload.id);
-    if (result.status === 'failed') throw badRequest('correction_failed', result.message ?? 'The correction could not be saved.');
+    if (result.status === 'failed' || result.status === 'refused') throw badRequest('correction_failed', result.message ?? 'The correction could not be saved.');
     if (result.rowsRejected > 0) throw rowRejected((await this.issues(upload.id, 0, 50)).issues);
     return result;
   }
@@ -228,6 +245,10 @@ export interface IssueUnits {
 }
 
 const round2 = (x: number) => Math.round(x * 100) / 100;
+
+/** A weather file refused as a whole: 422 with the reason's code, its values and the upload's id. */
+const refusal = (u: UploadDto) =>
+  unprocessable(u.reasonCode ?? 'file_refused', u.message ?? 'The file was refused.', { ...(u.reasonParams ?? {}), uploadId: u.id });
 
 const rowRejected = (issues: { column: string; reason: string }[]) =>
   badRequest('row_rejected', `The corrected row was not accepted: ${issues.map((i) => i.reason).join(' ')}`,

@@ -21,7 +21,11 @@ export const errorBody = z.object({
   error: z.object({
     code: z.string(),
     message: z.string(),
+    /** What the message says, as data (a limit, a line number), for a client that words it itself. */
+    params: z.record(z.string(), z.union([z.string(), z.number(), z.boolean(), z.null()])).optional(),
     fields: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
+    /** Field problems past the listed ones (an answer lists at most 50). */
+    fieldsNotListed: z.number().optional(),
   }),
 });
 export type ErrorBody = z.infer<typeof errorBody>;

@@ -88,7 +88,8 @@ export const uploadDto = z.object({
   id: uuid,
   source: z.enum(['upload', 'feed', 'correction']),
   fileName: z.string().nullable(),
-  status: z.enum(['processing', 'done', 'failed']),
+  /** refused: the file cannot be loaded (reasonCode says why); failed: a fault on the server's side. */
+  status: z.enum(['processing', 'done', 'failed', 'refused']),
   tempUnit: z.enum(TEMPERATURE_UNITS),
   rainUnit: z.enum(RAIN_UNITS),
   bytesTotal: z.number(),
@@ -100,6 +101,9 @@ export const uploadDto = z.object({
   rowsReplaced: z.number(),
   issueCount: z.number(),
   message: z.string().nullable(),
+  /** Why the upload was refused or failed, as a stable code, and the values it names (a line, a limit). */
+  reasonCode: z.string().nullable().default(null),
+  reasonParams: z.record(z.string(), z.union([z.string(), z.number()])).nullable().default(null),
   createdAt: z.string(),
   finishedAt: z.string().nullable(),
 });

@@ -5,7 +5,11 @@
  */
 
 import { calendarDay, dateProblem, DATE_MAX_YEAR, DATE_MIN_YEAR } from '../api/date.schema';
+import { LIMITS as INPUT_LIMITS } from '../limits';
 import { type RainUnit, type TemperatureUnit, toCelsius, toMillimetres } from '../units';
+
+/** The longest value a row may hold (docs/security.md § Limits). */
+const CSV_FIELD_MAX = INPUT_LIMITS.CSV_FIELD_MAX_CHARS;
 
 export type TempUnit = TemperatureUnit;
 export type { RainUnit };
@@ -142,6 +146,7 @@ export const REJECT_RULES = {
   'rain-limits': `Rainfall must be between 0 and ${LIMITS.rainMaxMm} mm in a day.`,
   'column-count': 'This row does not have as many fields as the header.',
   'duplicate-row': 'The same station and date appear earlier in this file; the first one was kept.',
+  'field-too-long': `A value is longer than ${CSV_FIELD_MAX.toLocaleString('en')} characters, so the row was not read.`,
 } as const;
 export type RejectRule = keyof typeof REJECT_RULES;
 

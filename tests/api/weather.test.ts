@@ -201,21 +201,23 @@ describe('weather uploads', () => {
 });
 
 describe('bad files', () => {
-  const cases: [string, string | Buffer, RegExp][] = [
-    ['an empty file', '', /empty/],
-    ['a file with no header', 'X,2026-01-01,1,2\n', /header/],
-    ['the wrong columns', 'site,day,low,high\nA,2026-01-01,1,2\n', /missing station, date, tmin, tmax/],
-    ['a binary file', Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x00, 0x00, 0xff, 0xfe, 0x00, 0x10]), /not a text CSV/],
-    ['a header and no rows', 'station,date,tmin,tmax\n', /no rows/],
+  const cases: [string, string | Buffer, string, RegExp][] = [
+    ['an empty file', '', 'empty_file', /empty/],
+    ['a file with no header', 'X,2026-01-01,1,2\n', 'bad_header', /header/],
+    ['the wrong columns', 'site,day,low,high\nA,2026-01-01,1,2\n', 'bad_header', /missing station, date, tmin, tmax/],
+    ['a binary file', Buffer.from([0x50, 0x4b, 0x03, 0x04, 0x00, 0x00, 0xff, 0xfe, 0x00, 0x10]), 'binary_file', /not a text CSV/],
+    ['a header and no rows', 'station,date,tmin,tmax\n', 'no_rows', /no rows/],
   ];
-  for (const [what, body, message] of cases) {
-    it(`when the file is ${what}, then the upload fails with a clear message and nothing is written`, async () => {
+  for (const [what, body, code, message] of cases) {
+    it(`when the file is ${what}, then the upload is refused with 422 and its reason, the upload says refused, and nothing is written`, async () => {
       const before = await countRows(t.ds, ...WEATHER_TABLES);
       const res = await upload(body);
-      expect(res.status).toBe(201);
-      expect(res.body.status).toBe('failed');
-      expect(res.body.message).toMatch(message);
-      expect(res.body.message).toMatch(/Nothing from it was saved/);
+      expect(res.status).toBe(422);
+      expect(res.body.error.code).toBe(code);
+      expect(res.body.error.message).toMatch(message);
+      expect(res.body.error.message).toMatch(/Nothing from it was saved/);
+      const state = await officer.get(`/api/weather/uploads/${res.body.error.params.uploadId}`);
+      expect(state.body).toMatchObject({ status: 'refused', reasonCode: code });
       expect(await countRows(t.ds, ...WEATHER_TABLES)).toEqual(before);
     });
   }
@@ -225,11 +227,12 @@ describe('bad files', () => {
     const whole = csv(HEADER, month(station.code));
     const before = await countRows(t.ds, ...WEATHER_TABLES);
     const res = await upload(whole.slice(0, whole.length - 12));
-    expect(res.body.status).toBe('failed');
-    expect(res.body.message).toMatch(/cut off/);
+    expect(res.status).toBe(422);
+    expect(res.body.error).toMatchObject({ code: 'truncated_file', params: { line: 31 } });
+    expect(res.body.error.message).toMatch(/cut off/);
     expect(await countRows(t.ds, ...WEATHER_TABLES)).toEqual(before);
     const quoted = await upload(`${HEADER}\n${station.code},2026-01-01,1,2,"5`);
-    expect(quoted.body.message).toMatch(/cut off/);
+    expect(quoted.body.error.message).toMatch(/cut off/);
     expect(await countRows(t.ds, ...WEATHER_TABLES)).toEqual(before);
   });
 
@@ -245,8 +248,9 @@ describe('bad files', () => {
     const station = await makeStation(t.ds, { latitude: 44.6, longitude: 44.6 });
     const before = await countRows(t.ds, ...WEATHER_TABLES);
     const res = await upload(`${HEADER}\n${station.code},2026-01-01,1,2,50,0\n${station.code},2026-01-02,"1"x,2,50,0\n`);
-    expect(res.body.status).toBe('failed');
-    expect(res.body.message).toMatch(/not valid CSV near line 3.*Nothing from it was saved/);
+    expect(res.status).toBe(422);
+    expect(res.body.error).toMatchObject({ code: 'bad_csv', params: { line: 3 } });
+    expect(res.body.error.message).toMatch(/not valid CSV near line 3.*Nothing from it was saved/);
     expect(await countRows(t.ds, ...WEATHER_TABLES)).toEqual(before);
   });
 

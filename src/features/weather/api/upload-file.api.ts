@@ -32,7 +32,7 @@ export function uploadWeatherFile(
         else reject(new ApiError(xhr.status, 'invalid_response', 'The server sent an answer Broodcast could not read.'));
       } else {
         const e = body?.error;
-        reject(new ApiError(xhr.status, e?.code ?? `http_${xhr.status}`, e?.message ?? `The upload failed (HTTP ${xhr.status}).`, e?.fields ?? []));
+        reject(new ApiError(xhr.status, e?.code ?? `http_${xhr.status}`, e?.message ?? `The upload failed (HTTP ${xhr.status}).`, e?.fields ?? [], e?.params ?? {}));
       }
     };
     const form = new FormData();

@@ -4,11 +4,26 @@ import { useFormat } from '../../../i18n/format';
 import type { IssueDto, UploadDto } from '../../../../shared/api/weather.schema';
 import { FormMessage } from '../../../components/form';
 import { useUpload } from '../api/uploads.api';
+import { refusalText } from '../refusal-text';
 import { CorrectionForm } from './correction.form';
 import { IssuesTable } from './issues.table';
 import { ProgressBar } from './progress-bar';
 
 /** One intake: the server's checking progress while it runs, then the counts and the row report. */
+/** A refused (or failed) upload: why, in the interface language, and that nothing from it was saved. */
+function RefusalMessage({ upload: u }: { upload: UploadDto }) {
+  const { t, i18n } = useTranslation('weather');
+  const format = useFormat();
+  const said = refusalText(u.reasonCode, u.reasonParams, u.message, t, format, i18n.language);
+  return (
+    <FormMessage kind="error">
+      {u.status === 'refused' ? <span className="block font-bold">{t('refusal.title')}</span> : null}
+      {said ? said.text : u.message}
+      {said?.detail ? <span className="block text-xs">{said.detail}</span> : null}
+    </FormMessage>
+  );
+}
+
 export function UploadResult({ initial }: { initial: UploadDto }) {
   const { t } = useTranslation('weather');
   const { number: n } = useFormat();
@@ -28,7 +43,7 @@ export function UploadResult({ initial }: { initial: UploadDto }) {
           detail={t('result.rowsChecked', { rows: n(u.rowsProcessed) })}
         />
       ) : null}
-      {u.status === 'failed' ? <FormMessage kind="error">{u.message}</FormMessage> : null}
+      {u.status === 'refused' || u.status === 'failed' ? <RefusalMessage upload={u} /> : null}
       {u.status === 'done' ? (
         <>
           <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">

@@ -7,12 +7,14 @@ import { errorText } from '../../../lib/error-text';
 import { useFormat } from '../../../i18n/format';
 import { useUnits } from '../../../lib/units';
 import { uploadWeatherFile } from '../api/upload-file.api';
+import { refusalText } from '../refusal-text';
 import { ProgressBar } from './progress-bar';
 
 /** The weather file, its units, and the sending progress. Hands the new upload to the page, which follows its checks. */
 export function UploadForm({ onUploaded }: { onUploaded: (u: UploadDto) => void }) {
-  const { t } = useTranslation('weather');
-  const { number } = useFormat();
+  const { t, i18n } = useTranslation('weather');
+  const format = useFormat();
+  const { number } = format;
   const units = useUnits();
   const fileId = useId();
   const fileRef = useRef<HTMLInputElement>(null);
@@ -38,8 +40,12 @@ export function UploadForm({ onUploaded }: { onUploaded: (u: UploadDto) => void 
       onUploaded(upload);
       if (fileRef.current) fileRef.current.value = '';
     } catch (err) {
+      // A file refused as a whole (422): why, in words, from the reason's code.
+      const refused = isApiError(err) && err.status === 422 ? refusalText(err.code, err.params, err.message, t, format, i18n.language) : null;
       setError(
-        isApiError(err)
+        refused
+          ? [t('refusal.title'), refused.text, refused.detail].filter(Boolean).join(' ')
+          : isApiError(err)
           ? err.status === 413
             ? t('upload.tooLarge', { file: file.name })
             : err.code === 'network_error'
