@@ -1,4 +1,4 @@
-import { Matrix, QrDecomposition, inverse } from 'ml-matrix';
+import { CholeskyDecomposition, Matrix, QrDecomposition, inverse } from 'ml-matrix';
 import digamma from '@stdlib/math-base-special-digamma';
 import gammaln from '@stdlib/math-base-special-gammaln';
 
@@ -14,7 +14,8 @@ import gammaln from '@stdlib/math-base-special-gammaln';
  *    η − offset + (y − μ)/μ), then θ by maximum likelihood, until the log-likelihood and θ stop
  *    changing (glm.nb's criterion |ΔL|/√(2·max(1, n − p)) + |Δθ| < ε, with Δθ taken relative to max(1, θ)).
  *
- * The linear algebra (QR least squares, inverse of XᵀWX) is ml-matrix's. Pure: no I/O, no state.
+ * The linear algebra (Cholesky solve of XᵀWX·β = XᵀWz, QR rank check, inverse of XᵀWX) is ml-matrix's.
+ * Pure: no I/O, no state.
  * Bad input throws a RangeError whose message names the field.
  */
 
@@ -164,41 +165,58 @@ interface IrlsResult {
   converged: boolean;
 }
 
+/** XᵀWX (p × p) and XᵀWz (p) for the rows of X (each a Float64Array of p values). */
+function normalEquations(X: readonly Float64Array[], w: Float64Array, z: Float64Array, p: number): { A: Matrix; b: Matrix } {
+  const a = Array.from({ length: p }, () => new Array<number>(p).fill(0));
+  const b = new Array<number>(p).fill(0);
+  for (let i = 0; i < X.length; i++) {
+    const row = X[i];
+    const wi = w[i];
+    for (let j = 0; j < p; j++) {
+      const wx = wi * row[j];
+      b[j] += wx * z[i];
+      for (let k = 0; k <= j; k++) a[j][k] += wx * row[k];
+    }
+  }
+  for (let j = 0; j < p; j++) for (let k = j + 1; k < p; k++) a[j][k] = a[k][j];
+  return { A: new Matrix(a), b: Matrix.columnVector(b) };
+}
+
 /**
- * IRLS for a log-link GLM with variance μ + μ²/θ (Poisson when θ = Infinity), as R's glm.fit:
- * weighted least squares by QR on √W·X, stop when |Δdeviance|/(|deviance| + 0.1) < ε; a step that
- * makes the deviance non-finite is halved.
+ * IRLS for a log-link GLM with variance μ + μ²/θ (Poisson when θ = Infinity), as R's glm.fit: each
+ * step solves the weighted least squares XᵀWX·β = XᵀWz (Cholesky, p × p: R solves the same system by
+ * QR on √W·X, which costs an n × p matrix per step; the design's rank is checked once by QR in
+ * `prepare`); stop when |Δdeviance|/(|deviance| + 0.1) < ε; a step that makes the deviance non-finite
+ * is halved.
  */
-function irls(X: Matrix, y: Float64Array, offset: Float64Array, theta: number, etaStart: Float64Array, maxit: number, eps: number): IrlsResult {
+function irls(X: readonly Float64Array[], y: Float64Array, offset: Float64Array, theta: number, etaStart: Float64Array, maxit: number, eps: number): IrlsResult {
   const n = y.length;
-  const p = X.columns;
+  const p = X[0].length;
   let eta = Float64Array.from(etaStart);
   let mu = eta.map(Math.exp);
   let devOld = deviance(y, mu, theta);
   let beta: number[] | null = null;
   const weights = new Float64Array(n);
   let converged = false;
+  const z = new Float64Array(n);
   for (let iter = 0; iter < maxit; iter++) {
-    const A = new Matrix(n, p);
-    const z = new Matrix(n, 1);
     for (let i = 0; i < n; i++) {
       const m = mu[i];
-      const w = theta === Infinity ? m : m / (1 + m / theta);
-      weights[i] = w;
-      const sw = Math.sqrt(w);
-      for (let j = 0; j < p; j++) A.set(i, j, sw * X.get(i, j));
-      z.set(i, 0, sw * (eta[i] - offset[i] + (y[i] - m) / m));
+      weights[i] = theta === Infinity ? m : m / (1 + m / theta);
+      z[i] = eta[i] - offset[i] + (y[i] - m) / m;
     }
-    const qr = new QrDecomposition(A);
-    if (!qr.isFullRank()) throw new RangeError('x: the covariates are collinear (or constant like the intercept), so the coefficients are not identifiable');
-    let next = qr.solve(z).getColumn(0);
+    const { A, b } = normalEquations(X, weights, z, p);
+    const chol = new CholeskyDecomposition(A);
+    if (!chol.isPositiveDefinite()) throw new RangeError('x: the weighted covariates are collinear, so the coefficients are not identifiable');
+    let next = chol.solve(b).getColumn(0);
     let etaNew = new Float64Array(n);
     let muNew = new Float64Array(n);
     let dev = Number.NaN;
     for (let half = 0; half < 30; half++) {
       for (let i = 0; i < n; i++) {
         let s = offset[i];
-        for (let j = 0; j < p; j++) s += X.get(i, j) * next[j];
+        const row = X[i];
+        for (let j = 0; j < p; j++) s += row[j] * next[j];
         etaNew[i] = s;
         muNew[i] = Math.exp(s);
       }
@@ -222,7 +240,7 @@ function irls(X: Matrix, y: Float64Array, offset: Float64Array, theta: number, e
 }
 
 /** Check the data and build the design matrix with its intercept column. */
-function prepare(data: NegativeBinomialData): { X: Matrix; y: Float64Array; offset: Float64Array } {
+function prepare(data: NegativeBinomialData): { X: Float64Array[]; y: Float64Array; offset: Float64Array } {
   const { y, x, offset } = data;
   const n = y.length;
   if (n === 0) throw new RangeError('y: expected at least one count');
@@ -246,10 +264,9 @@ function prepare(data: NegativeBinomialData): { X: Matrix; y: Float64Array; offs
   const p = k + 1;
   if (n <= p) throw new RangeError(`y: expected more counts than coefficients (${n} counts, ${p} coefficients with the intercept)`);
   if (y.every((v) => v === 0)) throw new RangeError('y: every count is zero, so there is nothing to fit');
-  const X = new Matrix(n, p);
-  for (let i = 0; i < n; i++) {
-    X.set(i, 0, 1);
-    for (let j = 0; j < k; j++) X.set(i, j + 1, x[i][j]);
+  const X = x.map((row) => Float64Array.of(1, ...row));
+  if (!new QrDecomposition(new Matrix(X.map((r) => Array.from(r)))).isFullRank()) {
+    throw new RangeError('x: the covariates are collinear (or constant like the intercept), so the coefficients are not identifiable');
   }
   return { X, y: Float64Array.from(y), offset: offset ? Float64Array.from(offset) : new Float64Array(n) };
 }
@@ -260,7 +277,7 @@ export function fitNegativeBinomial(data: NegativeBinomialData, options: Negativ
   const maxit = options.maxIterations ?? 50;
   const { X, y, offset } = prepare(data);
   const n = y.length;
-  const p = X.columns;
+  const p = X[0].length;
 
   // 1. Poisson start, from μ = y + 0.1 (glm.fit's start for the Poisson family).
   let fit = irls(X, y, offset, Infinity, y.map((v) => Math.log(v + 0.1)), maxit, epsilon);
@@ -298,12 +315,7 @@ export function fitNegativeBinomial(data: NegativeBinomialData, options: Negativ
   converged = converged && fit.converged && th.ok;
 
   // Covariance (XᵀWX)⁻¹ at the final μ with θ taken as known.
-  const W = new Matrix(n, p);
-  for (let i = 0; i < n; i++) {
-    const sw = Math.sqrt(fit.weights[i]);
-    for (let j = 0; j < p; j++) W.set(i, j, sw * X.get(i, j));
-  }
-  const cov = inverse(W.transpose().mmul(W));
+  const cov = inverse(normalEquations(X, fit.weights, new Float64Array(n), p).A);
   const standardErrors = Array.from({ length: p }, (_, j) => Math.sqrt(cov.get(j, j)));
 
   return {

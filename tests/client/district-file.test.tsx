@@ -107,7 +107,7 @@ describe('the District file', () => {
 
   it('when the EIP is not completed on the last days (too cool for the pathogen), then the vector clock and the key numbers say so in words, not as a number of days', async () => {
     const cool = demoDistrictFile();
-    const vc = cool.vectorClock[0];
+    const vc: { eipDays: (number | null)[]; survivalThroughEip: (number | null)[] } = cool.vectorClock[0];
     // Model output for such days: no EIP (null) while the traits are known (survival through it is 0).
     vc.eipDays = vc.eipDays.map((d, i) => (i >= 14 ? null : d));
     vc.survivalThroughEip = vc.survivalThroughEip.map((x, i) => (i >= 14 ? 0 : x));
