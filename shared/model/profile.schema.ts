@@ -129,8 +129,11 @@ export const survivalSchema = z.discriminatedUnion('model', [
 
 /** Extrinsic incubation period n (days) at a temperature. */
 export const eipSchema = z.discriminatedUnion('model', [
-  /** n = k / (T − threshold) for T > threshold. */
-  z.strictObject({ model: z.literal('degree-days'), k: rangedParamSchema, threshold: rangedParamSchema }),
+  /**
+   * n = k / (T − threshold) for threshold < T < upperLimit. The optional upper limit is where the
+   * pathogen stops developing (the Tm of a published development-rate fit); at or above it there is no EIP.
+   */
+  z.strictObject({ model: z.literal('degree-days'), k: rangedParamSchema, threshold: rangedParamSchema, upperLimit: pointParamSchema.optional() }),
   /** mean n = exp(intercept + slope·T). */
   z.strictObject({ model: z.literal('log-linear'), intercept: pointParamSchema, slope: pointParamSchema }),
   /** n = 1 / rate(T), rate a thermal curve (per day). */
@@ -180,11 +183,35 @@ export const profileSchema = z
     biofix: z.strictObject({ monthDay: z.string().regex(/^(0[1-9]|1[0-2])-(0[1-9]|[12]\d|3[01])$/, 'MM-DD'), ...provenanceShape }).superRefine(requireSource),
     /** Days in the trailing window whose mean temperature drives the daily traits. */
     recentWindowDays: pointParamSchema.refine((p) => Number.isInteger(p.value) && p.value >= 1 && p.value <= 60, 'an integer 1…60'),
-    /** Optional full set of thermal trait fits (for the Mordecai-form relative R0; informative). */
+    /**
+     * Optional thermal trait fits of the Mordecai et al. R0 form: a, b, c (or bc), efd, pea, mdr, lf (or p,
+     * daily survival), pdr. Used by thermalR0, and by the vectorial capacity when `capacity` says so.
+     */
     thermalTraits: z.record(z.string(), thermalCurveSchema).optional(),
+    /**
+     * What the relative vectorial capacity multiplies beyond a²·pⁿ/(−ln p). Default 'garrett-jones': nothing
+     * (density m left out). 'mordecai': the vector competence (thermalTraits bc, or b·c; left out when
+     * the profile has neither) and the
+     * equilibrium density m ∝ EFD·pEA·MDR·L² (thermalTraits efd, pea, mdr; L the profile's lifespan),
+     * as in the R0 of Mordecai et al. 2013 / 2017 — so the capacity is zero wherever one of those
+     * published curves is zero (their thermal limits).
+     */
+    capacity: z
+      .strictObject({ model: z.enum(['garrett-jones', 'mordecai']), ...provenanceShape })
+      .superRefine(requireSource)
+      .optional(),
     notes: z.array(z.string().min(1)).optional(),
   })
   .superRefine((v, ctx) => {
+    if (v.capacity?.model === 'mordecai') {
+      const t = v.thermalTraits ?? {};
+      const missing = ['efd', 'pea', 'mdr'].filter((k) => t[k] === undefined);
+      if ((t.b === undefined) !== (t.c === undefined)) missing.push(t.b === undefined ? 'b' : 'c');
+      if (missing.length) ctx.addIssue({ code: 'custom', path: ['capacity'], message: `the 'mordecai' capacity needs thermalTraits ${missing.join(', ')}` });
+    }
+    if (v.eip.model === 'degree-days' && v.eip.upperLimit && !(v.eip.upperLimit.value > (v.eip.threshold.high ?? v.eip.threshold.value))) {
+      ctx.addIssue({ code: 'custom', path: ['eip', 'upperLimit'], message: 'must be above the threshold' });
+    }
     if (v.gonotrophicCycle.model === 'inverse-biting-rate' && v.bitingRate.model === 'inverse-gonotrophic-cycle') {
       ctx.addIssue({ code: 'custom', path: ['bitingRate'], message: 'gonotrophic cycle and biting rate cannot both be defined by each other' });
     }

@@ -1,5 +1,5 @@
 import type { Profile } from './profile.schema';
-import { compileProfile, traitsFromTable, TRAIT_COUNT, T_A, T_EIP_RATE, T_GONO_RATE, T_P, T_PN, T_SHARE, T_VC, type CompiledProfile } from './traits';
+import { compileProfile, traitsFromTable, EIP_MAX_DAYS, EIP_MIN_SURVIVAL, TRAIT_COUNT, T_A, T_EIP_RATE, T_GONO_RATE, T_P, T_PN, T_SHARE, T_VC, type CompiledProfile, type EipNotCompleted } from './traits';
 import { degreeDaysFast } from './degree-days';
 import { dayLengthFromParts, declinationTable } from './day-length';
 import { dateParts, dayNumber, formatIsoDate, isLeapYear, parseIsoDate } from './dates';
@@ -17,6 +17,8 @@ import { saturationVapourPressure } from './humidity';
  *  - cumulative degree-days from the biofix; a gap adds nothing and sets `complete` to 0 from that day;
  *  - generations completed = floor(cumulative / K) and days to the next one at the trailing mean of the
  *    daily degree-days (over the known days of the profile's recent window);
+ *  - the EIP is NaN where it is not completed (no development at that temperature, or fewer than 1 in
+ *    100 infected mosquitoes would live through it, or over a year), the reason in `eipState`;
  *  - the traits (gonotrophic cycle, biting rate, survival p, EIP n, pⁿ, relative vectorial capacity,
  *    share of the EIP completed within the expected life 1/(−ln p)) at the trailing mean of the daily
  *    mean temperature (Tmin + Tmax)/2 over the recent window, read from the profile's trait table
@@ -78,7 +80,7 @@ const FLOAT_COLUMNS = [
   'dayLengthHours',
   'vapourPressureDeficit',
 ] as const;
-const BYTE_COLUMNS = ['complete', 'sinceBiofix', 'nextTminFallback', 'seasonOpen', 'filled'] as const;
+const BYTE_COLUMNS = ['complete', 'sinceBiofix', 'nextTminFallback', 'seasonOpen', 'filled', 'eipState'] as const;
 
 export type SeasonColumns = { length: number; capacity: number } & Record<(typeof FLOAT_COLUMNS)[number], Float64Array> &
   Record<(typeof BYTE_COLUMNS)[number], Uint8Array>;
@@ -139,6 +141,7 @@ export function createSeasonColumns(capacity: number): SeasonColumns {
     nextTminFallback: b(),
     seasonOpen: b(),
     filled: b(),
+    eipState: b(),
   };
   return cols;
 }
@@ -181,6 +184,7 @@ export function computeSeasonColumns(
   const cEipDays = o.eipDays;
   const cEipDaysHigh = o.eipDaysHigh;
   const cEipDaysLow = o.eipDaysLow;
+  const cEipState = o.eipState;
   const cEipShareInLifetime = o.eipShareInLifetime;
   const cEipShareInLifetimeHigh = o.eipShareInLifetimeHigh;
   const cEipShareInLifetimeLow = o.eipShareInLifetimeLow;
@@ -339,7 +343,11 @@ export function computeSeasonColumns(
       cBitingRate[i] = S1[T_A];
       cSurvival[i] = S1[T_P];
       const u1 = S1[T_GONO_RATE] > 0 ? 1 / S1[T_GONO_RATE] : Number.NaN;
-      const n1 = S1[T_EIP_RATE] > 0 ? 1 / S1[T_EIP_RATE] : Number.NaN;
+      // An EIP that is not completed (no development, or beyond the life of the mosquito or a season;
+      // see eipCompletion in traits.ts) is NaN, its reason in eipState.
+      const st1 = eipStateCode(S1[T_EIP_RATE], S1[T_PN]);
+      const n1 = st1 === 0 ? 1 / S1[T_EIP_RATE] : Number.NaN;
+      cEipState[i] = st1;
       const vc1 = open ? S1[T_VC] : 0;
       cGonotrophicCycleDays[i] = u1;
       cEipDays[i] = n1;
@@ -356,12 +364,11 @@ export function computeSeasonColumns(
         const gLo = g0 > g2 ? g2 : g0;
         cGonotrophicCycleDaysLow[i] = gHi > 0 ? 1 / gHi : Number.NaN;
         cGonotrophicCycleDaysHigh[i] = gLo > 0 ? 1 / gLo : Number.NaN;
-        const e0 = S0[T_EIP_RATE];
-        const e2 = S2[T_EIP_RATE];
-        const eHi = e0 > e2 ? e0 : e2;
-        const eLo = e0 > e2 ? e2 : e0;
-        cEipDaysLow[i] = eHi > 0 ? 1 / eHi : Number.NaN;
-        cEipDaysHigh[i] = eLo > 0 ? 1 / eLo : Number.NaN;
+        // The shorter EIP is the low end; an end that is not completed is NaN (the other end may be).
+        const d0 = eipStateCode(S0[T_EIP_RATE], S0[T_PN]) === 0 ? 1 / S0[T_EIP_RATE] : Number.NaN;
+        const d2 = eipStateCode(S2[T_EIP_RATE], S2[T_PN]) === 0 ? 1 / S2[T_EIP_RATE] : Number.NaN;
+        cEipDaysLow[i] = d0 === d0 && d2 === d2 ? (d0 < d2 ? d0 : d2) : d0 === d0 ? d0 : d2;
+        cEipDaysHigh[i] = d0 === d0 && d2 === d2 ? (d0 < d2 ? d2 : d0) : Number.NaN;
         cSurvivalThroughEipLow[i] = S0[T_PN] < S2[T_PN] ? S0[T_PN] : S2[T_PN];
         cSurvivalThroughEipHigh[i] = S0[T_PN] < S2[T_PN] ? S2[T_PN] : S0[T_PN];
         cRelativeVectorialCapacityLow[i] = open ? (S0[T_VC] < S2[T_VC] ? S0[T_VC] : S2[T_VC]) : 0;
@@ -379,6 +386,7 @@ export function computeSeasonColumns(
       cSurvival[i] = cBitingRate[i] = Number.NaN;
       cGonotrophicCycleDays[i] = cGonotrophicCycleDaysLow[i] = cGonotrophicCycleDaysHigh[i] = Number.NaN;
       cEipDays[i] = cEipDaysLow[i] = cEipDaysHigh[i] = Number.NaN;
+      cEipState[i] = 0;
       cSurvivalThroughEip[i] = cSurvivalThroughEipLow[i] = cSurvivalThroughEipHigh[i] = Number.NaN;
       cRelativeVectorialCapacity[i] = cRelativeVectorialCapacityLow[i] = cRelativeVectorialCapacityHigh[i] = Number.NaN;
       cEipShareInLifetime[i] = cEipShareInLifetimeLow[i] = cEipShareInLifetimeHigh[i] = Number.NaN;
@@ -386,6 +394,14 @@ export function computeSeasonColumns(
   }
   return o;
 }
+
+/** eipState code from the tabulated EIP rate (per day) and pⁿ: 0 completes, 1 no development, 2 beyond the lifetime or a season. */
+function eipStateCode(rate: number, pn: number): number {
+  if (!(rate > 0)) return 1;
+  return rate * EIP_MAX_DAYS < 1 || !(pn >= EIP_MIN_SURVIVAL) ? 2 : 0;
+}
+
+const EIP_STATE_NAMES: readonly (EipNotCompleted | null)[] = [null, 'no-development', 'beyond-lifetime'];
 
 /** Scratch rows for the three variants (module level: no per-day allocation). */
 const S0 = new Float64Array(TRAIT_COUNT);
@@ -430,7 +446,10 @@ export interface SeasonDay {
   gonotrophicCycleDays: number | null;
   bitingRate: number | null;
   survival: number | null;
+  /** Null when unknown (no temperature) or not completed (then eipNotCompleted says why). */
   eipDays: number | null;
+  /** Why the EIP is not completed: 'no-development' (outside the pathogen's thermal limits) or 'beyond-lifetime' (fewer than 1 in 100 infected mosquitoes would live through it, or longer than a year); null otherwise. */
+  eipNotCompleted: EipNotCompleted | null;
   survivalThroughEip: number | null;
   relativeVectorialCapacity: number | null;
   eipShareInLifetime: number | null;
@@ -500,6 +519,7 @@ export function computeSeason(profile: Profile, options: SeasonOptions, days: re
       bitingRate: orNull(c.bitingRate[i]),
       survival: orNull(c.survival[i]),
       eipDays: orNull(c.eipDays[i]),
+      eipNotCompleted: EIP_STATE_NAMES[c.eipState[i]],
       survivalThroughEip: orNull(c.survivalThroughEip[i]),
       relativeVectorialCapacity: orNull(c.relativeVectorialCapacity[i]),
       eipShareInLifetime: orNull(c.eipShareInLifetime[i]),

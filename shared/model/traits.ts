@@ -112,6 +112,54 @@ export interface CompiledProfile {
 
 const cache = new WeakMap<Profile, CompiledProfile>();
 
+/**
+ * The capacity's factor beyond a²·pⁿ/(−ln p) at temperature t with lifespan l (see profile.schema
+ * `capacity`): 1, or competence(t)·EFD(t)·pEA(t)·MDR(t)·l² for the 'mordecai' form — with
+ * m ∝ EFD·pEA·MDR/μ² (Mordecai et al. 2017, PLoS Negl. Trop. Dis. 11:e0005568, eq. 1), the capacity
+ * m·a²·bc·pⁿ/μ is then proportional to R0², so it is zero exactly where their R0 is zero.
+ */
+function capacityFactor(profile: Profile): (t: number, l: number) => number {
+  if (profile.capacity?.model !== 'mordecai') return () => 1;
+  const tt = profile.thermalTraits!;
+  const efd = curveFunction(tt.efd);
+  const pea = curveFunction(tt.pea);
+  const mdr = curveFunction(tt.mdr);
+  const bc = tt.bc ? curveFunction(tt.bc) : null;
+  const b = tt.b ? curveFunction(tt.b) : null;
+  const c = tt.c ? curveFunction(tt.c) : null;
+  return (t, l) => {
+    const comp = bc ? bc(t) : b && c ? b(t) * c(t) : 1;
+    const m = efd(t) * pea(t) * mdr(t);
+    // Each fit is floored at 0 outside its limits, so the product is 0 there (never negative).
+    return comp > 0 && m > 0 ? comp * m * l * l : 0;
+  };
+}
+
+/**
+ * Probability of surviving the EIP below which the EIP counts as not completed: fewer than 1 in 100
+ * infected mosquitoes would live through it (n > ln 100 ≈ 4.6 expected lifetimes). Common practice
+ * of this product, not from a source: it keeps the display from extrapolating EIPs of months or years
+ * near a threshold, where no mosquito lives that long.
+ */
+export const EIP_MIN_SURVIVAL = 0.01;
+/** An EIP longer than this (days, a season) counts as not completed whatever the survival. */
+export const EIP_MAX_DAYS = 365;
+
+/** Why an EIP is not completed: the pathogen does not develop at that temperature, or not within the mosquito's life or a season. */
+export type EipNotCompleted = 'no-development' | 'beyond-lifetime';
+/** Codes of the season's eipState column: 0 completed (or unknown), 1 no development, 2 beyond the lifetime or a season. */
+export const EIP_STATE = { completed: 0, 'no-development': 1, 'beyond-lifetime': 2 } as const;
+
+/**
+ * Whether an EIP of n days (Infinity: no development) completes, given pⁿ (survival through it):
+ * null when it does, else the reason.
+ */
+export function eipCompletion(n: number, survivalThroughEip: number): EipNotCompleted | null {
+  if (!(n < Infinity) || !(n > 0)) return 'no-development';
+  if (n > EIP_MAX_DAYS || !(survivalThroughEip >= EIP_MIN_SURVIVAL)) return 'beyond-lifetime';
+  return null;
+}
+
 /** Fields of a trait row: biting rate a, 1/gonotrophic cycle, survival p, 1/EIP, pⁿ, relative VC, EIP share. */
 export const TRAIT_FIELDS = ['bitingRate', 'gonotrophicRate', 'survival', 'eipRate', 'survivalThroughEip', 'relativeVectorialCapacity', 'eipShareInLifetime'] as const;
 export const T_A = 0;
@@ -207,7 +255,8 @@ export function compileProfile(profile: Profile): CompiledProfile {
     const k = slowFast(e.k);
     const th = slowFast(e.threshold);
     hasRanges ||= k[0] !== k[2] || th[0] !== th[2];
-    eip = (t, v) => (t > th[v] ? k[v] / (t - th[v]) : Infinity);
+    const top = e.upperLimit?.value ?? Infinity;
+    eip = (t, v) => (t > th[v] && t < top ? k[v] / (t - th[v]) : Infinity);
   } else if (e.model === 'log-linear') {
     const i0 = e.intercept.value;
     const s = e.slope.value;
@@ -220,14 +269,19 @@ export function compileProfile(profile: Profile): CompiledProfile {
     };
   }
 
-  // a²·pⁿ/(−ln p) with p = exp(−1/L): a²·L·exp(−n/L).
+  // Factors of the capacity beyond a²·pⁿ/(−ln p): 1 (Garrett-Jones, m left out), or the 'mordecai'
+  // vector competence × equilibrium density EFD·pEA·MDR·L² (Mordecai et al. 2013, 2017), each a
+  // published thermal curve that is zero outside its limits.
+  const factor = capacityFactor(profile);
+
+  // a²·pⁿ/(−ln p) with p = exp(−1/L): a²·L·exp(−n/L), times the factor.
   const vcRaw = (t: number, v: Variant): number => {
     const l = lifespan(t);
     if (!(l > 0)) return 0;
     const n = eip(t, v);
     if (!(n < Infinity)) return 0;
     const a = bite(t, v);
-    return a * a * l * Math.exp(-n / l);
+    return a * a * l * Math.exp(-n / l) * factor(t, l);
   };
 
   // Optimum: grid search, then golden-section refinement around the best grid point.
@@ -267,7 +321,7 @@ export function compileProfile(profile: Profile): CompiledProfile {
     if (l > 0 && n < Infinity) {
       const e = Math.exp(-n / l);
       out[T_PN] = e;
-      out[T_VC] = (a * a * l * e) / vOpt;
+      out[T_VC] = (a * a * l * e * factor(t, l)) / vOpt;
       out[T_SHARE] = l >= n ? 1 : l / n;
     } else {
       out[T_PN] = 0;
@@ -359,7 +413,10 @@ export interface TraitsAt {
   bitingRate: number;
   lifespanDays: number;
   survival: number;
+  /** Null when the EIP is not completed (see eipNotCompleted). */
   eipDays: number | null;
+  /** Why eipDays is null: no development at this temperature, or beyond the mosquito's life or a season; null when it completes. */
+  eipNotCompleted: EipNotCompleted | null;
   /** pⁿ */
   survivalThroughEip: number;
   /** a²pⁿ/(−ln p) divided by the profile's optimum (1 at the optimum temperature). */
@@ -378,20 +435,25 @@ export function traitsAt(profile: Profile, temperature: number, variant: Variant
   const p = c.survival(temperature);
   const n = c.eipDays(temperature, v);
   const pn = n < Infinity && p > 0 ? Math.pow(p, n) : 0;
+  const notCompleted = eipCompletion(n, pn);
   return {
     temperature,
     gonotrophicCycleDays: finiteOrNull(c.gonotrophicCycleDays(temperature, v)),
     bitingRate: c.bitingRate(temperature, v),
     lifespanDays: l,
     survival: p,
-    eipDays: finiteOrNull(n),
+    eipDays: notCompleted === null ? n : null,
+    eipNotCompleted: notCompleted,
     survivalThroughEip: pn,
     relativeVectorialCapacity: c.vectorialCapacityRaw(temperature, v) / c.optimum.value,
     eipShareInLifetime: n < Infinity && l > 0 ? Math.min(1, l / n) : 0,
   };
 }
 
-/** EIP in days at a constant temperature, or null where the pathogen does not develop. */
+/**
+ * EIP in days at a constant temperature, or null where the pathogen does not develop (outside the
+ * limits of the profile's EIP model). Not clamped by survival: see traitsAt for "not completed".
+ */
 export function eipDays(profile: Profile, temperature: number, variant: VariantName = 'central'): number | null {
   const v = VARIANT_NAMES.indexOf(variant) as Variant;
   return finiteOrNull(compileProfile(profile).eipDays(temperature, v));
@@ -402,19 +464,35 @@ export function vectorialCapacityOptimum(profile: Profile): { temperature: numbe
   return compileProfile(profile).optimum;
 }
 
-const R0_TRAITS = ['a', 'b', 'c', 'efd', 'pea', 'mdr', 'lf', 'pdr'] as const;
+const R0_TRAITS = ['a', 'efd', 'pea', 'mdr', 'pdr'] as const;
 
 /**
- * Thermal R0 in the form of Mordecai et al. 2017 (PLoS Negl. Trop. Dis. 11:e0005568, eq. 1), with
- * density, human and recovery terms left out:
- *   R0(T) ∝ [a² b c e^(−μ/PDR) EFD pEA MDR / μ³]^½, μ = 1/lf.
- * Needs the profile's `thermalTraits` a, b, c, efd, pea, mdr, lf, pdr; returns null without them.
+ * Thermal R0 in the form of Mordecai et al. 2017 (PLoS Negl. Trop. Dis. 11:e0005568, eq. 1) and
+ * Mordecai et al. 2013 (Ecol. Lett. 16:22–30, eq. 2), with density, human and recovery terms left out:
+ *   R0(T) ∝ [a² bc e^(−μ/PDR) EFD pEA MDR / μ³]^½,
+ * bc the product of the `b` and `c` fits or one `bc` fit; μ = 1/lf (lifespan fit) or −ln p (daily
+ * survival fit `p`). Needs the profile's `thermalTraits`; returns null without them.
  */
 export function thermalR0(profile: Profile, temperature: number): number | null {
   const traits = profile.thermalTraits;
   if (!traits || R0_TRAITS.some((k) => traits[k] === undefined)) return null;
-  const f = Object.fromEntries(R0_TRAITS.map((k) => [k, curveFunction(traits[k])(temperature)])) as Record<(typeof R0_TRAITS)[number], number>;
-  if (!(f.lf > 0) || !(f.pdr > 0)) return 0;
-  const mu = 1 / f.lf;
-  return Math.sqrt((f.a * f.a * f.b * f.c * Math.exp(-mu / f.pdr) * f.efd * f.pea * f.mdr) / (mu * mu * mu));
+  const at = (k: string): number => curveFunction(traits[k])(temperature);
+  let bc: number;
+  // Only ratios of R0 are used, so a bc fit in per cent (as Mordecai et al. 2013) needs no rescaling.
+  if (traits.bc) bc = at('bc');
+  else if (traits.b && traits.c) bc = at('b') * at('c');
+  else return null;
+  let mu: number;
+  if (traits.lf) {
+    const lf = at('lf');
+    if (!(lf > 0)) return 0;
+    mu = 1 / lf;
+  } else if (traits.p) {
+    const p = at('p');
+    if (!(p > 0 && p < 1)) return 0;
+    mu = -Math.log(p);
+  } else return null;
+  const f = Object.fromEntries(R0_TRAITS.map((k) => [k, at(k)])) as Record<(typeof R0_TRAITS)[number], number>;
+  if (!(f.pdr > 0) || !(bc > 0)) return 0;
+  return Math.sqrt((f.a * f.a * bc * Math.exp(-mu / f.pdr) * f.efd * f.pea * f.mdr) / (mu * mu * mu));
 }

@@ -116,6 +116,31 @@ describe('the District file', () => {
     await waitFor(() => expect(c.textContent).toContain('Tier for week 22 of 2024'));
   });
 
+  it('when the EIP is not completed on the last days (too cool for the pathogen), then the vector clock and the key numbers say so in words, not as a number of days', async () => {
+    const cool = demoDistrictFile();
+    const vc: { eipDays: (number | null)[]; survivalThroughEip: (number | null)[] } = cool.vectorClock[0];
+    // Model output for such days: no EIP (null) while the traits are known (survival through it is 0).
+    vc.eipDays = vc.eipDays.map((d, i) => (i >= 14 ? null : d));
+    vc.survivalThroughEip = vc.survivalThroughEip.map((x, i) => (i >= 14 ? 0 : x));
+    const fetch = fakeApi({});
+    fetch.mockImplementation(async (input: string | URL | Request) => {
+      const u = new URL(String(input), 'http://localhost');
+      if (u.pathname === '/api/me') return json(200, officerMe);
+      if (u.pathname === `/api/districts/${file.district.id}/file`) return json(200, cool);
+      return json(404, { error: { code: 'not_found', message: 'not found' } });
+    });
+    view = await renderRoutes(path);
+    const c = view.container;
+    await waitFor(() => expect(c.querySelector('h1')?.textContent).toBe('Saltmarsh Coast'), 5000);
+    const figure = c.querySelector('figure[data-chart="Vector clock — Aedes aegypti with dengue"]')!;
+    expect(figure.querySelector('[role="img"]')?.getAttribute('aria-label')).toContain('the extrinsic incubation was not completed');
+    await click([...figure.querySelectorAll('button')].find((b) => b.textContent === 'Show as table')!);
+    const rows = [...figure.querySelectorAll('tbody tr')].map((r) => [...r.children].map((x) => x.textContent));
+    expect(rows[0][1]).toBe('9.5');
+    expect(rows[rows.length - 1][1]).toBe('not completed');
+    expect(c.textContent).toMatch(/Extrinsic incubation period\s*not completed/);
+  });
+
   it('when the generations pass a whole number, then that day is a generation mark', () => {
     expect(generationDays({ dates: ['d1', 'd2', 'd3', 'd4'], generations: [0.4, 1.1, null, 2.0] })).toEqual([
       { date: 'd2', generation: 1 },

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { spawn } from 'node:child_process';
 import { resolve } from 'node:path';
+import { readFileSync } from 'node:fs';
 
 const ROOT = resolve(import.meta.dirname, '../..');
 const TSX = resolve(ROOT, 'node_modules/.bin/tsx');
@@ -25,6 +26,12 @@ function cli(args: string[], stdin = ''): Promise<Run> {
 }
 const lines = (s: string) => s.trim().split('\n').map((l) => JSON.parse(l));
 
+// MASS::quine and MASS::ships with R 4.2.2 / MASS 7.3-58.2 glm.nb results (see negative-binomial.test.ts).
+const nbReference = JSON.parse(readFileSync(resolve(ROOT, 'tests/model/fixtures/negative-binomial-reference.json'), 'utf8')) as {
+  cases: { y: number[]; x: number[][]; offset?: number[]; coefficients: number[]; theta: number; logLik: number }[];
+};
+const [quine, ships] = nbReference.cases;
+
 // All spawns start together (a handful of processes), the checks below read their results.
 const runs = {
   degreeDays: cli(['degree-days', '--method', 'single-sine', '--cutoff', 'vertical', '--lower', '10', '--upper', '30', '--tmin', '20', '--tmax', '35']),
@@ -36,6 +43,10 @@ const runs = {
   daylength: cli(['daylength', '--lat', '40', '--date', '2023-06-21', '--definition', 'sunrise']),
   epiweek: cli(['epiweek', '--batch'], '{"date":"2026-01-03","system":"mmwr"}\n{"date":"2021-01-03","system":"iso"}\n'),
   eip: cli(['eip', '--profile', 'anopheles-falciparum', '--temp', '25']),
+  fitNb: cli(
+    ['fit-nb', '--batch'],
+    [JSON.stringify({ y: ships.y, x: ships.x, offset: ships.offset }), '{"y": [1, 2, 3], "x": [[1], [2]]}', '{"y": "many", "x": []}', JSON.stringify({ y: quine.y, x: quine.x })].join('\n') + '\n',
+  ),
   season: cli(['season', '--profile', 'culex-wnv', '--lat', '33.5', '--biofix', '2024-06-01'], 'date,tmin,tmax,rh\n2024-06-01,18,30,60\n2024-06-02,,,\n2024-06-03,19,31,\n'),
 };
 
@@ -88,5 +99,19 @@ describe('command line (spawned: node + tsx cli/model.cli.ts)', { timeout: 30_00
     expect(out[1].degreeDays).toBeNull();
     expect(out.map((d) => d.complete)).toEqual([true, false, false]);
     expect(out[2].cumulativeDegreeDays).toBeCloseTo(out[0].degreeDays + out[2].degreeDays, 9);
+  });
+  it('when fit-nb --batch gets MASS::ships (with an offset), a bad line, a line of the wrong type and MASS::quine, then the two fits match R glm.nb and the bad lines print {"error"} naming the key (exit 0)', async () => {
+    const r = await runs.fitNb;
+    expect(r.code).toBe(0);
+    const out = lines(r.stdout);
+    expect(out).toHaveLength(4);
+    for (const [i, ref] of [[0, ships], [3, quine]] as const) {
+      out[i].coefficients.forEach((b: number, j: number) => expect(Math.abs(b / ref.coefficients[j] - 1)).toBeLessThan(1e-6));
+      expect(Math.abs(out[i].theta / ref.theta - 1)).toBeLessThan(1e-4);
+      expect(Math.abs(out[i].logLik / ref.logLik - 1)).toBeLessThan(1e-8);
+      expect(out[i].iterations).toBeGreaterThan(0);
+    }
+    expect(out[1].error).toMatch(/^x: /);
+    expect(out[2].error).toMatch(/^y: /);
   });
 });

@@ -119,13 +119,22 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
   );
 }
 
+/**
+ * True on a day whose EIP is not completed: the traits are known (survival through the EIP is) but the
+ * model gives no EIP — no development at that temperature, or beyond the mosquito's life or a season
+ * (shared/model/traits.ts eipCompletion). Shown in words, never as a number.
+ */
+export const eipNotCompleted = (vc: Pick<VectorClock, 'eipDays' | 'survivalThroughEip'>, i: number): boolean => vc.eipDays[i] === null && vc.survivalThroughEip[i] !== null;
+
 export function EipChart({ vc }: { vc: VectorClock }) {
   const { t, f } = useLadderWords();
-  const last = lastIndexWithValue(vc.eipDays);
+  const last = lastIndexWithValue(vc.eipDays.map((d, i) => (d === null && eipNotCompleted(vc, i) ? 0 : d)));
   const summary =
     last < 0
       ? t('district-file:eip.none')
-      : t('district-file:eip.summary', { day: f.date(vc.dates[last]), days: f.number(vc.eipDays[last], 1), survival: f.percent(vc.survivalThroughEip[last] ?? 0) });
+      : eipNotCompleted(vc, last)
+        ? t('district-file:eip.summaryNotCompleted', { day: f.date(vc.dates[last]) })
+        : t('district-file:eip.summary', { day: f.date(vc.dates[last]), days: f.number(vc.eipDays[last], 1), survival: f.percent(vc.survivalThroughEip[last] ?? 0) });
   const names = { eip: t('district-file:eip.series.eip'), survival: t('district-file:eip.series.survival') };
   return (
     <ChartFigure
@@ -158,7 +167,7 @@ export function EipChart({ vc }: { vc: VectorClock }) {
           header={[t('district-file:table.day'), t('district-file:eip.column'), t('district-file:eip.survivalColumn'), t('district-file:eip.completeColumn')]}
           rows={weeklyIndexes(vc.dates.length).map((i) => [
             f.date(vc.dates[i]),
-            f.number(vc.eipDays[i], 1),
+            eipNotCompleted(vc, i) ? t('district-file:eip.notCompleted') : f.number(vc.eipDays[i], 1),
             vc.survivalThroughEip[i] === null ? null : f.number(vc.survivalThroughEip[i]! * 100, 1),
             vc.complete[i] ? t('district-file:yes') : t('district-file:no'),
           ])}

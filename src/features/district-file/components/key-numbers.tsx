@@ -4,6 +4,7 @@ import { useUnits } from '../../../lib/units';
 import { HelpButton, type HelpTopic } from '../../help/help-button';
 import { useLadderWords } from '../../ladder/ladder-format';
 import { lastIndexWithValue } from '../charts/chart-style';
+import { eipNotCompleted } from '../charts/vector-clock.charts';
 
 type Item = { key: string; label: string; value: string; note?: string; help: HelpTopic };
 
@@ -34,9 +35,10 @@ export function KeyNumbers({ data, help = true, headingLevel = 'h2' }: { data: D
     }
     const g = lastIndexWithValue(vc.generations);
     if (g >= 0) items.push({ key: 'generations', label: t('district-file:key.generations'), value: f.number(vc.generations[g], 1, true), help: 'generations' });
-    const e = lastIndexWithValue(vc.eipDays);
+    const e = lastIndexWithValue(vc.eipDays.map((d, i) => (d === null && eipNotCompleted(vc, i) ? 0 : d)));
     if (e >= 0) {
-      items.push({ key: 'eip', label: t('district-file:key.eip'), value: t('district-file:key.days', { count: vc.eipDays[e]!, value: f.number(vc.eipDays[e], 1) }), help: 'eip' });
+      const eipValue = eipNotCompleted(vc, e) ? t('district-file:eip.notCompleted') : t('district-file:key.days', { count: vc.eipDays[e]!, value: f.number(vc.eipDays[e], 1) });
+      items.push({ key: 'eip', label: t('district-file:key.eip'), value: eipValue, help: 'eip' });
       if (vc.survivalThroughEip[e] !== null) items.push({ key: 'survivalEip', label: t('district-file:key.survivalEip'), value: f.percent(vc.survivalThroughEip[e]), help: 'survivalEip' });
     }
     const r = lastIndexWithValue(vc.rvc);
