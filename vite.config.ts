@@ -2,6 +2,7 @@ import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { VitePWA } from 'vite-plugin-pwa';
+import { compression } from 'vite-plugin-compression2';
 
 /**
  * The installable, offline-opening client (docs/offline.md). Workbox's generateSW precaches the built
@@ -42,6 +43,8 @@ const pwa = VitePWA({
     // the woff2 fonts (every browser that runs service workers reads woff2). The plugin adds the
     // manifest, its icons and `includeAssets`.
     globPatterns: ['**/*.{html,js,css,woff2}'],
+    // The .br and .gz copies are for the network only (the browser stores the decoded file).
+    globIgnores: ['**/*.{br,gz}'],
     // The chart chunks are large; allow them in the precache rather than leave a screen unopenable offline.
     maximumFileSizeToCacheInBytes: 4 * 1024 * 1024,
     navigateFallback: '/index.html',
@@ -58,9 +61,21 @@ const pwa = VitePWA({
   disable: !!process.env.VITEST,
 });
 
+/**
+ * Every text file of the build also written as brotli (.br) and gzip (.gz), once, at build time; the server
+ * (server/app.ts, express-static-gzip) sends the one the browser accepts. Fonts (woff2 is already
+ * compressed) and files under 1 kB are left alone.
+ */
+const precompressed = compression({
+  include: /\.(js|mjs|css|html|json|svg|webmanifest)$/,
+  threshold: 1024,
+  algorithms: ['brotliCompress', 'gzip'],
+  logLevel: 'silent',
+});
+
 export default defineConfig({
   root: '.',
-  plugins: [react(), tailwindcss(), pwa],
+  plugins: [react(), tailwindcss(), pwa, ...(process.env.VITEST ? [] : [precompressed])],
   // Nothing inlined as data: URLs, so the Content-Security-Policy can allow fonts from 'self' only.
   build: { outDir: 'dist/client', emptyOutDir: true, sourcemap: false, assetsInlineLimit: 0 },
   server: {
