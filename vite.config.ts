@@ -77,7 +77,22 @@ export default defineConfig({
   root: '.',
   plugins: [react(), tailwindcss(), pwa, ...(process.env.VITEST ? [] : [precompressed])],
   // Nothing inlined as data: URLs, so the Content-Security-Policy can allow fonts from 'self' only.
-  build: { outDir: 'dist/client', emptyOutDir: true, sourcemap: false, assetsInlineLimit: 0 },
+  build: {
+    outDir: 'dist/client',
+    emptyOutDir: true,
+    sourcemap: false,
+    assetsInlineLimit: 0,
+    rollupOptions: {
+      output: {
+        // Each language's texts are their own chunks (src/i18n/index.ts), named texts-<language>-<namespace>-<hash>.js
+        // so the network log says which language a page fetched (tests/browser/fast-phone.test.ts).
+        chunkFileNames: (chunk) => {
+          const texts = /\/i18n\/locales\/([^/]+)\/([^/]+)\.json$/.exec(chunk.facadeModuleId ?? '');
+          return texts ? `assets/texts-${texts[1]}-${texts[2]}-[hash].js` : 'assets/[name]-[hash].js';
+        },
+      },
+    },
+  },
   server: {
     host: '127.0.0.1',
     port: Number(process.env.VITE_PORT ?? 5173),

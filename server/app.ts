@@ -115,7 +115,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     if (req.method !== 'GET' || !req.accepts('html')) return next();
     if (!existsSync(index)) return res.status(503).type('text').send('The client is not built yet: run npm start.');
     res.setHeader('Cache-Control', 'no-cache');
-    res.sendFile(index, { cacheControl: false });
+    res.sendFile('index.html', { root: dist, cacheControl: false });
   });
   return app;
 }
