@@ -7,10 +7,12 @@
  * serving a production build of the client, with its own database (broodcast_bench_phone on the dev cluster,
  * the invented demo region loaded, re-created each run). It measures, cold (a fresh profile, no service
  * worker, empty cache) and warm (the service worker installed):
- *   - initial JavaScript of the sign-in page and of the Ladder (a signed-in person opening /), gzip bytes
- *     of every script the page fetched before the screen showed (each file's .gz as built, or gzip -9);
+ *   - initial JavaScript of the sign-in page and of the Ladder: gzip bytes (each file's .gz as built, or
+ *     gzip -9) of what the screen needs before it can show, read from the build (see `initialJs`);
+ *   - the Ladder opened cold by a signed-in person (navigation → first district row);
  *   - the sign-in page: navigation start → the e-mail field visible;
- *   - the Ladder after signing in: the click on "Sign in" → the first ranked district row visible;
+ *   - the Ladder after signing in: the e-mail and password typed a key every 150 ms, then the click on
+ *     "Sign in" → the first ranked district row visible;
  *   - bytes over the network (encoded, headers included) from the sign-in page's navigation to the Ladder
  *     with its map, until the network has been quiet for a second;
  *   - warm start: with the service worker installed, a new visit to the sign-in page → the e-mail field.
@@ -18,13 +20,13 @@
  * before the change ("before": the build of BEFORE_REF, served uncompressed with a one-hour cache as the
  * server did then — static files and index.html from a small peer server here, /api passed to the same
  * real server, only the board compressed). Times are the median of --runs runs.
- * Run: npm run bench:phone   (options: --runs 3 --quick (1 run) --no-before --before-ref REF --no-build)
+ * Run: npm run bench:phone   (options: --runs 3 --quick (1 run) --no-before --before-ref REF --no-build --verbose)
  * The last line of the output is one JSON object with every figure (read by bench/run-all.ts).
  */
 import 'reflect-metadata';
 import express from 'express';
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, readFileSync, rmSync, statSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, readFileSync, rmSync, statSync } from 'node:fs';
 import http from 'node:http';
 import type { AddressInfo } from 'node:net';
 import path from 'node:path';
@@ -41,6 +43,8 @@ const argValue = (name: string) => (process.argv.includes(`--${name}`) ? process
 const WITH_BEFORE = !process.argv.includes('--no-before');
 const BEFORE_REF = argValue('before-ref') ?? DEFAULT_BEFORE_REF;
 const EMAIL = 'officer@halvern.example';
+/** A key every 150 ms: a quick thumb on a phone keyboard (about 5.5 s for the e-mail and password). */
+const TYPING_MS = 150;
 
 /** DevTools' "Fast 3G" preset (its throughputs are 90 % of the nominal 1.6 Mbit/s and 750 kbit/s). */
 const FAST_3G = { offline: false, latency: 150 * 3.75, downloadThroughput: ((1.6 * 1000 * 1000) / 8) * 0.9, uploadThroughput: ((750 * 1000) / 8) * 0.9 };
@@ -126,7 +130,7 @@ async function startBeforePeer(dir: string) {
       if (/[\\/](sw\.js|manifest\.webmanifest)$/.test(file)) res.setHeader('Cache-Control', 'no-cache');
     },
   }));
-  app.use((req, res, next) => (req.method === 'GET' && req.accepts('html') ? res.sendFile(path.join(dir, 'index.html')) : next()));
+  app.use((req, res, next) => (req.method === 'GET' && req.accepts('html') ? res.sendFile('index.html', { root: dir }) : next()));
   const srv = app.listen(await freePort(), '127.0.0.1');
   await new Promise((r) => srv.once('listening', r));
   return { base: `http://127.0.0.1:${(srv.address() as AddressInfo).port}`, close: () => new Promise((r) => srv.close(r)) };
@@ -140,7 +144,8 @@ const browser: Browser = await chromium.launch({
 });
 const phone = { viewport: { width: 360, height: 740 }, isMobile: true, hasTouch: true, locale: 'en-GB' };
 
-interface Traffic { bytes: number; scripts: Set<string>; inFlight: Set<string>; lastActivity: number; reset(): void }
+interface Traffic { bytes: number; inFlight: Set<string>; lastActivity: number; log: { url: string; bytes: number; at: number }[] }
+const VERBOSE = process.argv.includes('--verbose');
 
 /** A throttled page with a record of its traffic (CDP Network events: every request the page makes). */
 async function throttledPage(context: BrowserContext): Promise<{ page: Page; cdp: CDPSession; traffic: Traffic }> {
@@ -150,20 +155,18 @@ async function throttledPage(context: BrowserContext): Promise<{ page: Page; cdp
   await cdp.send('Network.emulateNetworkConditions', FAST_3G);
   await cdp.send('Emulation.setCPUThrottlingRate', { rate: CPU_SLOWDOWN });
   const traffic: Traffic = {
-    bytes: 0, scripts: new Set(), inFlight: new Set(), lastActivity: performance.now(),
-    reset() { this.bytes = 0; this.scripts.clear(); },
+    bytes: 0, inFlight: new Set(), lastActivity: performance.now(), log: [],
   };
+  const started = performance.now();
   const urls = new Map<string, string>();
   cdp.on('Network.requestWillBeSent', (e) => {
     urls.set(e.requestId, e.request.url);
     traffic.inFlight.add(e.requestId);
     traffic.lastActivity = performance.now();
   });
-  cdp.on('Network.responseReceived', (e) => {
-    if (e.type === 'Script' || /\.m?js(\?|$)/.test(e.response.url)) traffic.scripts.add(new URL(e.response.url).pathname);
-  });
   cdp.on('Network.loadingFinished', (e) => {
     traffic.bytes += e.encodedDataLength;
+    traffic.log.push({ url: urls.get(e.requestId) ?? '?', bytes: e.encodedDataLength, at: performance.now() - started });
     traffic.inFlight.delete(e.requestId);
     traffic.lastActivity = performance.now();
   });
@@ -193,6 +196,31 @@ function gzipBytes(dir: string, paths: Iterable<string>): number {
   return total;
 }
 
+/**
+ * The initial JavaScript of a screen, read from the build: the entry script of index.html, the screen's
+ * route chunks, the text chunks it loads at once (English here), and every chunk these import statically,
+ * transitively. Chunks fetched later by a dynamic import (the region map's chart library, other screens)
+ * are not part of it, even when the browser happens to request them before the screen has painted.
+ */
+function initialJs(dir: string, routeChunks: string[], namespaces: string[]): { files: string[]; gzip: number } {
+  const assets = readdirSync(path.join(dir, 'assets'));
+  const entry = /<script type="module"[^>]*src="\/([^"]+)"/.exec(readFileSync(path.join(dir, 'index.html'), 'utf8'))![1];
+  const starts = [entry, ...routeChunks.flatMap((name) => assets.filter((f) => f.startsWith(`${name}-`) && f.endsWith('.js')).map((f) => `assets/${f}`))];
+  starts.push(...namespaces.flatMap((ns) => assets.filter((f) => f.startsWith(`texts-en-${ns}-`) && f.endsWith('.js')).map((f) => `assets/${f}`)));
+  const seen = new Set<string>();
+  const stack = [...starts];
+  while (stack.length) {
+    const file = stack.pop()!;
+    if (seen.has(file) || !existsSync(path.join(dir, file))) continue;
+    seen.add(file);
+    const code = readFileSync(path.join(dir, file), 'utf8');
+    // Static imports only: `import{a as b}from"./x.js"` and `import"./x.js"`, never `import("./x.js")`.
+    for (const m of code.matchAll(/\bimport\s*(?:[^"'();]*?from\s*)?["'](\.\.?\/[^"']+\.js)["']/g))
+      stack.push(path.posix.join(path.posix.dirname(file), m[1]));
+  }
+  return { files: [...seen], gzip: gzipBytes(dir, [...seen].map((f) => `/${f}`)) };
+}
+
 const emailField = (page: Page) => page.locator('input[type="email"]').first();
 const ladderRow = (page: Page) => page.locator('.ladder-table tbody tr[data-district]').first();
 
@@ -206,15 +234,17 @@ async function measureOnce(base: string, dir: string): Promise<Run> {
   await page.goto(`${base}/sign-in`, { waitUntil: 'commit' });
   await emailField(page).waitFor({ state: 'visible', timeout: 120_000 });
   const signInS = (performance.now() - t0) / 1000;
-  const signInJs = gzipBytes(dir, traffic.scripts);
-  await page.locator('input[type="email"]').fill(EMAIL);
-  await page.locator('input[type="password"]').fill(DEMO_PASSWORD);
+  const signInJs = initialJs(dir, ['sign-in.page'], ['common', 'app', 'components', 'auth']).gzip;
+  // Typed as a person types on a phone (TYPING_MS a key), during which the Ladder is preloaded.
+  await page.locator('input[type="email"]').pressSequentially(EMAIL, { delay: TYPING_MS });
+  await page.locator('input[type="password"]').pressSequentially(DEMO_PASSWORD, { delay: TYPING_MS });
   t0 = performance.now();
   await page.locator('form button[type="submit"]').first().click();
   await ladderRow(page).waitFor({ state: 'visible', timeout: 120_000 });
   const ladderAfterSignInS = (performance.now() - t0) / 1000;
   await networkQuiet(traffic);
   const coldBytes = traffic.bytes;
+  if (VERBOSE) for (const r of traffic.log) console.log(`  ${(r.at / 1000).toFixed(2).padStart(6)} s ${String(r.bytes).padStart(8)} B ${new URL(r.url).pathname}`);
   const cookies = await cold.cookies();
   await cold.close();
 
@@ -226,7 +256,7 @@ async function measureOnce(base: string, dir: string): Promise<Run> {
   await d.page.goto(`${base}/`, { waitUntil: 'commit' });
   await ladderRow(d.page).waitFor({ state: 'visible', timeout: 120_000 });
   const ladderDirectS = (performance.now() - t0) / 1000;
-  const ladderJs = gzipBytes(dir, d.traffic.scripts);
+  const ladderJs = initialJs(dir, ['app-layout', 'ladder.page'], ['common', 'app', 'components', 'cautions', 'districts', 'help', 'ladder', 'region-map']).gzip;
   await direct.close();
 
   // Warm: the service worker installed by a first visit, then a new visit to the sign-in page.
