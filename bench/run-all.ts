@@ -1,12 +1,13 @@
 /**
  * `npm run bench`: every benchmark of the project, one after another on this machine — the season model,
- * the weather intake, the board (season runs and the Ladder's API), the fault drills and the load — then one
+ * the weather intake, the board (season runs and the Ladder's API), the fault drills, the load and the field
+ * phone (the client over a throttled network and CPU) — then one
  * Markdown report (bench/report.md) with each figure beside its floor or bare peer measured in the same
  * run, their ratio, the goal and whether it was met, plus the machine and the date.
  *   npm run bench                 full sizes (several minutes of both cores: run it on a quiet machine)
  *   npm run bench -- --quick      small sizes (model 500 districts, intake 500 stations, board 200 districts,
  *                                 fewer drill repetitions, 10 s of load) for a quick look
- *   npm run bench -- --only model,drills   a subset (model, intake, board, drills, load); --out FILE elsewhere
+ *   npm run bench -- --only model,drills   a subset (model, intake, board, drills, load, phone); --out FILE elsewhere
  * Each benchmark runs in its own process; its figures are the JSON object on the last line of its output.
  */
 import { execFileSync } from 'node:child_process';
@@ -151,6 +152,28 @@ if (want('load')) {
   } else notes.push('load: no figures read from its last line.');
 }
 
+// ---- the field phone
+if (want('phone')) {
+  const r = await run('phone', path.join(here, 'phone.bench.ts'), QUICK ? ['--quick'] : []);
+  const f = r.figures;
+  if (f?.after) {
+    const a = f.after;
+    const b = f.before;
+    const g = f.goals;
+    const was = (k: string, digits: number, unit: string) => (b ? `before ${fmt(b[k], digits)} ${unit}` : `issue 20: ${f.issueBefore?.[k] ?? '—'} ${unit}`);
+    const ratio = (k: string) => (b && b[k] ? `${fmt(a[k] / b[k], 2)} of before` : '—');
+    const line = (label: string, k: string, digits: number, unit: string, goal: string, ok: boolean) =>
+      rows.push({ benchmark: `field phone (Fast 3G, CPU ×4): ${label}`, figure: `${fmt(a[k], digits)} ${unit}`, peer: was(k, digits, unit), ratio: ratio(k), goal, met: yes(ok) });
+    line('initial JS, sign-in', 'signInJsKb', 0, 'kB gzip', `≤ ${g.signInJsKb} kB`, a.signInJsKb <= g.signInJsKb);
+    line('initial JS, Ladder', 'ladderJsKb', 0, 'kB gzip', `≤ ${g.ladderJsKb} kB`, a.ladderJsKb <= g.ladderJsKb);
+    line('cold sign-in page', 'coldSignInS', 2, 's', `< ${g.coldSignInS} s`, a.coldSignInS < g.coldSignInS);
+    line('Ladder after signing in', 'ladderAfterSignInS', 2, 's', `< ${g.ladderAfterSignInS} s`, a.ladderAfterSignInS < g.ladderAfterSignInS);
+    line('warm start (service worker)', 'warmStartS', 2, 's', `< ${g.warmStartS} s`, a.warmStartS < g.warmStartS);
+    line('bytes, cold sign-in to Ladder', 'coldBytesKb', 0, 'kB', `≤ ${g.coldBytesKb} kB`, a.coldBytesKb <= g.coldBytesKb);
+    if (f.precache) notes.push(`phone: the service worker precaches ${f.precache.files} files, ${fmt(f.precache.bytes / 1e6, 2)} MB (docs/offline.md).`);
+  } else notes.push('phone: no figures read from its last line.');
+}
+
 // ---- the report
 const machine = await describeMachine();
 const md = [
@@ -162,7 +185,7 @@ const md = [
   '',
   'Each figure is measured beside its floor or bare peer in the same run, on the same machine. Reproduce with `npm run bench`',
   '(or `npm run bench -- --quick`); each line also has its own command: `npm run bench:model`, `bench:intake`, `bench:board`,',
-  '`bench:drills`, `bench:load`. Each drill says what it does at the top of its script in bench/drills/; the fuzz tests run with `npm test`.',
+  '`bench:drills`, `bench:load`, `bench:phone`. Each drill says what it does at the top of its script in bench/drills/; the fuzz tests run with `npm test`.',
   '',
   '| benchmark | figure | floor / peer | ratio | goal | met? |',
   '|---|---|---|---|---|---|',

@@ -1,6 +1,8 @@
 import 'reflect-metadata';
+import compression from 'compression';
 import cookieParser from 'cookie-parser';
 import express, { type Express } from 'express';
+import expressStaticGzip from 'express-static-gzip';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
@@ -54,6 +56,10 @@ export function createApp(ctx: AppContext): BroodcastApp {
     }),
   );
 
+  // Answers built on the fly (API JSON, the CSV reports, index.html) are compressed for slow networks; an
+  // answer that is already encoded (the board's cached gzip, the pre-compressed assets below) is left as is.
+  app.use(compression());
+
   const auth = new AuthService(ctx);
   const routes: RouteDef[] = [
     ...healthRoutes(ctx),
@@ -89,23 +95,37 @@ export function createApp(ctx: AppContext): BroodcastApp {
   api.use(errorMiddleware(ctx.logger));
   app.use('/api', api);
 
-  // The built client, with the single-page fallback for its routes.
+  // The built client (docs/offline.md, "Fast on a slow network"): the build writes a brotli (.br) and gzip
+  // (.gz) copy of every script, style and font next to it, and the one the browser accepts is sent with its
+  // Content-Encoding. Hashed files under assets/ never change: cached a year, immutable. index.html, the
+  // service worker and the manifest are revalidated on every visit; other unhashed files (icons) for an hour.
   const dist = path.resolve(ctx.config.CLIENT_DIST);
   const index = path.join(dist, 'index.html');
   app.use(
-    express.static(dist, {
+    expressStaticGzip(dist, {
+      enableBrotli: true,
+      orderPreference: ['br', 'gz'],
       index: false,
-      maxAge: '1h',
-      // The service worker and the manifest are checked for a new version on every visit (docs/offline.md).
-      setHeaders: (res, file) => {
-        if (/[\\/](sw\.js|manifest\.webmanifest)$/.test(file)) res.setHeader('Cache-Control', 'no-cache');
+      serveStatic: {
+        index: false,
+        maxAge: '1h',
+        setHeaders: (res, file) => setClientCacheHeaders(res, path.relative(dist, file)),
       },
     }),
   );
   app.use((req, res, next) => {
     if (req.method !== 'GET' || !req.accepts('html')) return next();
     if (!existsSync(index)) return res.status(503).type('text').send('The client is not built yet: run npm start.');
-    res.sendFile(index);
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile('index.html', { root: dist, cacheControl: false });
   });
   return app;
+}
+
+/** Cache-Control of a file of the built client, by its path inside dist/client (with .br/.gz when compressed). */
+export function setClientCacheHeaders(res: { setHeader(name: string, value: string): unknown }, relative: string): void {
+  const file = relative.split(path.sep).join('/').replace(/\.(br|gz)$/, '');
+  if (file.startsWith('assets/')) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+  // The shell and the service worker and manifest are checked for a new version on every visit (docs/offline.md).
+  else if (/^(index\.html|sw\.js|manifest\.webmanifest)$/.test(file)) res.setHeader('Cache-Control', 'no-cache');
 }

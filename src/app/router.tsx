@@ -1,17 +1,96 @@
-import { createBrowserRouter, type RouteObject } from 'react-router-dom';
-import { SignInPage } from '../features/auth/sign-in.page';
-import { PasswordResetRequestPage } from '../features/auth/password-reset-request.page';
-import { PasswordResetConfirmPage } from '../features/auth/password-reset-confirm.page';
-import { InviteAcceptPage } from '../features/auth/invite-accept.page';
-import { LadderPage } from '../features/ladder/ladder.page';
-import { UsersAdminPage } from '../features/users/users-admin.page';
-import { DistrictsAdminPage } from '../features/districts/districts-admin.page';
-import { AppLayout } from './app-layout';
+import type { ReactNode, SyntheticEvent } from 'react';
+import { createBrowserRouter, matchRoutes, type RouteObject } from 'react-router-dom';
+import { loadNamespaces } from '../i18n';
+import { SCREEN_TEXTS, type ScreenModule } from '../i18n/screen-texts';
+import { meQueryOptions } from '../features/auth/api/me.api';
 import { rolesFor } from './navigation';
 import { NotFoundPage } from './not-found.page';
 import { queryClient } from './query-client';
 import { LoadingScreen, RouteErrorPage, ScreenErrorPage } from './route-error.page';
 import { RequireRole, sessionLoader } from './session';
+
+type LazyParts = Awaited<ReturnType<Extract<NonNullable<RouteObject['lazy']>, (...args: never[]) => unknown>>>;
+
+/**
+ * Every screen is its own chunk (React Router lazy routes), fetched with its texts in the user's language
+ * (src/i18n/screen-texts.ts), both at once, the first time its route is matched or preloaded. So the
+ * sign-in page brings no chart, map or table code, and a screen's code arrives only when it is opened or
+ * likely to be (see `preloadPath`). The promise is kept, so a preload and the navigation share one fetch;
+ * a failed fetch (offline) is forgotten and tried again next time.
+ */
+function screen<M>(texts: ScreenModule, load: () => Promise<M>, parts: (m: M) => LazyParts): () => Promise<LazyParts> {
+  let pending: Promise<LazyParts> | null = null;
+  return () =>
+    (pending ??= Promise.all([load(), loadNamespaces(SCREEN_TEXTS[texts])]).then(
+      ([m]) => parts(m),
+      (error: unknown) => {
+        pending = null;
+        throw error;
+      },
+    ));
+}
+
+const guarded = (roles: Parameters<typeof RequireRole>[0]['roles'], page: ReactNode) => <RequireRole roles={roles}>{page}</RequireRole>;
+
+/** Fetch the code and texts of the screens at `path` (no navigation), when a person is likely to open it. */
+export function preloadPath(path: string): void {
+  for (const match of matchRoutes(routes, path) ?? []) {
+    const lazy = match.route.lazy;
+    if (typeof lazy === 'function') void (lazy as () => Promise<unknown>)().catch(() => undefined);
+  }
+}
+
+/** Where a pointer or the keyboard is heading: a link about to be followed has its screen preloaded. */
+function preloadLinkTarget(event: SyntheticEvent) {
+  const link = (event.target as Element | null)?.closest?.('a[href]');
+  if (link instanceof HTMLAnchorElement && link.origin === window.location.origin) preloadPath(link.pathname);
+}
+
+/** Around the signed-in layout: hovering, touching or focusing any link preloads its screen. */
+function PreloadLinks({ children }: { children: ReactNode }) {
+  return (
+    <div className="contents" onPointerOver={preloadLinkTarget} onTouchStart={preloadLinkTarget} onFocus={preloadLinkTarget}>
+      {children}
+    </div>
+  );
+}
+
+/**
+ * Around the sign-in page: once the person starts on the form, the signed-in layout and the screen they
+ * will land on (the Ladder, or the `next` address) are fetched while they type.
+ */
+let signInIntent = false;
+function onSignInIntent() {
+  if (signInIntent) return;
+  signInIntent = true;
+  const next = new URLSearchParams(window.location.search).get('next');
+  preloadPath(next && next.startsWith('/') && !next.startsWith('//') ? next.split('?')[0] : '/');
+}
+function PreloadAfterSignIn({ children }: { children: ReactNode }) {
+  return (
+    <div className="contents" onPointerDown={onSignInIntent} onFocus={onSignInIntent} onKeyDown={onSignInIntent}>
+      {children}
+    </div>
+  );
+}
+
+/**
+ * The Ladder's data, asked for as soon as its route is matched (beside its code, not after it): once the
+ * signed-in user is known, the board and the region map's boundaries go into the query cache.
+ */
+function prefetchLadderData() {
+  void queryClient
+    .ensureQueryData(meQueryOptions())
+    .then(async () => {
+      const [{ boardQueryOptions }, { boundariesQueryOptions }] = await Promise.all([
+        import('../features/ladder/api/board.api'),
+        import('../features/region-map/api/boundaries.api'),
+      ]);
+      await Promise.all([queryClient.prefetchQuery(boardQueryOptions()), queryClient.prefetchQuery(boundariesQueryOptions())]);
+    })
+    .catch(() => undefined); // no session: the layout's loader sends the person to sign in
+  return null;
+}
 
 /**
  * The routes. Screens without a session stand alone; everything else sits in the signed-in layout, whose
@@ -19,20 +98,44 @@ import { RequireRole, sessionLoader } from './session';
  * navigation data, so the menu and the guard agree.
  */
 export const routes: RouteObject[] = [
-  { path: '/sign-in', element: <SignInPage /> },
-  { path: '/forgot-password', element: <PasswordResetRequestPage /> },
-  { path: '/reset-password', element: <PasswordResetConfirmPage /> },
-  { path: '/invite/accept', element: <InviteAcceptPage /> },
+  {
+    path: '/sign-in',
+    lazy: screen('features/auth/sign-in.page', () => import('../features/auth/sign-in.page'), ({ SignInPage }) => ({
+      element: (
+        <PreloadAfterSignIn>
+          <SignInPage />
+        </PreloadAfterSignIn>
+      ),
+    })),
+  },
+  {
+    path: '/forgot-password',
+    lazy: screen('features/auth/password-reset-request.page', () => import('../features/auth/password-reset-request.page'), (m) => ({ Component: m.PasswordResetRequestPage })),
+  },
+  {
+    path: '/reset-password',
+    lazy: screen('features/auth/password-reset-confirm.page', () => import('../features/auth/password-reset-confirm.page'), (m) => ({ Component: m.PasswordResetConfirmPage })),
+  },
+  {
+    path: '/invite/accept',
+    lazy: screen('features/auth/invite-accept.page', () => import('../features/auth/invite-accept.page'), (m) => ({ Component: m.InviteAcceptPage })),
+  },
   {
     // The one-click unsubscribe link of every mail: no session needed.
     path: '/unsubscribe',
-    lazy: async () => ({ Component: (await import('../features/subscriptions/unsubscribe.page')).UnsubscribePage }),
+    lazy: screen('features/subscriptions/unsubscribe.page', () => import('../features/subscriptions/unsubscribe.page'), (m) => ({ Component: m.UnsubscribePage })),
   },
   {
     id: 'signed-in',
     path: '/',
     loader: sessionLoader(queryClient),
-    element: <AppLayout />,
+    lazy: screen('app/app-layout', () => import('./app-layout'), ({ AppLayout }) => ({
+      element: (
+        <PreloadLinks>
+          <AppLayout />
+        </PreloadLinks>
+      ),
+    })),
     errorElement: <RouteErrorPage />,
     HydrateFallback: LoadingScreen,
     children: [
@@ -41,131 +144,115 @@ export const routes: RouteObject[] = [
         children: [
           {
             index: true,
-            element: (
-              <RequireRole roles={rolesFor('ladder')}>
-                <LadderPage />
-              </RequireRole>
-            ),
+            loader: prefetchLadderData,
+            lazy: screen('features/ladder/ladder.page', () => import('../features/ladder/ladder.page'), ({ LadderPage }) => ({
+              element: guarded(rolesFor('ladder'), <LadderPage />),
+            })),
           },
           {
             path: 'admin/users',
-            element: (
-              <RequireRole roles={rolesFor('users')}>
-                <UsersAdminPage />
-              </RequireRole>
-            ),
+            lazy: screen('features/users/users-admin.page', () => import('../features/users/users-admin.page'), ({ UsersAdminPage }) => ({
+              element: guarded(rolesFor('users'), <UsersAdminPage />),
+            })),
           },
           {
             path: 'admin/districts',
-            element: (
-              <RequireRole roles={rolesFor('districts')}>
-                <DistrictsAdminPage />
-              </RequireRole>
-            ),
+            lazy: screen('features/districts/districts-admin.page', () => import('../features/districts/districts-admin.page'), ({ DistrictsAdminPage }) => ({
+              element: guarded(rolesFor('districts'), <DistrictsAdminPage />),
+            })),
           },
           {
             path: 'cases',
-            lazy: async () => {
-              const { CaseLedgerPage } = await import('../features/cases/case-ledger.page');
-              return { element: <RequireRole roles={rolesFor('case-ledger')}><CaseLedgerPage /></RequireRole> };
-            },
+            lazy: screen('features/cases/case-ledger.page', () => import('../features/cases/case-ledger.page'), ({ CaseLedgerPage }) => ({
+              element: guarded(rolesFor('case-ledger'), <CaseLedgerPage />),
+            })),
           },
           {
             // Part of the District file: every signed-in role (the server keeps community workers to their district).
             path: 'districts/:id/cases',
-            lazy: async () => ({ Component: (await import('../features/cases/district-cases.page')).DistrictCasesPage }),
+            lazy: screen('features/cases/district-cases.page', () => import('../features/cases/district-cases.page'), (m) => ({ Component: m.DistrictCasesPage })),
           },
           {
             path: 'surveys',
-            lazy: async () => {
-              const { SurveysPage } = await import('../features/surveys/surveys.page');
-              return { element: <RequireRole roles={rolesFor('surveys')}><SurveysPage /></RequireRole> };
-            },
+            lazy: screen('features/surveys/surveys.page', () => import('../features/surveys/surveys.page'), ({ SurveysPage }) => ({
+              element: guarded(rolesFor('surveys'), <SurveysPage />),
+            })),
           },
           {
             // The printable District file (static SVG drawings, no ECharts).
             path: 'districts/:id/print',
-            lazy: async () => {
-              const { DistrictPrintPage } = await import('../features/district-file/print/district-print.page');
-              return { element: <RequireRole roles={rolesFor('ladder')}><DistrictPrintPage /></RequireRole> };
-            },
+            lazy: screen('features/district-file/print/district-print.page', () => import('../features/district-file/print/district-print.page'), ({ DistrictPrintPage }) => ({
+              element: guarded(rolesFor('ladder'), <DistrictPrintPage />),
+            })),
           },
           {
             // The District file, with ECharts, loads only when a District file is opened.
             path: 'districts/:id',
-            lazy: async () => {
-              const { DistrictFilePage } = await import('../features/district-file/district-file.page');
-              return { element: <RequireRole roles={rolesFor('ladder')}><DistrictFilePage /></RequireRole> };
-            },
+            lazy: screen('features/district-file/district-file.page', () => import('../features/district-file/district-file.page'), ({ DistrictFilePage }) => ({
+              element: guarded(rolesFor('ladder'), <DistrictFilePage />),
+            })),
           },
           {
             path: 'season-runs',
-            lazy: async () => {
-              const { SeasonRunsPage } = await import('../features/season-runs/season-runs.page');
-              return { element: <RequireRole roles={rolesFor('season-runs')}><SeasonRunsPage /></RequireRole> };
-            },
+            lazy: screen('features/season-runs/season-runs.page', () => import('../features/season-runs/season-runs.page'), ({ SeasonRunsPage }) => ({
+              element: guarded(rolesFor('season-runs'), <SeasonRunsPage />),
+            })),
           },
           {
             path: 'intake',
-            lazy: async () => {
-              const { IntakePage } = await import('../features/weather/intake.page');
-              return { element: <RequireRole roles={rolesFor('intake')}><IntakePage /></RequireRole> };
-            },
+            lazy: screen('features/weather/intake.page', () => import('../features/weather/intake.page'), ({ IntakePage }) => ({
+              element: guarded(rolesFor('intake'), <IntakePage />),
+            })),
           },
           {
             // Stations and district weather series: every signed-in role (community workers: their own district).
             path: 'weather/stations',
-            lazy: async () => ({ Component: (await import('../features/weather/stations.page')).StationsPage }),
+            lazy: screen('features/weather/stations.page', () => import('../features/weather/stations.page'), (m) => ({ Component: m.StationsPage })),
           },
           {
             path: 'weather/districts/:id?',
-            lazy: async () => ({ Component: (await import('../features/weather/district-weather.page')).DistrictWeatherPage }),
+            lazy: screen('features/weather/district-weather.page', () => import('../features/weather/district-weather.page'), (m) => ({ Component: m.DistrictWeatherPage })),
           },
           {
             path: 'sign-off',
-            lazy: async () => {
-              const { SignOffPage } = await import('../features/flags/sign-off.page');
-              return { element: <RequireRole roles={rolesFor('sign-off')}><SignOffPage /></RequireRole> };
-            },
+            lazy: screen('features/flags/sign-off.page', () => import('../features/flags/sign-off.page'), ({ SignOffPage }) => ({
+              element: guarded(rolesFor('sign-off'), <SignOffPage />),
+            })),
           },
           {
             // Raise a flag by hand: health officers and epidemiologists (DESIGN.md §2).
             path: 'flags/new',
-            lazy: async () => {
-              const { RaiseFlagPage } = await import('../features/flags/raise-flag.page');
-              return { element: <RequireRole roles={['officer', 'epidemiologist']}><RaiseFlagPage /></RequireRole> };
-            },
+            lazy: screen('features/flags/raise-flag.page', () => import('../features/flags/raise-flag.page'), ({ RaiseFlagPage }) => ({
+              element: guarded(['officer', 'epidemiologist'], <RaiseFlagPage />),
+            })),
           },
           {
             path: 'flags/:id',
-            lazy: async () => {
-              const { FlagPage } = await import('../features/flags/flag.page');
-              return { element: <RequireRole roles={['admin', 'officer', 'epidemiologist', 'supervisor']}><FlagPage /></RequireRole> };
-            },
+            lazy: screen('features/flags/flag.page', () => import('../features/flags/flag.page'), ({ FlagPage }) => ({
+              element: guarded(['admin', 'officer', 'epidemiologist', 'supervisor'], <FlagPage />),
+            })),
           },
           {
             path: 'advisories',
-            lazy: async () => {
-              const { AdvisoriesPage } = await import('../features/flags/advisories.page');
-              return { element: <RequireRole roles={rolesFor('advisories')}><AdvisoriesPage /></RequireRole> };
-            },
+            lazy: screen('features/flags/advisories.page', () => import('../features/flags/advisories.page'), ({ AdvisoriesPage }) => ({
+              element: guarded(rolesFor('advisories'), <AdvisoriesPage />),
+            })),
           },
           {
             path: 'bulletin',
-            lazy: async () => {
-              const { BulletinPage } = await import('../features/bulletins/bulletin.page');
-              return { element: <RequireRole roles={rolesFor('bulletin')}><BulletinPage /></RequireRole> };
-            },
+            lazy: screen('features/bulletins/bulletin.page', () => import('../features/bulletins/bulletin.page'), ({ BulletinPage }) => ({
+              element: guarded(rolesFor('bulletin'), <BulletinPage />),
+            })),
           },
           {
             // Every signed-in role chooses its own mail.
             path: 'preferences',
-            lazy: async () => ({ Component: (await import('../features/subscriptions/preferences.page')).PreferencesPage }),
+            lazy: screen('features/subscriptions/preferences.page', () => import('../features/subscriptions/preferences.page'), (m) => ({ Component: m.PreferencesPage })),
           },
           {
             // Every signed-in role sets its own language and display units.
             path: 'settings',
-            lazy: async () => ({ Component: (await import('../features/settings/settings.page')).SettingsPage }),
+            lazy: screen('features/settings/settings.page', () => import('../features/settings/settings.page'), (m) => ({ Component: m.SettingsPage })),
           },
           { path: '*', element: <NotFoundPage /> },
         ],
