@@ -9,6 +9,7 @@ import { BinaryCopyWriter } from '../db/pg-binary-copy';
 export interface DistrictForRun {
   id: string;
   code: string;
+  name: string;
   lat: number | null;
   profiles: { profileId: string; biofix: string | null }[];
 }
@@ -75,9 +76,9 @@ export class SeasonRepository {
   constructor(private readonly ds: DataSource) {}
 
   async districts(): Promise<DistrictForRun[]> {
-    const rows: { id: string; code: string; lat: number | null; profiles: { profileId: string; biofix: string | null }[] | null }[] =
+    const rows: { id: string; code: string; name: string; lat: number | null; profiles: { profileId: string; biofix: string | null }[] | null }[] =
       await this.ds.query(
-        `SELECT d.id, d.code, d.centroid_lat AS lat,
+        `SELECT d.id, d.code, d.name, d.centroid_lat AS lat,
                 json_agg(json_build_object('profileId', dp.profile_id, 'biofix', dp.biofix) ORDER BY dp.profile_id)
                   FILTER (WHERE dp.profile_id IS NOT NULL) AS profiles
            FROM districts d LEFT JOIN district_profiles dp ON dp.district_id = d.id
