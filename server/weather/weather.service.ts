@@ -183,18 +183,20 @@ export class WeatherService {
    */
   async voidDay(actor: Principal, body: VoidDayBody) {
     return this.ctx.ds.transaction(async (manager) => {
-      if (!(await this.repo.station(body.stationId, manager))) throw notFound('The station');
+      const [found]: { id: string }[] = await manager.query('SELECT id FROM weather_stations WHERE code = $1', [body.station]);
+      if (!found) throw badRequest('unknown_station', 'No station has this code.', [{ path: 'station', message: 'is not a known station' }]);
+      const stationId = found.id;
       const year = Number(body.date.slice(0, 4));
       // Serialise with intakes writing this station-year.
-      await manager.query('SELECT 1 FROM weather_station_years WHERE station_id = $1 AND year = $2 FOR UPDATE', [body.stationId, year]);
-      const y = (await readStationYears(manager, [{ stationId: body.stationId, year }])).get(stationYearKey(body.stationId, year));
+      await manager.query('SELECT 1 FROM weather_station_years WHERE station_id = $1 AND year = $2 FOR UPDATE', [stationId, year]);
+      const y = (await readStationYears(manager, [{ stationId: stationId, year }])).get(stationYearKey(stationId, year));
       const i = Date.parse(`${body.date}T00:00:00Z`) / 86_400_000 - yearStartDay(year);
       if (!y || !(i >= 0 && i < y.tmin.length) || Number.isNaN(y.tmin[i]))
         throw badRequest('no_value', 'The station has no value on this day.', [{ path: 'date', message: 'has no value at this station' }]);
       const old = { tmin: y.tmin[i], tmax: y.tmax[i], rh: nanToNull(y.rh[i]), rain: nanToNull(y.rain[i]), flags: flagNames(y.flags[i]) };
       const previousUploadId = y.uploadIx[i] > 0 ? y.uploads[y.uploadIx[i] - 1] : null;
       await manager.insert(WeatherObservationRevisionEntity, {
-        stationId: body.stationId, date: body.date, ...old, previousUploadId, replacedByUploadId: null, replacedBy: actor.userId, kind: 'void', reason: body.reason,
+        stationId: stationId, date: body.date, ...old, previousUploadId, replacedByUploadId: null, replacedBy: actor.userId, kind: 'void', reason: body.reason,
       });
       y.tmin[i] = Number.NaN;
       y.tmax[i] = Number.NaN;
@@ -203,13 +205,13 @@ export class WeatherService {
       y.flags[i] = 0;
       y.uploadIx[i] = 0;
       await writeStationYears(manager, [y]);
-      const fed: { district_id: string }[] = await manager.query('SELECT DISTINCT district_id FROM district_weather_sources WHERE station_id = $1', [body.stationId]);
+      const fed: { district_id: string }[] = await manager.query('SELECT DISTINCT district_id FROM district_weather_sources WHERE station_id = $1', [stationId]);
       await recomputeDistrictSeries(manager, fed.map((r) => r.district_id), this.ctx.config.WEATHER_FILL_MAX_DAYS);
       await recordAudit(manager, {
-        actorId: actor.userId, action: 'weather-day.voided', entity: 'weather_station', entityId: body.stationId,
+        actorId: actor.userId, action: 'weather-day.voided', entity: 'weather_station', entityId: stationId,
         before: { date: body.date, ...old, uploadId: previousUploadId }, after: { voided: true, districtsRecomputed: fed.length }, reason: body.reason,
       });
-      return { stationId: body.stationId, date: body.date, voided: { ...old, reason: body.reason }, districtsRecomputed: fed.length };
+      return { stationId: stationId, date: body.date, voided: { ...old, reason: body.reason }, districtsRecomputed: fed.length };
     });
   }
 

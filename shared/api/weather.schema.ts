@@ -81,7 +81,8 @@ export const revisionsQuery = z.strictObject({ date: isoDate.optional() });
 
 /** Void one station-day entered in error (admin, health officer): its values stay in the revisions, and count nowhere. */
 export const voidDayBody = z.strictObject({
-  stationId: z.uuid({ message: 'must be an id (UUID)' }),
+  /** The station's code, as in an upload or a correction. */
+  station: z.string().trim().min(1, { message: 'is required' }),
   date: isoDate,
   reason: voidBody.shape.reason,
 });

@@ -30,14 +30,14 @@ const fingerprint = async () => (await new SeasonRepository(t.ds).fingerprints('
 describe('voiding a weather day', () => {
   it('when the reason is missing, then 400 names reason; when an epidemiologist or a worker voids, then 403; nothing is written', async () => {
     const before = await rows();
-    const res = await officer.post('/api/weather/observations/void').send({ stationId: station.id, date: '2026-03-05' });
+    const res = await officer.post('/api/weather/observations/void').send({ station: station.code, date: '2026-03-05' });
     expect(res.status).toBe(400);
     expect(res.body.error.fields.map((f: { path: string }) => f.path)).toContain('reason');
     for (const role of ['epidemiologist', 'worker', 'supervisor']) {
       const other = await signedInAgent(t.app, (await makeUser(t.ds, { role: role as never, districtIds: [district.id] })).email);
-      expect((await other.post('/api/weather/observations/void').send({ stationId: station.id, date: '2026-03-05', reason: 'x' })).status).toBe(403);
+      expect((await other.post('/api/weather/observations/void').send({ station: station.code, date: '2026-03-05', reason: 'x' })).status).toBe(403);
     }
-    const none = await officer.post('/api/weather/observations/void').send({ stationId: station.id, date: '2026-03-20', reason: 'x' });
+    const none = await officer.post('/api/weather/observations/void').send({ station: station.code, date: '2026-03-20', reason: 'x' });
     expect(none.status).toBe(400);
     expect(none.body.error.fields[0].path).toBe('date');
     expect(await rows()).toEqual(before);
@@ -46,7 +46,7 @@ describe('voiding a weather day', () => {
   it('when an officer voids the day, then it leaves the station\'s days and the district series, its values stay in the revisions with the reason, and the season input changes', async () => {
     const printBefore = await fingerprint();
     const before = await rows();
-    const res = await officer.post('/api/weather/observations/void').send({ stationId: station.id, date: '2026-03-05', reason: 'Sensor in the sun' });
+    const res = await officer.post('/api/weather/observations/void').send({ station: station.code, date: '2026-03-05', reason: 'Sensor in the sun' });
     expect(res.status).toBe(200);
     expect(res.body).toMatchObject({ date: '2026-03-05', voided: { tmin: 41, tmax: 58, reason: 'Sensor in the sun' }, districtsRecomputed: 1 });
     const after = await rows();
