@@ -46,10 +46,10 @@ export class DistrictFileService {
             AND s.start_date + (u.i - 1)::int BETWEEN $2::date AND $3::date
           ORDER BY s.profile_id, s.start_date + (u.i - 1)::int`, [districtId, from, to]),
       q(`SELECT c.disease_id, d.name AS disease_name, c.epi_year, c.epi_week, c.cases FROM case_counts c JOIN diseases d ON d.id = c.disease_id
-          WHERE c.district_id = $1 AND c.epi_year BETWEEN $2 AND $3`, [districtId, seasonYear - CHANNEL_LOOKBACK_YEARS, seasonYear]),
+          WHERE c.district_id = $1 AND c.epi_year BETWEEN $2 AND $3 AND c.voided_at IS NULL`, [districtId, seasonYear - CHANNEL_LOOKBACK_YEARS, seasonYear]),
       q(`SELECT epi_year, epi_week, houses_inspected AS "housesInspected", houses_positive AS "housesPositive",
                 containers_inspected AS "containersInspected", containers_positive AS "containersPositive", pupae
-           FROM larval_surveys WHERE district_id = $1 AND epi_year = $2 ORDER BY epi_year, epi_week`, [districtId, seasonYear]),
+           FROM larval_surveys WHERE district_id = $1 AND epi_year = $2 AND voided_at IS NULL ORDER BY epi_year, epi_week`, [districtId, seasonYear]),
       q(`SELECT epi_year, epi_week, tier, tier_low, tier_high, score, confidence, drivers, notes, leading_driver, changed_driver
            FROM district_tiers WHERE district_id = $1 AND epi_year = $2 ORDER BY epi_week`, [districtId, seasonYear]),
       q(`SELECT disease_id, excluded_years FROM case_channel_settings WHERE district_id = $1`, [districtId]),

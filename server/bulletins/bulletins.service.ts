@@ -3,6 +3,7 @@ import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import type { Principal } from '../auth/principal';
 import { conflict, notFound } from '../http/errors';
+import { reasonOf } from '../http/problem-reason';
 import { withAdvisoryLock } from '../../jobs/advisory-lock';
 import { enqueueMail } from '../outbox/outbox.repository';
 import { DEFAULT_LANGUAGE } from '../i18n';
@@ -21,6 +22,9 @@ export const BULLETIN_LOCK = 'bulletin';
  */
 export class BulletinsService {
   private readonly reader: BulletinDataReader;
+
+  /** For fault-injection tests: called before each district's bulletin is written; a throw is that district's failure. */
+  districtHook?: (districtId: string) => void;
 
   constructor(private readonly ctx: AppContext) {
     this.reader = new BulletinDataReader(ctx);
@@ -71,7 +75,9 @@ export class BulletinsService {
 
   private async writeWeek(actor: Principal | null): Promise<BulletinSendResponse> {
     const board = await this.reader.ranking();
-    const out: BulletinSendResponse = { epiYear: board.epiYear, epiWeek: board.epiWeek, bulletinsWritten: 0, districtsSkipped: 0, messagesQueued: 0 };
+    const out: BulletinSendResponse = {
+      epiYear: board.epiYear, epiWeek: board.epiWeek, bulletinsWritten: 0, districtsSkipped: 0, messagesQueued: 0, districtsFailed: [],
+    };
     if (board.epiYear === null || board.epiWeek === null) return out;
     const done = new Set<string>(
       (await this.ctx.ds.query(`SELECT district_id FROM bulletins WHERE epi_year = $1 AND epi_week = $2`, [board.epiYear, board.epiWeek]))
@@ -82,41 +88,57 @@ export class BulletinsService {
         out.districtsSkipped += 1;
         continue;
       }
-      const d = (await this.reader.read(row.districtId, board))!;
-      const base = await renderBulletin(d, DEFAULT_LANGUAGE);
-      const { subject, html, text, pdf } = base;
-      const queued = await this.ctx.ds.transaction(async (manager) => {
-        const inserted = await manager.createQueryBuilder().insert().into(BulletinEntity)
-          .values({ districtId: d.district.id, epiYear: d.epiYear, epiWeek: d.epiWeek, subject, html, text, pdf, createdBy: actor?.userId ?? null })
-          .orIgnore().returning(['id']).execute();
-        const bulletinId: string | undefined = inserted.raw[0]?.id;
-        if (!bulletinId) return null; // another process wrote it first
-        const recipients = await recipientsOf(manager, d.district.id, 'bulletin');
-        // Each recipient reads the bulletin (and its PDF) in their own language.
-        const versions = await bulletinVersions(manager, bulletinId, d, base, recipients.map((r) => r.language));
-        const n = await enqueueMail(manager, this.ctx.config, recipients.map((r) => {
-          const links = subscriberLinks(this.ctx.config, r.userId, d.district.id);
-          const v = versions.get(r.language)!;
-          const footer = mailFooter(d.district.name, links.unsubscribeUrl, links.preferencesUrl, r.language);
-          return {
-            kind: 'bulletin' as const, to: r.email, userId: r.userId, subject: v.subject, text: `${v.text}\n\n${footer.text}`,
-            html: withFooter(v.html, footer.html), headers: { ...links.headers, ...languageHeaders(r.language) }, bulletinId,
-          };
-        }));
-        await recordAudit(manager, {
-          actorId: actor?.userId ?? null, action: 'bulletin.written', entity: 'bulletin', entityId: bulletinId,
-          after: { districtId: d.district.id, epiYear: d.epiYear, epiWeek: d.epiWeek, recipients: n },
-          reason: actor ? 'sent now from the Bulletin screen' : 'weekly schedule',
-        });
-        return n;
-      });
+      // A district whose data cannot be read or rendered is left out and reported; every other
+      // district's subscribers still get theirs (issue 14, "isolation").
+      let queued: number | null;
+      try {
+        queued = await this.writeDistrict(actor, row.districtId, board);
+      } catch (err) {
+        const reason = reasonOf(err);
+        out.districtsFailed.push({ districtId: row.districtId, districtName: row.name, reason });
+        this.ctx.logger.warn({ district: row.code, reason, err: (err as Error)?.message }, 'bulletin: district left out, others go on');
+        continue;
+      }
       if (queued === null) out.districtsSkipped += 1;
       else {
         out.bulletinsWritten += 1;
         out.messagesQueued += queued;
       }
     }
-    this.ctx.logger.info({ ...out }, 'bulletin written');
+    this.ctx.logger.info({ ...out, districtsFailed: out.districtsFailed.length }, 'bulletin written');
     return out;
+  }
+
+  /** Write one district's bulletin and queue it, in one transaction; null when another process wrote it first. */
+  private async writeDistrict(actor: Principal | null, districtId: string, board: Awaited<ReturnType<BulletinDataReader['ranking']>>): Promise<number | null> {
+    this.districtHook?.(districtId);
+    const d = (await this.reader.read(districtId, board))!;
+    const base = await renderBulletin(d, DEFAULT_LANGUAGE);
+    const { subject, html, text, pdf } = base;
+    return this.ctx.ds.transaction(async (manager) => {
+      const inserted = await manager.createQueryBuilder().insert().into(BulletinEntity)
+        .values({ districtId: d.district.id, epiYear: d.epiYear, epiWeek: d.epiWeek, subject, html, text, pdf, createdBy: actor?.userId ?? null })
+        .orIgnore().returning(['id']).execute();
+      const bulletinId: string | undefined = inserted.raw[0]?.id;
+      if (!bulletinId) return null; // another process wrote it first
+      const recipients = await recipientsOf(manager, d.district.id, 'bulletin');
+      // Each recipient reads the bulletin (and its PDF) in their own language.
+      const versions = await bulletinVersions(manager, bulletinId, d, base, recipients.map((r) => r.language));
+      const n = await enqueueMail(manager, this.ctx.config, recipients.map((r) => {
+        const links = subscriberLinks(this.ctx.config, r.userId, d.district.id);
+        const v = versions.get(r.language)!;
+        const footer = mailFooter(d.district.name, links.unsubscribeUrl, links.preferencesUrl, r.language);
+        return {
+          kind: 'bulletin' as const, to: r.email, userId: r.userId, subject: v.subject, text: `${v.text}\n\n${footer.text}`,
+          html: withFooter(v.html, footer.html), headers: { ...links.headers, ...languageHeaders(r.language) }, bulletinId,
+        };
+      }));
+      await recordAudit(manager, {
+        actorId: actor?.userId ?? null, action: 'bulletin.written', entity: 'bulletin', entityId: bulletinId,
+        after: { districtId: d.district.id, epiYear: d.epiYear, epiWeek: d.epiWeek, recipients: n },
+        reason: actor ? 'sent now from the Bulletin screen' : 'weekly schedule',
+      });
+      return n;
+    });
   }
 }

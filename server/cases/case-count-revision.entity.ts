@@ -29,9 +29,9 @@ export class CaseCountRevisionEntity {
   @Column({ name: 'actor_id', type: 'uuid', nullable: true })
   actorId: string | null;
 
-  /** 'entry' | 'correction' */
+  /** 'entry' | 'correction' | 'void' (a void keeps the values: old and new are the count as it was) */
   @Column({ type: 'text' })
-  kind: 'entry' | 'correction';
+  kind: 'entry' | 'correction' | 'void';
 
   /** 'form' | 'grid' | 'upload' | 'demo' */
   @Column({ type: 'text' })

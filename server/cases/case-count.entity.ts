@@ -15,6 +15,7 @@ export type AgeBandCounts = Partial<Record<string, number>>;
 @Check('case_counts_probable_check', 'probable IS NULL OR (probable >= 0 AND probable <= cases)')
 @Check('case_counts_split_check', 'coalesce(confirmed, 0) + coalesce(probable, 0) <= cases')
 @Check('case_counts_week_check', 'epi_week BETWEEN 1 AND 53')
+@Check('case_counts_void_check', '(voided_at IS NULL) = (void_reason IS NULL)')
 @Check('case_counts_version_check', 'version >= 1')
 export class CaseCountEntity {
   @PrimaryGeneratedColumn('uuid')
@@ -61,6 +62,16 @@ export class CaseCountEntity {
 
   @Column({ name: 'updated_at', type: 'timestamptz' })
   updatedAt: Date;
+
+  /** Voided (entered in error): the row stays readable in lists, history and audit, and counts nowhere. */
+  @Column({ name: 'voided_at', type: 'timestamptz', nullable: true })
+  voidedAt: Date | null;
+
+  @Column({ name: 'voided_by', type: 'uuid', nullable: true })
+  voidedBy: string | null;
+
+  @Column({ name: 'void_reason', type: 'text', nullable: true })
+  voidReason: string | null;
 
   @ManyToOne(() => DistrictEntity, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'district_id' })

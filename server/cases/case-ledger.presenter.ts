@@ -19,6 +19,7 @@ export const presentCount = (c: CaseCountEntity): CaseCountDto => ({
   late: c.late,
   reportedAt: c.reportedAt.toISOString(),
   updatedAt: c.updatedAt.toISOString(),
+  voided: c.voidedAt ? { at: c.voidedAt.toISOString(), by: c.voidedBy, reason: c.voidReason ?? '' } : null,
 });
 
 type RevisionRow = Awaited<ReturnType<CaseLedgerRepository['revisions']>>[number];

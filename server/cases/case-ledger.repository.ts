@@ -48,6 +48,7 @@ export class CaseLedgerRepository {
   /** Counts of the districts and disease between two week keys (year·100 + week), inclusive. */
   countsBetween(districtIds: string[], diseaseId: string, fromKey: number, toKey: number, manager: EntityManager = this.ds.manager) {
     if (districtIds.length === 0) return Promise.resolve([] as CaseCountEntity[]);
+    // Voided counts come too (the grid shows them marked); whoever counts skips `voidedAt !== null`.
     return manager
       .createQueryBuilder(CaseCountEntity, 'c')
       .where('c.district_id = ANY(:districtIds)', { districtIds })
@@ -61,7 +62,7 @@ export class CaseLedgerRepository {
     if (districtIds.length === 0) return [] as { district_id: string; epi_year: number; epi_week: number; on_time: boolean }[];
     return manager.query(
       `SELECT district_id, epi_year, epi_week, bool_or(NOT late) AS on_time FROM case_counts
-        WHERE district_id = ANY($1) AND epi_year * 100 + epi_week BETWEEN $2 AND $3
+        WHERE district_id = ANY($1) AND epi_year * 100 + epi_week BETWEEN $2 AND $3 AND voided_at IS NULL
         GROUP BY district_id, epi_year, epi_week`,
       [districtIds, fromKey, toKey],
     ) as Promise<{ district_id: string; epi_year: number; epi_week: number; on_time: boolean }[]>;
@@ -87,7 +88,7 @@ export class CaseLedgerRepository {
         WHERE r.case_count_id = $1 ORDER BY r.version`,
       [caseCountId],
     ) as Promise<{
-      version: number; at: Date; kind: 'entry' | 'correction'; source: string; old_values: CaseCountRevisionEntity['oldValues'];
+      version: number; at: Date; kind: 'entry' | 'correction' | 'void'; source: string; old_values: CaseCountRevisionEntity['oldValues'];
       new_values: CaseCountRevisionEntity['newValues']; reason: string | null; actor_id: string | null; display_name: string | null;
     }[]>;
   }

@@ -187,6 +187,7 @@ export class CaseLedgerService {
     }
 
     const before = valuesOf(existing);
+    if (existing.voidedAt) return this.reenterVoided(manager, actor, existing, before, next, closed, reason, opts.source);
     if (sameValues(before, next)) return { outcome: 'unchanged', count: existing, closed };
     if (!reason)
       throw badRequest('reason_required', `The count already holds ${before.cases}${closed ? ' and the week is closed' : ''}: a correction needs a reason.`, [
@@ -203,6 +204,57 @@ export class CaseLedgerService {
     });
     const count = (await this.repo.findCountById(existing.id, manager))!;
     return { outcome: 'corrected', count, closed };
+  }
+
+  /**
+   * A count entered again after it was voided: it counts again with the new values (a correction that
+   * clears the void; a closed week still needs a reason, as a late entry would).
+   */
+  private async reenterVoided(
+    manager: EntityManager, actor: Principal, existing: CaseCountEntity, before: CountValues, next: CountValues, closed: boolean,
+    reason: string | undefined, source: string,
+  ): Promise<WriteOutcome> {
+    if (closed && !reason)
+      throw badRequest('reason_required', `Week ${existing.epiWeek} of ${existing.epiYear} is closed: a late count needs a reason.`, [
+        { path: 'reason', message: 'is required: the week is closed' },
+      ]);
+    const version = existing.version + 1;
+    await manager.update(CaseCountEntity, { id: existing.id }, { ...next, version, updatedAt: new Date(), voidedAt: null, voidedBy: null, voidReason: null });
+    await manager.insert(CaseCountRevisionEntity, {
+      caseCountId: existing.id, version, actorId: actor.userId, kind: 'correction', source, oldValues: before, newValues: next, reason: reason ?? null,
+    });
+    await recordAudit(manager, {
+      actorId: actor.userId, action: 'case-count.corrected', entity: 'case_count', entityId: existing.id,
+      before: { ...before, voided: true }, after: { ...next, version, closedWeek: closed }, reason,
+    });
+    return { outcome: 'corrected', count: (await this.repo.findCountById(existing.id, manager))!, closed };
+  }
+
+  /**
+   * Void a count entered in error (an epidemiologist of the district): it stays readable in the grid and
+   * its revision history (a `void` revision with the reason), and counts nowhere — channel, signals, tier,
+   * District file, bulletin, completeness.
+   */
+  async voidCount(actor: Principal, countId: string, reason: string) {
+    const count = await this.ctx.ds.transaction(async (manager) => {
+      const existing = await manager.findOne(CaseCountEntity, { where: { id: countId }, lock: { mode: 'pessimistic_write' } });
+      if (!existing) throw notFound('The count');
+      assertAssigned(actor, existing.districtId);
+      if (existing.voidedAt) throw conflict('already_voided', 'This count is already voided.');
+      const values = valuesOf(existing);
+      const version = existing.version + 1;
+      await manager.update(CaseCountEntity, { id: existing.id }, { version, updatedAt: new Date(), voidedAt: new Date(), voidedBy: actor.userId, voidReason: reason });
+      await manager.insert(CaseCountRevisionEntity, {
+        caseCountId: existing.id, version, actorId: actor.userId, kind: 'void', source: 'grid', oldValues: values, newValues: values, reason,
+      });
+      await recordAudit(manager, {
+        actorId: actor.userId, action: 'case-count.voided', entity: 'case_count', entityId: existing.id,
+        before: { districtId: existing.districtId, diseaseId: existing.diseaseId, year: existing.epiYear, week: existing.epiWeek, ...values },
+        after: { voided: true, version }, reason,
+      });
+      return (await this.repo.findCountById(existing.id, manager))!;
+    });
+    return { count: presentCount(count) };
   }
 
   async putCount(actor: Principal, districtId: string, body: z.infer<typeof caseCountBody>) {
@@ -353,6 +405,11 @@ export class CaseLedgerService {
     const byYear = new Map<number, (number | null)[]>();
     const rowsThisYear = new Map<number, CaseCountEntity>();
     for (const c of counts) {
+      if (c.voidedAt) {
+        // A voided count keeps its row (and history link) but counts in no signal.
+        if (c.epiYear === year) rowsThisYear.set(c.epiWeek, c);
+        continue;
+      }
       if (!byYear.has(c.epiYear)) byYear.set(c.epiYear, Array.from({ length: weeksInYear(c.epiYear, this.system) }, () => null));
       byYear.get(c.epiYear)![c.epiWeek - 1] = c.cases;
       if (c.epiYear === year) rowsThisYear.set(c.epiWeek, c);
@@ -395,6 +452,7 @@ export class CaseLedgerService {
           ...w,
           start: weekRef(year, w.week, this.system).start,
           countId: row?.id ?? null,
+          voided: row?.voidedAt != null,
           late: row?.late ?? false,
           closed: closed.has(w.week),
         };

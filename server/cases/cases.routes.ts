@@ -9,6 +9,7 @@ import {
   districtCasesQuery,
   gridQuery,
 } from '../../shared/api/cases.schema';
+import { voidBody } from '../../shared/api/void.schema';
 import type { AppContext } from '../app-context';
 import { badRequest } from '../http/errors';
 import { defineRoute, type RouteDef } from '../http/route';
@@ -50,6 +51,10 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
           report,
         });
       },
+    }),
+    defineRoute({
+      method: 'post', path: '/cases/counts/:id/void', access: ['epidemiologist'], params: idParams, body: voidBody,
+      handler: ({ principal, params, body }) => ledger.voidCount(principal, params.id, body.reason),
     }),
     defineRoute({
       method: 'get', path: '/cases/counts/:id/revisions', access: ['admin', 'supervisor', 'epidemiologist'], params: idParams,

@@ -6,6 +6,7 @@ import { UserEntity } from '../users/user.entity';
 @Entity({ name: 'larval_surveys' })
 @Index('larval_surveys_district_week_idx', ['districtId', 'epiYear', 'epiWeek'])
 @Check('larval_surveys_counts_check', 'houses_inspected >= 0 AND houses_positive >= 0 AND containers_inspected >= 0 AND containers_positive >= 0 AND (pupae IS NULL OR pupae >= 0)')
+@Check('larval_surveys_void_check', '(voided_at IS NULL) = (void_reason IS NULL)')
 @Check('larval_surveys_houses_check', 'houses_positive <= houses_inspected')
 @Check('larval_surveys_containers_check', 'containers_positive <= containers_inspected')
 export class LarvalSurveyEntity {
@@ -54,6 +55,16 @@ export class LarvalSurveyEntity {
 
   @Column({ name: 'submitted_at', type: 'timestamptz' })
   submittedAt: Date;
+
+  /** Voided (entered in error): the row stays readable in lists, history and audit, and counts nowhere. */
+  @Column({ name: 'voided_at', type: 'timestamptz', nullable: true })
+  voidedAt: Date | null;
+
+  @Column({ name: 'voided_by', type: 'uuid', nullable: true })
+  voidedBy: string | null;
+
+  @Column({ name: 'void_reason', type: 'text', nullable: true })
+  voidReason: string | null;
 
   @ManyToOne(() => DistrictEntity, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'district_id' })

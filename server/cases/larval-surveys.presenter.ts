@@ -26,4 +26,8 @@ export const presentSurvey = (s: LarvalSurveyEntity, district: { id: string; cod
   notes: s.notes,
   submittedAt: s.submittedAt.toISOString(),
   indices: larvalIndices(surveyCounts(s)),
+  voided: voidedOf(s),
 });
+
+export const voidedOf = (s: { voidedAt: Date | null; voidedBy: string | null; voidReason: string | null }) =>
+  s.voidedAt ? { at: s.voidedAt.toISOString(), by: s.voidedBy, reason: s.voidReason ?? '' } : null;

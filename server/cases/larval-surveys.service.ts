@@ -58,6 +58,28 @@ export class LarvalSurveysService {
     });
   }
 
+  /**
+   * Void a survey entered in error (the roles that may enter one, in their own districts): it stays in
+   * the list and the audit trail, and stops counting in the indices, the District file and the season run.
+   */
+  async voidSurvey(actor: Principal, id: string, reason: string) {
+    return this.ctx.ds.transaction(async (manager) => {
+      const survey = await manager.findOne(LarvalSurveyEntity, { where: { id }, lock: { mode: 'pessimistic_write' } });
+      if (!survey) throw notFound('The survey');
+      assertAssigned(actor, survey.districtId);
+      if (survey.voidedAt) throw conflict('already_voided', 'This survey is already voided.');
+      const voidedAt = new Date();
+      await manager.update(LarvalSurveyEntity, { id }, { voidedAt, voidedBy: actor.userId, voidReason: reason });
+      await recordAudit(manager, {
+        actorId: actor.userId, action: 'larval-survey.voided', entity: 'larval_survey', entityId: id,
+        before: { districtId: survey.districtId, locality: survey.locality, date: survey.surveyDate, ...surveyCounts(survey) },
+        after: { voided: true }, reason,
+      });
+      const district = (await manager.findOne(DistrictEntity, { where: { id: survey.districtId }, select: { id: true, code: true, name: true } }))!;
+      return presentSurvey({ ...survey, voidedAt, voidedBy: actor.userId, voidReason: reason }, districtRefOf(district));
+    });
+  }
+
   /** A district's recent surveys with their indices, and the indices pooled per epidemiological week. */
   async listForDistrict(p: Principal, districtId: string) {
     assertDistrictVisible(p, districtId);
@@ -67,7 +89,8 @@ export class LarvalSurveysService {
       where: { districtId }, order: { surveyDate: 'DESC', submittedAt: 'DESC' }, take: 200,
     });
     const byWeek = new Map<number, LarvalSurveyEntity[]>();
-    for (const s of surveys) {
+    // A voided survey is listed (marked) but counts in no week's indices.
+    for (const s of surveys.filter((x) => x.voidedAt === null)) {
       const k = weekKey(s.epiYear, s.epiWeek);
       byWeek.set(k, [...(byWeek.get(k) ?? []), s]);
     }

@@ -1,5 +1,6 @@
 import { idParams } from '../../shared/api/common.schema';
 import { surveyBody } from '../../shared/api/surveys.schema';
+import { voidBody } from '../../shared/api/void.schema';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
 import { LarvalSurveysService } from './larval-surveys.service';
@@ -15,6 +16,10 @@ export function surveysRoutes(ctx: AppContext) {
         // 201 the first time, 200 with the stored survey when the browser sends the same id again.
         res.status(created ? 201 : 200).json(survey);
       },
+    }),
+    defineRoute({
+      method: 'post', path: '/surveys/:id/void', access: ['officer', 'worker'], params: idParams, body: voidBody,
+      handler: ({ principal, params, body }) => service.voidSurvey(principal, params.id, body.reason),
     }),
     defineRoute({
       method: 'get', path: '/districts/:id/surveys', access: 'signed-in', params: idParams,

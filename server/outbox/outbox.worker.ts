@@ -1,5 +1,6 @@
 import type { AppContext } from '../app-context';
 import type { Mailer } from '../mail/mailer';
+import { reasonOf } from '../http/problem-reason';
 
 export type SendOutcome = 'sent' | 'retry' | 'failed';
 
@@ -15,6 +16,12 @@ interface ClaimedRow {
   attempts: number;
   pdf: Buffer | null;
   pdf_name: string | null;
+}
+
+/** An error's text as stored in the delivery log: at most 1,000 characters, without NUL bytes (PostgreSQL text refuses them). */
+function errorText(err: unknown): string {
+  const text = String((err as Error)?.message ?? '').replaceAll('\u0000', '');
+  return text.slice(0, 1000) || 'unknown error';
 }
 
 /**
@@ -60,6 +67,7 @@ export class OutboxWorker {
     const { config } = this.ctx;
     const runner = this.ctx.ds.createQueryRunner();
     await runner.connect();
+    let claimed: string | null = null;
     try {
       await runner.startTransaction();
       const [row]: ClaimedRow[] = await runner.query(
@@ -80,8 +88,10 @@ export class OutboxWorker {
         await runner.commitTransaction();
         return null;
       }
+      claimed = row.id;
       const started = Date.now();
       let error: string | null = null;
+      let permanent = false;
       try {
         await this.mailer.send({
           to: row.to_address,
@@ -93,10 +103,14 @@ export class OutboxWorker {
           attachments: row.pdf ? [{ filename: row.pdf_name!, content: row.pdf, contentType: 'application/pdf' }] : undefined,
         });
       } catch (err) {
-        error = (err as Error).message?.slice(0, 1000) || 'unknown error';
+        error = errorText(err);
+        // The mail server refused this message for good (an SMTP 5xx answer, e.g. an unknown mailbox):
+        // trying again cannot help, so it fails now and the drain goes on with the others.
+        const responseCode = (err as { responseCode?: unknown }).responseCode;
+        if (typeof responseCode === 'number' && responseCode >= 500 && responseCode < 600) permanent = true;
       }
       const attempts = row.attempts + 1;
-      const outcome: SendOutcome = error === null ? 'sent' : attempts >= config.OUTBOX_MAX_ATTEMPTS ? 'failed' : 'retry';
+      const outcome: SendOutcome = error === null ? 'sent' : permanent || attempts >= config.OUTBOX_MAX_ATTEMPTS ? 'failed' : 'retry';
       const backoff = Math.min(config.OUTBOX_BACKOFF_SECONDS * 2 ** (attempts - 1), config.OUTBOX_BACKOFF_MAX_SECONDS);
       await runner.query(
         `UPDATE outbox_messages
@@ -116,9 +130,24 @@ export class OutboxWorker {
       return outcome;
     } catch (err) {
       if (runner.isTransactionActive) await runner.rollbackTransaction().catch(() => undefined);
-      throw err;
+      if (!claimed) throw err;
+      // Recording this one message's outcome failed (its data broke the write): mark it failed on its
+      // own so that it is not claimed first again and again, blocking every message behind it.
+      await this.markBroken(claimed, err);
+      return 'failed';
     } finally {
       await runner.release();
     }
+  }
+
+  /** Mark one message failed after its own outcome could not be recorded, with a code as its error. */
+  private async markBroken(id: string, err: unknown) {
+    const code = `not_recorded: ${reasonOf(err).code}`;
+    await this.ctx.ds.query(
+      `UPDATE outbox_messages SET attempts = attempts + 1, status = 'failed', last_error = $2 WHERE id = $1 AND status = 'pending'`,
+      [id, code],
+    );
+    await this.ctx.ds.query(`INSERT INTO outbox_attempts (message_id, outcome, error, duration_ms) VALUES ($1, 'failed', $2, 0)`, [id, code]);
+    this.ctx.logger.error({ message: id, err: (err as Error)?.message }, 'mail failed for good: its outcome could not be recorded; the others go on');
   }
 }

@@ -3,11 +3,12 @@
  * tier inputs (docs/tier.md) and the tier with low / central / high variants.
  */
 import {
-  computeSeasonColumns, createSeasonColumns, epiWeek, formatIsoDate, isLeapYear, parseIsoDate, type EpiWeekSystem, getProfile, type SeasonColumns, type SeasonColumnsInput,
+  computeSeasonColumns, createSeasonColumns, epiWeek, formatIsoDate, isLeapYear, parseIsoDate, type EpiWeekSystem, getProfile, findProfile, type SeasonColumns, type SeasonColumnsInput,
   weeksInYear,
 } from '../../shared/model';
 import { aggregateLarvalIndices } from '../../shared/signals';
 import { buildSignals } from '../cases/case-signals';
+import { DataProblem } from '../http/problem-reason';
 import { computeTier, type TierInputs, type TierResult, type TierSettings } from '../../shared/tier';
 import type { CaseRow, DistrictForRun, SurveyRow, VectorClockSeries, WeatherColumns } from './season.repository';
 
@@ -38,7 +39,8 @@ export interface DistrictSeasonResult {
   casesThisWeek: number | null;
   channelZone: 'below' | 'within' | 'above' | null;
   latestWeather: string | null;
-  warnings: { code: string; message: string }[];
+  /** Codes with parameters; the Season runs screen words them (`warning.<code>`). */
+  warnings: { code: string; params?: Record<string, string | number | null> }[];
 }
 
 const mean = (xs: number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
@@ -127,9 +129,11 @@ export function computeDistrictSeason(input: DistrictSeasonInput): DistrictSeaso
   const series: VectorClockSeries[] = [];
   const warnings: DistrictSeasonResult['warnings'] = [];
   const { district } = input;
-  if (district.profiles.length === 0) warnings.push({ code: 'no_profiles', message: `${district.code}: no vector profile assigned.` });
-  if (input.weather.rows === 0) warnings.push({ code: 'missing_weather', message: `${district.code}: no weather this season.` });
-  if (district.lat === null) warnings.push({ code: 'no_position', message: `${district.code}: no boundary, so no latitude for day length.` });
+  if (district.profiles.length === 0) warnings.push({ code: 'no_profiles' });
+  if (input.weather.rows === 0) warnings.push({ code: 'missing_weather' });
+  if (district.lat === null) warnings.push({ code: 'no_position' });
+  // A stored profile the model does not know is this district's fault, named as such (not a bare RangeError).
+  for (const { profileId } of district.profiles) if (!findProfile(profileId)) throw new DataProblem('unknown_profile', { profileId });
 
   type Candidate = { profileId: string; biofix: string | null; rvc: number | null; rvcLow: number | null; rvcHigh: number | null;
     seasonOpen: boolean; eipShare: number | null; eipShareLow: number | null; eipShareHigh: number | null; generations: number };
@@ -189,7 +193,7 @@ export function computeDistrictSeason(input: DistrictSeasonInput): DistrictSeaso
   };
   const central = build('central');
   const tier = computeTier(central, input.settings);
-  if (tier.confidence !== 'ok') warnings.push({ code: `tier_${tier.confidence}`, message: `${district.code}: ${tier.notes.join(' ')}` });
+  if (tier.confidence !== 'ok') warnings.push({ code: `tier_${tier.confidence}` });
   return {
     series,
     tier,

@@ -1,3 +1,4 @@
+import type { RunWarning } from '../../shared/api/problems.schema';
 import { Check, Column, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
 
 export type SeasonRunStatus = 'running' | 'succeeded' | 'failed';
@@ -47,8 +48,10 @@ export class SeasonRunEntity {
   rowsWritten: number;
 
   @Column({ type: 'jsonb', default: () => "'[]'" })
-  warnings: { districtId?: string; code: string; message: string }[];
+  /** Codes with parameters (shared/api/problems.schema.ts), worded by the Season runs screen. */
+  warnings: RunWarning[];
 
+  /** Why the run as a whole stopped: a code (`interrupted`, `drill_stopped`, or an error's reason code). */
   @Column({ type: 'text', nullable: true })
   error: string | null;
 }

@@ -1,5 +1,6 @@
 import type { SeasonRunDto } from '../../shared/api/board.schema';
 import type { SeasonRunEntity } from './season-run.entity';
+import { failedCount } from './season-run.service';
 
 export const presentSeasonRun = (r: SeasonRunEntity): SeasonRunDto => ({
   id: r.id,
@@ -13,6 +14,7 @@ export const presentSeasonRun = (r: SeasonRunEntity): SeasonRunDto => ({
   districtsDone: r.districtsDone,
   districtsSkipped: r.districtsSkipped,
   rowsWritten: r.rowsWritten,
+  districtsFailed: failedCount(r.warnings ?? []),
   warnings: r.warnings,
   error: r.error,
 });

@@ -11,6 +11,8 @@ import { TierSettingsService } from './tier-settings.service';
 import { CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
 import { changedDriver, tierRank } from '../../shared/tier';
 import { raiseSeasonFlags } from '../flags/flags.service';
+import type { RunWarning } from '../../shared/api/problems.schema';
+import { reasonOf } from '../http/problem-reason';
 
 export const SEASON_RUN_LOCK = 'season-run';
 const BATCH = 25;
@@ -28,7 +30,14 @@ export interface RunOptions {
   asOf?: string;
   /** For drills: stop with an error after this many districts. */
   failAfter?: number;
+  /**
+   * For fault-injection tests: called before each district is computed ('compute') and before its
+   * results are written ('write'); a throw there is that district's failure, as a fault in its data would be.
+   */
+  districtHook?: (stage: 'compute' | 'write', districtId: string) => void;
 }
+
+type Computed = { district: DistrictForRun; result: DistrictSeasonResult; before: PreviousTier | undefined };
 
 /**
  * The season run: for every district and profile, the vector clock from the biofix to today, then the
@@ -87,7 +96,7 @@ export class SeasonRunService {
     const runs = this.ctx.ds.getRepository(SeasonRunEntity);
     await this.ctx.ds.query(
       `UPDATE season_runs SET status = 'failed', finished_at = now(),
-              error = coalesce(error, 'Interrupted: the process stopped before the run finished; the next run completes the work.')
+              error = coalesce(error, 'interrupted')
         WHERE status = 'running'`,
     );
     return runs.save(runs.create({
@@ -137,26 +146,36 @@ export class SeasonRunService {
         ]);
         const casesOf = groupBy(cases, (c) => c.districtId);
         const surveysOf = groupBy(surveys, (s) => s.districtId);
-        const results: { district: DistrictForRun; result: DistrictSeasonResult; before: PreviousTier | undefined }[] = [];
+        const results: Computed[] = [];
         for (const district of batch) {
           if (opts.failAfter !== undefined && computed >= opts.failAfter) {
-            stop = new Error('drill: stopped part-way');
+            stop = new DrillStop();
             break;
           }
-          const result = computeDistrictSeason({
-            district, asOf, seasonYear, weather: weather.get(district.id)!, priorWeather: weatherByYear(prior.get(district.id)!),
-            cases: casesOf.get(district.id) ?? [], excludedYears: excluded,
-            surveys: surveysOf.get(district.id) ?? [], settings,
-            epiSystem: this.ctx.config.EPI_WEEK_SYSTEM, channelMethod: this.ctx.config.CHANNEL_METHOD,
-            cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H },
-          });
-          results.push({ district, result, before: previous.get(district.id) });
           computed++;
+          // One district's bad data (a value the model refuses, an unknown profile) is that district's
+          // failure, recorded as a warning; the others go on (issue 14, "isolation").
+          try {
+            opts.districtHook?.('compute', district.id);
+            const result = computeDistrictSeason({
+              district, asOf, seasonYear, weather: weather.get(district.id)!, priorWeather: weatherByYear(prior.get(district.id)!),
+              cases: casesOf.get(district.id) ?? [], excludedYears: excluded,
+              surveys: surveysOf.get(district.id) ?? [], settings,
+              epiSystem: this.ctx.config.EPI_WEEK_SYSTEM, channelMethod: this.ctx.config.CHANNEL_METHOD,
+              cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H },
+            });
+            results.push({ district, result, before: previous.get(district.id) });
+          } catch (err) {
+            this.districtFailed(run, district, 'compute', err);
+          }
         }
         if (inflight) await inflight;
-        if (results.length === 0) break;
-        inflight = this.writeBatch(run, { seasonYear, asOf, week, fingerprints }, results).then(async () => {
-          await runs.update(run.id, { districtsDone: run.districtsDone, rowsWritten: run.rowsWritten });
+        if (results.length === 0) {
+          if (stop) break;
+          continue;
+        }
+        inflight = this.writeIsolated(run, { seasonYear, asOf, week, fingerprints }, results, opts).then(async () => {
+          await runs.update(run.id, { districtsDone: run.districtsDone, rowsWritten: run.rowsWritten, warnings: capWarnings(run.warnings) });
         });
         // A failed write is reported by the next await; keep Node from calling it unhandled meanwhile.
         inflight.catch(() => undefined);
@@ -165,19 +184,61 @@ export class SeasonRunService {
       if (stop) throw stop;
       run.status = 'succeeded';
       run.finishedAt = new Date();
-      await runs.update(run.id, { status: run.status, finishedAt: run.finishedAt, warnings: run.warnings.slice(0, 1000) });
-      this.ctx.logger.info({ run: run.id, done: run.districtsDone, skipped: run.districtsSkipped, rows: run.rowsWritten }, 'season run finished');
+      run.warnings = capWarnings(run.warnings);
+      await runs.update(run.id, { status: run.status, finishedAt: run.finishedAt, warnings: run.warnings });
+      this.ctx.logger.info({ run: run.id, done: run.districtsDone, failed: failedCount(run.warnings), skipped: run.districtsSkipped, rows: run.rowsWritten }, 'season run finished');
       return run;
     } catch (err) {
       run.status = 'failed';
       run.finishedAt = new Date();
-      run.error = (err as Error).message;
+      // A code the screen words (the English text stays in the log).
+      run.error = err instanceof DrillStop ? 'drill_stopped' : reasonOf(err).code;
+      run.warnings = capWarnings(run.warnings);
       await runs.update(run.id, {
         status: 'failed', finishedAt: run.finishedAt, error: run.error, districtsDone: run.districtsDone,
-        rowsWritten: run.rowsWritten, warnings: run.warnings.slice(0, 1000),
+        rowsWritten: run.rowsWritten, warnings: run.warnings,
       }).catch(() => undefined);
-      this.ctx.logger.error({ run: run.id, err: run.error }, 'season run failed');
+      this.ctx.logger.error({ run: run.id, err: (err as Error).message }, 'season run failed');
       return run;
+    }
+  }
+
+  /** Record one district's failure on the run (a code and parameters) and log the full error. */
+  private districtFailed(run: SeasonRunEntity, district: DistrictForRun, stage: 'compute' | 'write', err: unknown) {
+    const reason = reasonOf(err);
+    run.warnings.push({ code: 'district_failed', districtId: district.id, districtName: district.name, params: { stage }, reason });
+    this.ctx.logger.warn({ run: run.id, district: district.code, stage, reason, err: (err as Error)?.message }, 'season run: district failed, others go on');
+  }
+
+  /**
+   * Write a batch; when its transaction fails, write its districts one by one so that only the
+   * district whose results PostgreSQL refuses is left out (its old results and fingerprint stay, so
+   * the next run tries it again).
+   */
+  private async writeIsolated(
+    run: SeasonRunEntity, at: Parameters<SeasonRunService['writeBatch']>[1], results: Computed[], opts: RunOptions,
+  ): Promise<void> {
+    const ok: Computed[] = [];
+    for (const r of results) {
+      try {
+        opts.districtHook?.('write', r.district.id);
+        ok.push(r);
+      } catch (err) {
+        this.districtFailed(run, r.district, 'write', err);
+      }
+    }
+    if (ok.length === 0) return;
+    try {
+      await this.writeBatch(run, at, ok);
+    } catch (err) {
+      if (ok.length === 1) return this.districtFailed(run, ok[0].district, 'write', err);
+      for (const r of ok) {
+        try {
+          await this.writeBatch(run, at, [r]);
+        } catch (e) {
+          this.districtFailed(run, r.district, 'write', e);
+        }
+      }
     }
   }
 
@@ -189,7 +250,7 @@ export class SeasonRunService {
   private async writeBatch(
     run: SeasonRunEntity,
     at: { seasonYear: number; asOf: string; week: { year: number; week: number }; fingerprints: Map<string, string> },
-    results: { district: DistrictForRun; result: DistrictSeasonResult; before: PreviousTier | undefined }[],
+    results: Computed[],
   ): Promise<void> {
     const written = await this.ctx.ds.transaction(async (manager) => {
       // Derived data, recomputable: the commit need not wait for the WAL flush. Atomicity is
@@ -220,9 +281,25 @@ export class SeasonRunService {
     });
     run.districtsDone += results.length;
     run.rowsWritten += written;
-    for (const { district, result } of results) run.warnings.push(...result.warnings.map((w) => ({ ...w, districtId: district.id })));
+    for (const { district, result } of results) {
+      run.warnings.push(...result.warnings.map((w) => ({ ...w, districtId: district.id, districtName: district.name })));
+    }
   }
 }
+
+class DrillStop extends Error {
+  constructor() {
+    super('drill: stopped part-way');
+  }
+}
+
+/** At most 1,000 warnings are kept; failed districts first, so none of them is ever cut. */
+function capWarnings(warnings: RunWarning[]): RunWarning[] {
+  if (warnings.length <= 1000) return warnings;
+  return [...warnings.filter((w) => w.code === 'district_failed'), ...warnings.filter((w) => w.code !== 'district_failed')].slice(0, 1000);
+}
+
+export const failedCount = (warnings: RunWarning[]) => warnings.filter((w) => w.code === 'district_failed').length;
 
 const minTier = (a: string, b: string) => (tierRank(a as never) <= tierRank(b as never) ? a : b);
 const maxTier = (a: string, b: string) => (tierRank(a as never) >= tierRank(b as never) ? a : b);

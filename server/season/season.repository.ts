@@ -9,6 +9,7 @@ import { BinaryCopyWriter } from '../db/pg-binary-copy';
 export interface DistrictForRun {
   id: string;
   code: string;
+  name: string;
   lat: number | null;
   profiles: { profileId: string; biofix: string | null }[];
 }
@@ -75,9 +76,9 @@ export class SeasonRepository {
   constructor(private readonly ds: DataSource) {}
 
   async districts(): Promise<DistrictForRun[]> {
-    const rows: { id: string; code: string; lat: number | null; profiles: { profileId: string; biofix: string | null }[] | null }[] =
+    const rows: { id: string; code: string; name: string; lat: number | null; profiles: { profileId: string; biofix: string | null }[] | null }[] =
       await this.ds.query(
-        `SELECT d.id, d.code, d.centroid_lat AS lat,
+        `SELECT d.id, d.code, d.name, d.centroid_lat AS lat,
                 json_agg(json_build_object('profileId', dp.profile_id, 'biofix', dp.biofix) ORDER BY dp.profile_id)
                   FILTER (WHERE dp.profile_id IS NOT NULL) AS profiles
            FROM districts d LEFT JOIN district_profiles dp ON dp.district_id = d.id
@@ -100,9 +101,9 @@ export class SeasonRepository {
         `WITH w AS (SELECT district_id, bit_xor(hash_record_extended((date, tmin, tmax, rh, filled), 0)) || ':' || count(*) h
                       FROM district_weather_days WHERE date BETWEEN $1 AND $2 GROUP BY district_id),
               c AS (SELECT district_id, bit_xor(hash_record_extended((disease_id, epi_year, epi_week, cases), 0)) || ':' || count(*) h
-                      FROM case_counts WHERE epi_year >= $3 GROUP BY district_id),
+                      FROM case_counts WHERE epi_year >= $3 AND voided_at IS NULL GROUP BY district_id),
               s AS (SELECT district_id, bit_xor(hash_record_extended((id, houses_inspected, houses_positive, containers_inspected, containers_positive, pupae), 0)) || ':' || count(*) h
-                      FROM larval_surveys WHERE survey_date BETWEEN ($1::date - 28) AND $2 GROUP BY district_id),
+                      FROM larval_surveys WHERE survey_date BETWEEN ($1::date - 28) AND $2 AND voided_at IS NULL GROUP BY district_id),
               p AS (SELECT district_id, string_agg(concat_ws(':', profile_id, biofix), ',' ORDER BY profile_id) h
                       FROM district_profiles GROUP BY district_id)
          SELECT d.id, md5(concat_ws('|', d.centroid_lat, w.h, c.h, s.h, p.h)) AS fp
@@ -166,7 +167,7 @@ export class SeasonRepository {
   async cases(districtIds: string[], fromYear: number): Promise<CaseRow[]> {
     return this.ds.query(
       `SELECT district_id AS "districtId", disease_id AS "diseaseId", epi_year AS "epiYear", epi_week AS "epiWeek", cases
-         FROM case_counts WHERE district_id = ANY($1) AND epi_year >= $2 ORDER BY epi_year, epi_week`,
+         FROM case_counts WHERE district_id = ANY($1) AND epi_year >= $2 AND voided_at IS NULL ORDER BY epi_year, epi_week`,
       [districtIds, fromYear],
     );
   }
@@ -184,7 +185,7 @@ export class SeasonRepository {
       `SELECT district_id AS "districtId", to_char(survey_date, 'YYYY-MM-DD') AS "surveyDate",
               houses_inspected AS "housesInspected", houses_positive AS "housesPositive",
               containers_inspected AS "containersInspected", containers_positive AS "containersPositive", pupae
-         FROM larval_surveys WHERE district_id = ANY($1) AND survey_date BETWEEN $2 AND $3`,
+         FROM larval_surveys WHERE district_id = ANY($1) AND survey_date BETWEEN $2 AND $3 AND voided_at IS NULL`,
       [districtIds, from, to],
     );
   }

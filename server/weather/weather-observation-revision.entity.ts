@@ -43,6 +43,14 @@ export class WeatherObservationRevisionEntity {
   @CreateDateColumn({ name: 'replaced_at', type: 'timestamptz' })
   replacedAt: Date;
 
+  /** 'replaced' (a later intake wrote other values) or 'void' (the day was voided as entered in error). */
+  @Column({ type: 'text', default: 'replaced' })
+  kind: 'replaced' | 'void';
+
+  /** Why the day was voided (null for a replacement by an intake). */
+  @Column({ type: 'text', nullable: true })
+  reason: string | null;
+
   @ManyToOne(() => WeatherStationEntity, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'station_id' })
   station?: WeatherStationEntity;

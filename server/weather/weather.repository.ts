@@ -41,7 +41,8 @@ export class WeatherRepository {
 
   revisions(stationId: string, date?: string) {
     return this.ds.query(
-      `SELECT to_char(date, 'YYYY-MM-DD') AS date, tmin, tmax, rh, rain, flags, previous_upload_id, replaced_by_upload_id, replaced_by, replaced_at
+      `SELECT to_char(date, 'YYYY-MM-DD') AS date, tmin, tmax, rh, rain, flags, previous_upload_id, replaced_by_upload_id, replaced_by, replaced_at,
+              kind, reason
          FROM weather_observation_revisions WHERE station_id = $1 AND ($2::date IS NULL OR date = $2::date) ORDER BY date DESC, id DESC LIMIT 1000`,
       [stationId, date ?? null],
     );

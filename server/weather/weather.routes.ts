@@ -6,7 +6,7 @@ import type { NextFunction, Request, Response } from 'express';
 import multer from 'multer';
 import { idParams } from '../../shared/api/common.schema';
 import {
-  correctionBody, issuesReportQuery, rangeQuery, revisionsQuery, stationCreateBody, stationUpdateBody, uploadForm, uploadQuery,
+  correctionBody, voidDayBody, issuesReportQuery, rangeQuery, revisionsQuery, stationCreateBody, stationUpdateBody, uploadForm, uploadQuery,
 } from '../../shared/api/weather.schema';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
@@ -76,6 +76,10 @@ export function weatherRoutes(ctx: AppContext) {
     defineRoute({
       method: 'put', path: '/weather/observations', access: EDITORS, body: correctionBody,
       handler: ({ principal, body }) => service.correct(principal, body),
+    }),
+    defineRoute({
+      method: 'post', path: '/weather/observations/void', access: EDITORS, body: voidDayBody,
+      handler: ({ principal, body }) => service.voidDay(principal, body),
     }),
     defineRoute({
       method: 'post', path: '/weather/feed/pull', access: EDITORS, status: 201,

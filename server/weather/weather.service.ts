@@ -1,6 +1,6 @@
 import type { Response } from 'express';
 import type {
-  CorrectionBody, DistrictWeatherSource, IssueDto, StationCreateBody, StationUpdateBody, UploadDto,
+  CorrectionBody, DistrictWeatherSource, IssueDto, StationCreateBody, StationUpdateBody, UploadDto, VoidDayBody,
 } from '../../shared/api/weather.schema';
 import { fromCelsius, fromMillimetres, type RainUnit, type TemperatureUnit, toCelsius, toMillimetres } from '../../shared/units';
 import { csvCell, issueValueUnit } from '../../shared/weather/qc';
@@ -10,6 +10,8 @@ import { assertDistrictVisible, type Principal, seesAllDistricts } from '../auth
 import { DistrictEntity } from '../districts/district.entity';
 import { badRequest, conflict, forbidden, notFound, unprocessable } from '../http/errors';
 import { recomputeDistrictSeries } from './district-series.repository';
+import { flagNames, readStationYears, stationYearKey, writeStationYears, yearStartDay } from './station-years.repository';
+import { WeatherObservationRevisionEntity } from './weather-observation-revision.entity';
 import { refreshAssignments } from './weather-geo';
 import { recordsSource, WeatherIntakeService } from './weather-intake.service';
 import { WeatherStationEntity } from './weather-station.entity';
@@ -20,6 +22,8 @@ import { WeatherRepository } from './weather.repository';
 const isUniqueViolation = (err: unknown) => (err as { code?: string })?.code === '23505';
 const today = () => new Date().toISOString().slice(0, 10);
 const daysBefore = (iso: string, n: number) => new Date(Date.parse(iso) - n * 86_400_000).toISOString().slice(0, 10);
+
+const nanToNull = (v: number) => (Number.isNaN(v) ? null : v);
 
 export class WeatherService {
   readonly intake: WeatherIntakeService;
@@ -103,6 +107,7 @@ export class WeatherService {
         date: r.date, tmin: r.tmin, tmax: r.tmax, rh: r.rh, rain: r.rain, flags: r.flags,
         previousUploadId: r.previous_upload_id, replacedByUploadId: r.replaced_by_upload_id, replacedBy: r.replaced_by,
         replacedAt: new Date(r.replaced_at).toISOString(),
+        kind: r.kind, reason: r.reason,
       })),
     };
   }
@@ -186,6 +191,45 @@ export class WeatherService {
       after = rows[rows.length - 1].id;
     }
     res.end();
+  }
+
+  /**
+   * Void one station-day entered in error: its values move to the revisions (kind 'void', with the
+   * reason), the day becomes a gap, and the district series it feeds are recomputed, so it counts
+   * nowhere (District file, season run inputs; their fingerprints change). One transaction with its audit.
+   */
+  async voidDay(actor: Principal, body: VoidDayBody) {
+    return this.ctx.ds.transaction(async (manager) => {
+      const [found]: { id: string }[] = await manager.query('SELECT id FROM weather_stations WHERE code = $1', [body.station]);
+      if (!found) throw badRequest('unknown_station', 'No station has this code.', [{ path: 'station', message: 'is not a known station' }]);
+      const stationId = found.id;
+      const year = Number(body.date.slice(0, 4));
+      // Serialise with intakes writing this station-year.
+      await manager.query('SELECT 1 FROM weather_station_years WHERE station_id = $1 AND year = $2 FOR UPDATE', [stationId, year]);
+      const y = (await readStationYears(manager, [{ stationId: stationId, year }])).get(stationYearKey(stationId, year));
+      const i = Date.parse(`${body.date}T00:00:00Z`) / 86_400_000 - yearStartDay(year);
+      if (!y || !(i >= 0 && i < y.tmin.length) || Number.isNaN(y.tmin[i]))
+        throw badRequest('no_value', 'The station has no value on this day.', [{ path: 'date', message: 'has no value at this station' }]);
+      const old = { tmin: y.tmin[i], tmax: y.tmax[i], rh: nanToNull(y.rh[i]), rain: nanToNull(y.rain[i]), flags: flagNames(y.flags[i]) };
+      const previousUploadId = y.uploadIx[i] > 0 ? y.uploads[y.uploadIx[i] - 1] : null;
+      await manager.insert(WeatherObservationRevisionEntity, {
+        stationId: stationId, date: body.date, ...old, previousUploadId, replacedByUploadId: null, replacedBy: actor.userId, kind: 'void', reason: body.reason,
+      });
+      y.tmin[i] = Number.NaN;
+      y.tmax[i] = Number.NaN;
+      y.rh[i] = Number.NaN;
+      y.rain[i] = Number.NaN;
+      y.flags[i] = 0;
+      y.uploadIx[i] = 0;
+      await writeStationYears(manager, [y]);
+      const fed: { district_id: string }[] = await manager.query('SELECT DISTINCT district_id FROM district_weather_sources WHERE station_id = $1', [stationId]);
+      await recomputeDistrictSeries(manager, fed.map((r) => r.district_id), this.ctx.config.WEATHER_FILL_MAX_DAYS);
+      await recordAudit(manager, {
+        actorId: actor.userId, action: 'weather-day.voided', entity: 'weather_station', entityId: stationId,
+        before: { date: body.date, ...old, uploadId: previousUploadId }, after: { voided: true, districtsRecomputed: fed.length }, reason: body.reason,
+      });
+      return { stationId: stationId, date: body.date, voided: { ...old, reason: body.reason }, districtsRecomputed: fed.length };
+    });
   }
 
   /** One corrected day: a one-row intake through the same checks; a rejected row is a 400 with the reasons. */

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { DRIVERS, TIERS } from '../tier/tier-settings';
 import { uuid } from './common.schema';
+import { runWarning } from './problems.schema';
 
 const tier = z.enum(TIERS);
 const driverId = z.enum(DRIVERS);
@@ -114,7 +115,10 @@ export const seasonRunDto = z.object({
   districtsDone: z.number().int(),
   districtsSkipped: z.number().int(),
   rowsWritten: z.number().int(),
-  warnings: z.array(z.object({ districtId: z.string().optional(), code: z.string(), message: z.string() })),
+  /** Districts left out because their data failed (each named by a `district_failed` warning). */
+  districtsFailed: z.number().int(),
+  warnings: z.array(runWarning),
+  /** Why the run as a whole stopped, as a code (`interrupted`, `drill_stopped`, …). */
   error: z.string().nullable(),
 });
 export type SeasonRunDto = z.infer<typeof seasonRunDto>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { skippedDistrict } from './problems.schema';
 import { uniqueArray, uuid } from './common.schema';
 
 /** What a subscription delivers: advisories as they are approved, and the weekly bulletin. */
@@ -55,6 +56,8 @@ export const bulletinSendResponse = z.object({
   bulletinsWritten: z.number().int(),
   districtsSkipped: z.number().int(),
   messagesQueued: z.number().int(),
+  /** Districts whose bulletin could not be written (their data failed), with why; the others were sent. */
+  districtsFailed: z.array(skippedDistrict),
 });
 export type BulletinSendResponse = z.infer<typeof bulletinSendResponse>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { voidedDto } from './void.schema';
 import { epiWeekEnd, epiWeekStart, weeksInYear, type EpiWeekSystem } from '../model/epi-week';
 import { channelBandSchema, channelMethodSchema, channelZoneSchema } from '../signals/schemas';
 import { districtRef } from './auth.schema';
@@ -186,6 +187,8 @@ export const caseCountDto = z.object({
   late: z.boolean(),
   reportedAt: z.string(),
   updatedAt: z.string(),
+  /** Set when the count was voided (entered in error): it stays readable here and in its history, and counts nowhere. */
+  voided: voidedDto.optional(),
 });
 export type CaseCountDto = z.infer<typeof caseCountDto>;
 
@@ -220,7 +223,7 @@ const countValues = z.object({
 export const revisionDto = z.object({
   version: z.number(),
   at: z.string(),
-  kind: z.enum(['entry', 'correction']),
+  kind: z.enum(['entry', 'correction', 'void']),
   source: z.string(),
   actor: z.object({ id: uuid, displayName: z.string() }).nullable(),
   old: countValues.nullable(),
@@ -262,6 +265,8 @@ export const signalWeek = z.object({
   start: z.string(),
   countId: uuid.nullable(),
   cases: z.number().nullable(),
+  /** The week's count was voided: `cases` is null (it counts nowhere) and `countId` still opens its history. */
+  voided: z.boolean().optional(),
   late: z.boolean(),
   closed: z.boolean(),
   incidence: z.number().nullable(),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { voidedDto } from './void.schema';
 import { larvalSurveySchema } from '../signals/schemas';
 import { districtRef } from './auth.schema';
 import { uuid } from './common.schema';
@@ -98,6 +99,8 @@ export const surveyDto = z.object({
   notes: z.string().nullable(),
   submittedAt: z.string(),
   indices: indicesDto,
+  /** Set when the survey was voided (entered in error): it no longer counts in any index. */
+  voided: voidedDto.optional(),
 });
 export type SurveyDto = z.infer<typeof surveyDto>;
 

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { voidBody } from './void.schema';
 import { RAIN_UNITS, TEMPERATURE_UNITS } from '../units';
 import { uuid } from './common.schema';
 import { isoDate } from './date.schema';
@@ -72,8 +73,20 @@ export const revisionDto = z.object({
   replacedByUploadId: z.string().nullable(),
   replacedBy: z.string().nullable(),
   replacedAt: z.string(),
+  /** 'void': the day was voided with `reason` (it counts nowhere); 'replaced': a later intake wrote other values. */
+  kind: z.enum(['replaced', 'void']).optional(),
+  reason: z.string().nullable().optional(),
 });
 export const revisionsQuery = z.strictObject({ date: isoDate.optional() });
+
+/** Void one station-day entered in error (admin, health officer): its values stay in the revisions, and count nowhere. */
+export const voidDayBody = z.strictObject({
+  /** The station's code, as in an upload or a correction. */
+  station: z.string().trim().min(1, { message: 'is required' }),
+  date: isoDate,
+  reason: voidBody.shape.reason,
+});
+export type VoidDayBody = z.infer<typeof voidDayBody>;
 export const revisionsResponse = z.object({ revisions: z.array(revisionDto) });
 
 

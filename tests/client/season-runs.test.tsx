@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { queryClient } from '../../src/app/query-client';
+import { i18n } from '../../src/i18n';
 import { seasonRun } from './support/board-fixtures';
 import { adminMe, fakeApi, json } from './support/fake-api';
 import { click, getButton, waitFor, type Rendered, renderRoutes } from './support/render';
@@ -33,7 +34,7 @@ describe('season runs', () => {
   });
 
   it('when the run is started while another runs, then the 409 message is shown', async () => {
-    const done = seasonRun({ status: 'succeeded', districtsDone: 12, finishedAt: '2025-06-02T08:05:00.000Z', warnings: [{ code: 'no_weather', message: 'Pellam Highlands has no weather.' }] });
+    const done = seasonRun({ status: 'succeeded', districtsDone: 12, finishedAt: '2025-06-02T08:05:00.000Z', warnings: [{ code: 'no_weather', message: 'Pellam Highlands has no weather.' }] }); // a run stored before warnings were codes
     const { c } = await open({
       'GET /api/season-runs': () => json(200, { runs: [done] }),
       'POST /api/season-runs': () => json(409, { error: { code: 'run_in_progress', message: 'Wait for it to finish.' } }),
@@ -42,6 +43,30 @@ describe('season runs', () => {
     expect(c.textContent).toContain('Pellam Highlands has no weather.');
     await click(getButton(c, 'Run the season now'));
     await waitFor(() => expect(c.querySelector('[role="alert"]')?.textContent).toBe('A season run is already in progress. Wait for it to finish.'));
+  });
+
+  it('when a run left one district out, then the screen counts "11 / 12", names the district and says why in words (no code, no JSON), in English and French', async () => {
+    const done = seasonRun({
+      status: 'succeeded', districtsDone: 11, districtsFailed: 1, finishedAt: '2025-06-02T08:05:00.000Z',
+      warnings: [
+        { code: 'district_failed', districtId: 'd1', districtName: 'Pellam Highlands', params: { stage: 'compute' }, reason: { code: 'invalid_value', params: { fields: 'pupae' } } },
+        { code: 'missing_weather', districtId: 'd2', districtName: 'Vell Marsh' },
+      ],
+    });
+    const { c } = await open({ 'GET /api/season-runs': () => json(200, { runs: [done] }) });
+    await waitFor(() => expect(c.textContent).toContain('2 warnings'));
+    expect(c.textContent).toContain('11 / 12');
+    expect(c.textContent).toContain('1 failed: Pellam Highlands');
+    expect(c.textContent).toContain('Pellam Highlands was not computed: a stored value is not valid (pupae).');
+    expect(c.textContent).toContain('Vell Marsh: no weather this season.');
+    expect(c.textContent).not.toMatch(/district_failed|invalid_value|missing_weather|\{"/);
+    try {
+      await i18n.changeLanguage('fr');
+      await waitFor(() => expect(c.textContent).toContain('Pellam Highlands n’a pas été calculé : une valeur enregistrée n’est pas valide (pupae).'));
+      expect(c.textContent).toContain('1 en échec : Pellam Highlands');
+    } finally {
+      await i18n.changeLanguage('en');
+    }
   });
 
   it('when a run is started, then its progress is polled until it finishes and the board is refreshed', async () => {

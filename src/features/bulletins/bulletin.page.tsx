@@ -4,6 +4,7 @@ import { FormMessage, SelectField } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
 import { useFormat } from '../../i18n/format';
 import { errorText } from '../../lib/error-text';
+import { problemReasonText } from '../../lib/problem-text';
 import { useDistricts } from '../districts/api/districts.api';
 import { bulletinHtmlUrl, bulletinPdfUrl, useBulletinPreview, useSendBulletin } from './api/bulletins.api';
 import { DeliveryLog } from './components/delivery-log';
@@ -76,6 +77,14 @@ export function BulletinPage() {
               })
             : null}
         </FormMessage>
+        {send.data && send.data.districtsFailed.length > 0 ? (
+          <FormMessage kind="error">
+            {t('page.failed', {
+              count: send.data.districtsFailed.length,
+              list: send.data.districtsFailed.map((d) => t('page.failedItem', { district: d.districtName, reason: problemReasonText(d.reason) })).join('; '),
+            })}
+          </FormMessage>
+        ) : null}
       </div>
       <h2 className="section-title">{t('page.delivery')}</h2>
       <DeliveryLog />

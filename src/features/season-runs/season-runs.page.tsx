@@ -8,7 +8,7 @@ import { useSeasonRun } from './api/season-run.api';
 import { useSeasonRuns } from './api/season-runs.api';
 import { useStartSeasonRun } from './api/start-season-run.api';
 import { SeasonRunProgress } from './components/season-run-progress';
-import { SeasonRunsTable } from './components/season-runs.table';
+import { runErrorText, SeasonRunsTable } from './components/season-runs.table';
 import './season-runs.css';
 
 /** The Season run history, and a way to run it now (admin, health officer) with its progress. */
@@ -58,7 +58,7 @@ export function SeasonRunsPage() {
             </p>
             <SeasonRunProgress run={run} />
             {run.status === 'succeeded' ? <p className="text-sm">{t('finishedNote')}</p> : null}
-            {run.error ? <p className="text-sm font-bold">{t('error', { error: run.error })}</p> : null}
+            {run.error ? <p className="text-sm font-bold">{runErrorText(run.error, t)}</p> : null}
           </div>
         ) : null}
       </div>

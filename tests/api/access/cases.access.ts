@@ -13,5 +13,7 @@ export const casesAccess: AccessTable = {
   'POST /districts/:id/weeks/close': ['epidemiologist', 'supervisor'],
   'PUT /districts/:id/channel-settings': ['admin', 'epidemiologist'],
   'POST /surveys': ['officer', 'worker'],
+  'POST /surveys/:id/void': ['officer', 'worker'],
+  'POST /cases/counts/:id/void': ['epidemiologist'],
   'GET /districts/:id/surveys': ALL_SIGNED_IN,
 };

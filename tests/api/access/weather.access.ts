@@ -14,6 +14,7 @@ export const weatherAccess: AccessTable = {
   'GET /weather/uploads/:id': EDITORS,
   'GET /weather/uploads/:id/issues': EDITORS,
   'PUT /weather/observations': EDITORS,
+  'POST /weather/observations/void': EDITORS,
   'POST /weather/feed/pull': EDITORS,
   'GET /weather/districts/:id/series': ALL_SIGNED_IN,
 };

@@ -120,6 +120,7 @@ export const seasonRun = (over: Record<string, unknown> = {}) => ({
   districtsDone: 3,
   districtsSkipped: 0,
   rowsWritten: 1200,
+  districtsFailed: 0,
   warnings: [],
   error: null,
   ...over,

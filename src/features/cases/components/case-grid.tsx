@@ -7,6 +7,8 @@ import { isApiError } from '../../../lib/api-client';
 import { formErrorText } from '../../../lib/form-errors';
 import { useCloseWeek } from '../api/close-week.api';
 import { usePutCount } from '../api/put-count.api';
+import { useVoidCount } from '../api/void-count.api';
+import { VoidAction } from '../../../components/void-dialog';
 import { useCaseFormat } from '../case-format';
 import { RevisionHistory } from './revision-history';
 
@@ -37,7 +39,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
       setProblem(t('grid.notWhole', { cell: `${row.district.code} ${weekLabel(cell)}` }));
       return;
     }
-    if (cell.count?.cases === cases) return;
+    if (!cell.count?.voided && cell.count?.cases === cases) return;
     if (cell.count || cell.closed) {
       setSelected({ row, index, pending: cases });
       setProblem(null);
@@ -80,7 +82,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
                 </th>
                 {row.cells.map((cell, index) => {
                   const label = `${row.district.code} ${weekLabel(cell)}`;
-                  const marks = [cell.closed ? t('grid.closed') : null, cell.count?.late ? t('grid.late') : null].filter(Boolean).join(', ');
+                  const marks = [cell.closed ? t('grid.closed') : null, cell.count?.late ? t('grid.late') : null, cell.count?.voided ? t('grid.voided') : null].filter(Boolean).join(', ');
                   const future = grid.weeks[index].start > today;
                   return (
                     <td key={`${cell.year}-${cell.week}`} className="text-right tabular-nums" data-closed={cell.closed || undefined}>
@@ -91,7 +93,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
                           className="input w-16 px-1 py-0.5 text-right"
                           type="text"
                           inputMode="numeric"
-                          defaultValue={cell.count?.cases ?? ''}
+                          defaultValue={cell.count?.voided ? '' : (cell.count?.cases ?? '')}
                           onFocus={() => {
                             setSelected({ row, index });
                             setSaved(null);
@@ -103,7 +105,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
                         />
                       ) : (
                         <button type="button" className="btn-quiet tabular-nums" aria-label={t(marks ? 'grid.readLabelMarks' : 'grid.readLabel', { cell: label, cases: cell.count?.cases ?? t('grid.noReport'), marks })} onClick={() => setSelected({ row, index })}>
-                          {cell.count?.cases ?? '–'}
+                          {cell.count?.voided ? <s>{cell.count.cases}</s> : (cell.count?.cases ?? '–')}
                         </button>
                       )}
                       {marks ? <span className="block text-xs text-ink-muted">{marks}</span> : null}
@@ -163,6 +165,7 @@ function CellPanel({
   const { row, index, pending } = selected;
   const cell = row.cells[index];
   const put = usePutCount();
+  const voidCount = useVoidCount();
   const close = useCloseWeek();
   const [reason, setReason] = useState('');
   const [showHistory, setShowHistory] = useState(false);
@@ -212,6 +215,7 @@ function CellPanel({
           : t('grid.noCount')}{' '}
         {cell.closed ? t('grid.weekClosed') : t('grid.weekOpen')}
       </p>
+      {cell.count?.voided ? <p className="text-sm font-bold">{t('grid.voidedBecause', { reason: cell.count.voided.reason })}</p> : null}
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
       {pending !== undefined ? (
         <form
@@ -240,6 +244,9 @@ function CellPanel({
           <button type="button" className="btn btn-secondary btn-small" aria-expanded={showHistory} onClick={() => setShowHistory((v) => !v)}>
             {showHistory ? t('grid.hideHistory') : t('grid.showHistory')}
           </button>
+        ) : null}
+        {row.editable && cell.count && !cell.count.voided ? (
+          <VoidAction what={t('grid.voidWhat', { cell: `${row.district.code} ${weekLabel(cell)}`, cases: cell.count.cases })} onVoid={(reason) => voidCount.mutateAsync({ countId: cell.count!.id, reason })} />
         ) : null}
         {canClose ? (
           <button type="button" className="btn btn-secondary btn-small" onClick={() => void closeWeek()} disabled={close.isPending}>

@@ -35,7 +35,7 @@ export function RevisionHistory({ countId }: { countId: string }) {
           {history.data.revisions.map((r) => (
             <tr key={r.version}>
               <td className="tabular-nums">
-                {r.version} · {r.kind === 'entry' ? t('revisions.entered') : t('revisions.corrected')} ({source(r.source)})
+                {r.version} · {r.kind === 'entry' ? t('revisions.entered') : r.kind === 'void' ? t('revisions.voided') : t('revisions.corrected')} ({source(r.source)})
               </td>
               <td>{formatDateTime(r.at)}</td>
               <td>{r.actor?.displayName ?? (r.source === 'demo' ? t('revisions.demoData') : t('revisions.unknown'))}</td>

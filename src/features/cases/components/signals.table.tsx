@@ -67,7 +67,7 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
                       ) : null}
                     </td>
                     <td className="whitespace-nowrap text-sm">
-                      {[w.closed ? t('signals.closed') : t('signals.open'), w.late ? t('signals.late') : null].filter(Boolean).join(', ')}
+                      {[w.closed ? t('signals.closed') : t('signals.open'), w.late ? t('signals.late') : null, w.voided ? t('signals.voided') : null].filter(Boolean).join(', ')}
                       <span className="mt-1 flex gap-1">
                         {w.countId && data.canReadHistory ? (
                           <button

@@ -1,6 +1,7 @@
 import { useTranslation } from 'react-i18next';
 import type { SeasonRunDto } from '../../../../shared/api/board.schema';
 import { useFormat } from '../../../i18n/format';
+import { failedSummary } from './season-runs.table';
 
 /** Districts done out of the total, as a progress bar with its numbers in words. */
 export function SeasonRunProgress({ run }: { run: SeasonRunDto }) {
@@ -26,6 +27,7 @@ export function SeasonRunProgress({ run }: { run: SeasonRunDto }) {
       <p className="text-sm tabular-nums">
         {text}
         {run.districtsSkipped ? ` · ${t('progress.skipped', { count: run.districtsSkipped, n: f.number(run.districtsSkipped) })}` : ''}
+        {failedSummary(run, t, f)}
       </p>
     </div>
   );

@@ -3,6 +3,9 @@ import { useTranslation } from 'react-i18next';
 import type { TFunction } from 'i18next';
 import { createColumnHelper, useTable } from '@tanstack/react-table';
 import type { SeasonRunDto } from '../../../../shared/api/board.schema';
+import type { RunWarning } from '../../../../shared/api/problems.schema';
+import { i18n } from '../../../i18n';
+import { problemReasonText } from '../../../lib/problem-text';
 import { DataTable, plainTableFeatures, type PlainTableFeatures } from '../../../components/data-table';
 import { useFormat, type Formatters } from '../../../i18n/format';
 
@@ -34,6 +37,7 @@ function buildColumns(t: TFunction, f: Formatters) {
         <span className="tabular-nums">
           {t('table.districtsDone', { done: f.number(c.row.original.districtsDone), total: f.number(c.row.original.districtsTotal) })}
           {c.row.original.districtsSkipped ? ` ${t('table.skipped', { count: c.row.original.districtsSkipped, n: f.number(c.row.original.districtsSkipped) })}` : ''}
+          {failedSummary(c.row.original, t, f)}
         </span>
       ),
     }),
@@ -51,11 +55,9 @@ function buildColumns(t: TFunction, f: Formatters) {
               {run.error ? ` ${t('table.andError')}` : ''}
             </summary>
             <ul className="mt-1 list-disc space-y-0.5 pl-5 text-sm">
-              {run.error ? <li className="font-bold">{t('error', { error: run.error })}</li> : null}
+              {run.error ? <li className="font-bold">{runErrorText(run.error, t)}</li> : null}
               {run.warnings.map((w, i) => (
-                <li key={i}>
-                  <span className="font-mono text-xs">{w.code}</span> {w.message}
-                </li>
+                <li key={i} className={w.code === 'district_failed' ? 'font-bold' : undefined}>{warningText(w, t)}</li>
               ))}
             </ul>
           </details>
@@ -63,6 +65,33 @@ function buildColumns(t: TFunction, f: Formatters) {
       },
     }),
   ]);
+}
+
+/** One run warning in words: the server sends a code with parameters, never a sentence (shared/api/problems.schema.ts). */
+export function warningText(w: RunWarning, t: TFunction): string {
+  const district = w.districtName ?? t('warning.unknownDistrict');
+  if (w.code === 'district_failed') {
+    const key = w.params?.stage === 'write' ? 'warning.district_failed_write' : 'warning.district_failed_compute';
+    return t(key, { district, reason: problemReasonText(w.reason) });
+  }
+  const key = `warning.${w.code}`;
+  if (i18n.exists(key, { ns: 'season-runs' })) return t(key, { district });
+  // A run stored before warnings became codes kept its own words.
+  return w.message ?? t('warning.other', { district, code: w.code });
+}
+
+/** The run's own error: a known code in words, anything else named as it was stored. */
+export function runErrorText(error: string, t: TFunction): string {
+  const key = `runError.${error}`;
+  return i18n.exists(key, { ns: 'season-runs' }) ? t(key) : t('error', { error });
+}
+
+/** "1 failed: Pellam Highlands" after "11 / 12", naming the districts the run left out. */
+export function failedSummary(run: SeasonRunDto, t: TFunction, f: Formatters): string {
+  const failed = run.warnings.filter((w) => w.code === 'district_failed');
+  if (failed.length === 0) return '';
+  const names = failed.map((w) => w.districtName ?? t('warning.unknownDistrict')).join(', ');
+  return ` · ${t('table.failed', { count: failed.length, n: f.number(failed.length), names })}`;
 }
 
 export function SeasonRunsTable({ runs }: { runs: SeasonRunDto[] }) {

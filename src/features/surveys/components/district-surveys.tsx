@@ -4,12 +4,19 @@ import { useFormat } from '../../../i18n/format';
 import { useDistrictSurveys } from '../api/district-surveys.api';
 import { formatIndex } from '../survey-format';
 import { errorText } from '../../../lib/error-text';
+import { useSession } from '../../../app/session';
+import { VoidAction } from '../../../components/void-dialog';
+import { useVoidSurvey } from '../api/void-survey.api';
 
 /** A district's larval indices per epidemiological week (counts pooled) and its latest surveys. */
 export function DistrictSurveys({ districtId, limit = 10 }: { districtId: string; limit?: number }) {
   const { t } = useTranslation('surveys');
   const { number, date } = useFormat();
   const surveys = useDistrictSurveys(districtId);
+  const me = useSession();
+  const voidSurvey = useVoidSurvey();
+  // The roles that enter surveys may void one in their own districts (an officer sees all districts).
+  const canVoid = me.role === 'officer' || (me.role === 'worker' && me.districts.some((d) => d.id === districtId));
   if (surveys.isPending) return <p className="text-ink-muted">{t('district.loading')}</p>;
   if (surveys.isError) return <FormMessage kind="error">{errorText(surveys.error)}</FormMessage>;
   const { weeks, surveys: list } = surveys.data;
@@ -53,14 +60,24 @@ export function DistrictSurveys({ districtId, limit = 10 }: { districtId: string
       <ul className="space-y-1 text-sm" aria-label={t('district.latest')}>
         {list.slice(0, limit).map((s) => (
           <li key={s.id} className="break-words">
-            <span className="font-bold">{s.locality}</span>,{' '}
-            {t('district.latestLine', {
-              date: date(s.date),
-              positive: number(s.housesPositive),
-              inspected: number(s.housesInspected),
-              house: formatIndex(number, s.indices.house, t),
-              breteau: formatIndex(number, s.indices.breteau),
-            })}
+            <span className={s.voided ? 'line-through' : undefined}>
+              <span className="font-bold">{s.locality}</span>,{' '}
+              {t('district.latestLine', {
+                date: date(s.date),
+                positive: number(s.housesPositive),
+                inspected: number(s.housesInspected),
+                house: formatIndex(number, s.indices.house, t),
+                breteau: formatIndex(number, s.indices.breteau),
+              })}
+            </span>
+            {s.voided ? (
+              <span className="block font-bold">{t('district.voided', { reason: s.voided.reason })}</span>
+            ) : canVoid ? (
+              <VoidAction
+                what={t('district.voidWhat', { locality: s.locality, date: date(s.date) })}
+                onVoid={(reason) => voidSurvey.mutateAsync({ surveyId: s.id, reason })}
+              />
+            ) : null}
           </li>
         ))}
       </ul>

@@ -4,7 +4,8 @@ import type { CorrectionBody, IssueDto } from '../../../../shared/api/weather.sc
 import { FormMessage, TextField } from '../../../components/form';
 import { isApiError } from '../../../lib/api-client';
 import { useUnits } from '../../../lib/units';
-import { useCorrectDay } from '../api/correct.api';
+import { useCorrectDay, useVoidDay } from '../api/correct.api';
+import { VoidAction } from '../../../components/void-dialog';
 
 /** A typed number ("21,5" is read as 21.5, so a decimal comma works too); null when empty, NaN when not a number. */
 const parse = (s: string) => (s.trim() === '' ? null : Number(s.trim().replace(',', '.')));
@@ -19,6 +20,8 @@ export function CorrectionForm({ from, onDone }: { from: IssueDto | null; onDone
   const { t } = useTranslation('weather');
   const units = useUnits();
   const correct = useCorrectDay();
+  const voidDay = useVoidDay();
+  const [voided, setVoided] = useState(false);
   const [station, setStation] = useState(from?.station ?? '');
   const [date, setDate] = useState(from?.date ?? '');
   const [tmin, setTmin] = useState('');
@@ -67,6 +70,7 @@ export function CorrectionForm({ from, onDone }: { from: IssueDto | null; onDone
   };
 
   return (
+    <>
     <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby="correct-title">
       <h3 id="correct-title" className="section-title">
         {t('correction.title')}
@@ -85,5 +89,19 @@ export function CorrectionForm({ from, onDone }: { from: IssueDto | null; onDone
         {correct.isPending ? t('correction.checking') : t('correction.submit')}
       </button>
     </form>
+    {/* A day entered in error can be voided instead (never deleted): its values stay in the revisions. */}
+    {station.trim() && /^\d{4}-\d{2}-\d{2}$/.test(date) ? (
+      <div className="mt-3 space-y-2">
+        {voided ? <FormMessage kind="success">{t('correction.voided', { date, station: station.trim() })}</FormMessage> : null}
+        <VoidAction
+          what={t('correction.voidWhat', { date, station: station.trim() })}
+          onVoid={async (reason) => {
+            await voidDay.mutateAsync({ station: station.trim(), date, reason });
+            setVoided(true);
+          }}
+        />
+      </div>
+    ) : null}
+    </>
   );
 }
