@@ -43,7 +43,7 @@ export function LadderPage() {
       ) : board.isError ? (
         <FormMessage kind="error">{errorText(board.error)}</FormMessage>
       ) : (
-        <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,22rem)]">
+        <div className="grid gap-6">
           <div className="min-w-0" data-tour="ladder-table">
             {rows.length === 0 && canUse(me.role, ['admin', 'officer']) ? (
               <FormMessage kind="info">
