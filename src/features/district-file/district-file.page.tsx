@@ -14,7 +14,7 @@ import { DegreeDaysChart, EipChart, RvcChart } from './charts/vector-clock.chart
 import { WeatherChart } from './charts/weather.chart';
 import { CurrentTier } from './components/current-tier';
 import { KeyNumbers } from './components/key-numbers';
-import { weatherSourceText } from './district-file-format';
+import { weatherSourceText , profileLabel } from './district-file-format';
 import { useLadderWords } from '../ladder/ladder-format';
 import './district-file.css';
 import { errorText } from '../../lib/error-text';
@@ -167,7 +167,7 @@ function DistrictFileView({
               <li>
                 {data.vectorClock.length === 0
                   ? t('about.noProfile')
-                  : t('about.profiles', { profiles: data.vectorClock.map((v) => v.profileName).join(t('listSeparator')) })}
+                  : t('about.profiles', { profiles: data.vectorClock.map((v) => profileLabel({ t }, v)).join(t('listSeparator')) })}
               </li>
               <li>
                 {data.larval.length === 0
