@@ -31,10 +31,13 @@ export function DistrictCasesPage() {
   const settings = useCasesSettings();
   const districts = useDistricts();
   const code = search.get('disease');
-  const disease = diseases.data?.find((d) => d.code === code) ?? diseases.data?.[0];
+  const district = districts.data?.find((d) => d.id === id);
+  // Without a disease in the address, the page opens on the district's own diseases (those of its profiles) first.
+  const ownDiseases = (diseases.data ?? []).filter((d) => district?.profileIds.some((p) => d.profileIds.includes(p)));
+  const disease = diseases.data?.find((d) => d.code === code) ?? ownDiseases[0] ?? (districts.isPending ? undefined : diseases.data?.[0]);
+  const orderedDiseases = [...ownDiseases, ...(diseases.data ?? []).filter((d) => !ownDiseases.includes(d))];
   const yearParam = Number(search.get('year')) || undefined;
   const signals = useDistrictSignals(id, disease?.id, yearParam);
-  const district = districts.data?.find((d) => d.id === id);
 
   if (isForbidden(signals.error)) return <NotAllowedPage />;
   const data = signals.data;
@@ -53,7 +56,7 @@ export function DistrictCasesPage() {
       <DemoDataLabel districts={district ? [district] : undefined} />
       <div className="mb-4 flex flex-wrap items-end gap-4">
         <SelectField label={t('district.disease')} className="field min-w-0 sm:min-w-56" value={disease?.code ?? ''} onChange={(e) => set('disease', e.currentTarget.value)}>
-          {(diseases.data ?? []).map((d) => (
+          {orderedDiseases.map((d) => (
             <option key={d.id} value={d.code}>
               {d.name}
             </option>
