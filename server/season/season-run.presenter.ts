@@ -4,6 +4,7 @@ import type { SeasonRunEntity } from './season-run.entity';
 export const presentSeasonRun = (r: SeasonRunEntity): SeasonRunDto => ({
   id: r.id,
   kind: r.kind,
+  byPerson: r.requestedBy !== null,
   full: r.full,
   status: r.status,
   startedAt: new Date(r.startedAt).toISOString(),

@@ -70,7 +70,7 @@ export function DistrictCasesPage() {
           ))}
         </SelectField>
       </div>
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
+      <div className="grid gap-6 2xl:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-6">
           {signals.isError ? (
             <FormMessage kind="error">{errorText(signals.error)}</FormMessage>
