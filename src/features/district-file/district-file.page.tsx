@@ -1,4 +1,5 @@
 import { useId, useMemo } from 'react';
+import { useSession } from '../../app/session';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useTranslation } from 'react-i18next';
 import type { DistrictFileResponse } from '../../../shared/api/board.schema';
@@ -88,6 +89,7 @@ function DistrictFileView({
   const id = useId();
   const w = useLadderWords();
   const { t } = useTranslation('district-file');
+  const me = useSession();
   const { district, seasonYear } = data;
   const seasons = useMemo(() => [...new Set([...data.seasons, seasonYear])].sort((a, b) => b - a), [data.seasons, seasonYear]);
   const earlier = seasons.filter((s) => s < seasonYear);
@@ -106,9 +108,16 @@ function DistrictFileView({
       </p>
       <div className="flex flex-wrap items-start justify-between gap-3">
         <PageHeading lead={t('lead', { code: district.code, season: seasonYear })}>{district.name}</PageHeading>
-        <Link to={`/districts/${district.id}/print?season=${seasonYear}`} className="btn btn-secondary btn-small" data-testid="print-link">
-          {t('printLink')}
-        </Link>
+        <span className="flex flex-wrap gap-2">
+          {me.role === 'officer' || me.role === 'epidemiologist' ? (
+            <Link to={`/flags/new?district=${district.id}`} className="btn btn-secondary btn-small">
+              {t('flags:raise.raiseHere')}
+            </Link>
+          ) : null}
+          <Link to={`/districts/${district.id}/print?season=${seasonYear}`} className="btn btn-secondary btn-small" data-testid="print-link">
+            {t('printLink')}
+          </Link>
+        </span>
       </div>
       <DemoDataLabel districts={[district]} />
 
