@@ -1,5 +1,6 @@
 import type { DistrictFileResponse } from '../../shared/api/board.schema';
-import { findProfile, weeksInYear } from '../../shared/model';
+import { computeSeasonColumns, findProfile, formatIsoDate, getProfile, parseIsoDate, weeksInYear } from '../../shared/model';
+import { SeasonRepository } from '../season/season.repository';
 import { aggregateLarvalIndices } from '../../shared/signals';
 import { buildSignals, CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
 import type { AppContext } from '../app-context';
@@ -63,6 +64,9 @@ export class DistrictFileService {
             .map((s: { code: string; distance_km: number; weight: number }) => `${s.code} (${Math.round(s.distance_km)} km, weight ${s.weight.toFixed(2)})`)
             .join(', ')}`;
 
+    // A season the runs never stored (an earlier year, chosen or compared with) is computed here from its
+    // stored weather with the same model, so "compare heat with 2025" draws a line instead of nothing.
+    if (clockRows.length === 0 && weatherRows.length > 0 && district.lat !== null) clockRows.push(...(await this.computedClock(districtId, district.lat, seasonYear)));
     const byProfile = new Map<string, typeof clockRows>();
     for (const r of clockRows) {
       if (!byProfile.has(r.profile_id)) byProfile.set(r.profile_id, []);
@@ -141,6 +145,31 @@ export class DistrictFileService {
         confidence: t.confidence, drivers: t.drivers, notes: t.notes, leadingDriver: t.leading_driver, changedDriver: t.changed_driver,
       })),
     };
+  }
+
+  /** The vector clock of a season without stored results, from the district's weather of that year (rows as the stored query gives them). */
+  private async computedClock(districtId: string, lat: number, seasonYear: number) {
+    const profiles: { profile_id: string; biofix: string | null }[] = await this.ctx.ds.query(
+      'SELECT profile_id, biofix FROM district_profiles WHERE district_id = $1 ORDER BY profile_id', [districtId]);
+    if (profiles.length === 0) return [];
+    const weather = (await new SeasonRepository(this.ctx.ds).weather([districtId], `${seasonYear}-01-01`, `${seasonYear}-12-31`)).get(districtId);
+    if (!weather || weather.rows === 0) return [];
+    const out: Record<string, unknown>[] = [];
+    const num = (x: number) => (Number.isNaN(x) ? null : x);
+    const start = parseIsoDate(weather.startDate);
+    for (const { profile_id: profileId, biofix } of profiles) {
+      if (!findProfile(profileId)) continue;
+      const c = computeSeasonColumns(getProfile(profileId), { lat, biofix: biofix ? `${seasonYear}-${biofix}` : undefined }, weather);
+      for (let i = 0; i < c.length; i++) {
+        out.push({
+          profile_id: profileId, date: formatIsoDate(start + i), cumulative_degree_days: num(c.cumulativeDegreeDays[i]), generations: num(c.generations[i]),
+          eip_days: num(c.eipDays[i]), survival_through_eip: num(c.survivalThroughEip[i]), rvc: num(c.relativeVectorialCapacity[i]),
+          rvc_low: num(c.relativeVectorialCapacityLow[i]), rvc_high: num(c.relativeVectorialCapacityHigh[i]),
+          season_open: c.seasonOpen[i] === 1, complete: c.complete[i] === 1,
+        });
+      }
+    }
+    return out;
   }
 }
 

@@ -4,6 +4,7 @@ import {
   weekProblem,
   type ChannelSettingsBody,
   type CloseWeekBody,
+  type ReopenWeekBody,
   type diseaseCreateBody,
   type caseCountBody,
   type districtCasesQuery,
@@ -306,6 +307,27 @@ export class CaseLedgerService {
         after: { districtId, year: body.year, week: body.week },
       });
       return { districtId, year: body.year, week: body.week, closedAt: closedAt.toISOString(), alreadyClosed: false };
+    });
+  }
+
+  /**
+   * Undoes a closing (the same roles that may close: the district's epidemiologist, a supervisor). The
+   * week's counts are kept; only the lock goes, and the audit trail keeps who closed it, when, and why it
+   * was reopened. A week that is not closed is answered with `reopened: false` and nothing is written.
+   */
+  async reopenWeek(actor: Principal, districtId: string, body: ReopenWeekBody) {
+    assertAssigned(actor, districtId);
+    return this.ctx.ds.transaction(async (manager) => {
+      await this.districtOr404(districtId, manager);
+      const existing = await manager.findOneBy(CaseWeekClosureEntity, { districtId, epiYear: body.year, epiWeek: body.week });
+      if (!existing) return { districtId, year: body.year, week: body.week, reopened: false };
+      await manager.delete(CaseWeekClosureEntity, { districtId, epiYear: body.year, epiWeek: body.week });
+      await recordAudit(manager, {
+        actorId: actor.userId, action: 'case-week.reopened', entity: 'case_week', entityId: `${districtId}:${body.year}-${body.week}`,
+        before: { districtId, year: body.year, week: body.week, closedAt: existing.closedAt.toISOString(), closedBy: existing.closedBy },
+        after: null, reason: body.reason,
+      });
+      return { districtId, year: body.year, week: body.week, reopened: true };
     });
   }
 

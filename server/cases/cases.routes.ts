@@ -4,7 +4,7 @@ import {
   caseCountBody,
   caseUploadFields,
   channelSettingsBody,
-  closeWeekBody,
+  closeWeekBody, reopenWeekBody,
   diseaseCreateBody,
   districtCasesQuery,
   gridQuery,
@@ -71,6 +71,10 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
     defineRoute({
       method: 'post', path: '/districts/:id/weeks/close', access: ['epidemiologist', 'supervisor'], params: idParams, body: closeWeekBody,
       handler: ({ principal, params, body }) => ledger.closeWeek(principal, params.id, body),
+    }),
+    defineRoute({
+      method: 'post', path: '/districts/:id/weeks/reopen', access: ['epidemiologist', 'supervisor'], params: idParams, body: reopenWeekBody,
+      handler: ({ principal, params, body }) => ledger.reopenWeek(principal, params.id, body),
     }),
     defineRoute({
       method: 'put', path: '/districts/:id/channel-settings', access: ['admin', 'epidemiologist'], params: idParams, body: channelSettingsBody,

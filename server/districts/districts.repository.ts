@@ -6,6 +6,8 @@ import { DistrictEntity } from './district.entity';
 export interface DistrictWithPopulations {
   district: DistrictEntity;
   populations: { year: number; population: number }[];
+  /** The vector–pathogen profiles assigned to the district (they tell which diseases are its own). */
+  profileIds: string[];
 }
 
 export class DistrictsRepository {
@@ -25,10 +27,14 @@ export class DistrictsRepository {
     const pops = districts.length
       ? await manager.find(DistrictPopulationEntity, { where: { districtId: In(districts.map((d) => d.id)) }, order: { year: 'ASC' } })
       : [];
+    const profiles: { district_id: string; profile_id: string }[] = districts.length
+      ? await manager.query('SELECT district_id, profile_id FROM district_profiles WHERE district_id = ANY($1) ORDER BY profile_id', [districts.map((d) => d.id)])
+      : [];
     return districts.map((district) => {
       district.boundary = withBoundary.has(district.id) ? ({} as DistrictEntity['boundary']) : null;
       return {
         district,
+        profileIds: profiles.filter((p) => p.district_id === district.id).map((p) => p.profile_id),
         populations: pops.filter((p) => p.districtId === district.id).map(({ year, population }) => ({ year, population })),
       };
     });

@@ -5,6 +5,7 @@ import { failedCount } from './season-run.service';
 export const presentSeasonRun = (r: SeasonRunEntity): SeasonRunDto => ({
   id: r.id,
   kind: r.kind,
+  byPerson: r.requestedBy !== null,
   full: r.full,
   status: r.status,
   startedAt: new Date(r.startedAt).toISOString(),

@@ -68,7 +68,7 @@ export class WeatherRepository {
   issuesPage(uploadId: string, offset: number, limit: number) {
     return this.ds.query(
       `SELECT row_number, station, date, "column", value, severity, rule, reason FROM weather_upload_issues
-        WHERE upload_id = $1 ORDER BY id OFFSET $2 LIMIT $3`,
+        WHERE upload_id = $1 ORDER BY row_number NULLS FIRST, id OFFSET $2 LIMIT $3`,
       [uploadId, offset, limit],
     );
   }

@@ -106,6 +106,8 @@ export type DistrictFileResponse = z.infer<typeof districtFileResponse>;
 export const seasonRunDto = z.object({
   id: uuid,
   kind: z.enum(['nightly', 'manual']),
+  /** True when a person started the run (a manual run without one was started by the system, e.g. at start-up). */
+  byPerson: z.boolean().default(false),
   full: z.boolean(),
   status: z.enum(['running', 'succeeded', 'failed']),
   startedAt: z.string(),

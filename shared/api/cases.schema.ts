@@ -121,6 +121,9 @@ export type CaseEntryForm = z.infer<ReturnType<typeof caseEntryFormSchema>>;
 
 export const closeWeekBody = z.strictObject({ year: epiYear, week: epiWeekNumber });
 export type CloseWeekBody = z.infer<typeof closeWeekBody>;
+/** Reopening a closed week undoes a closing; it needs a reason, kept in the audit trail. */
+export const reopenWeekBody = z.strictObject({ year: epiYear, week: epiWeekNumber, reason });
+export type ReopenWeekBody = z.infer<typeof reopenWeekBody>;
 
 export const channelSettingsBody = z.strictObject({
   diseaseId: uuid,
@@ -232,6 +235,14 @@ export const revisionDto = z.object({
 });
 export type RevisionDto = z.infer<typeof revisionDto>;
 export const revisionsResponse = z.object({ count: caseCountDto, revisions: z.array(revisionDto) });
+
+export const reopenResponse = z.object({
+  districtId: uuid,
+  year: z.number(),
+  week: z.number(),
+  /** False when the week was not closed (nothing was changed). */
+  reopened: z.boolean(),
+});
 
 export const closureResponse = z.object({
   districtId: uuid,

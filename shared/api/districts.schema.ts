@@ -56,6 +56,8 @@ export const districtDto = z.object({
   name: z.string(),
   isDemo: z.boolean(),
   populations: z.array(z.object({ year: z.number(), population: z.number() })),
+  /** The vector–pathogen profiles assigned to the district (its own diseases are those with one of them). */
+  profileIds: z.array(z.string()).default([]),
   hasBoundary: z.boolean(),
   centroid: z.object({ lat: z.number(), lon: z.number() }).nullable(),
 });

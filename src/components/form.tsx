@@ -118,7 +118,7 @@ export function CheckboxGroup({
       {options.length === 0 ? (
         <p className="field-hint">{emptyText ?? t('checkboxGroup.empty')}</p>
       ) : (
-        <ul className="mt-1 grid max-h-56 grid-cols-1 gap-1 overflow-y-auto rounded-md border border-line bg-surface p-2 sm:grid-cols-2">
+        <ul className="mt-1 grid grid-cols-1 gap-1 rounded-md border border-line bg-surface p-2 sm:grid-cols-2">
           {options.map((o) => (
             <li key={o.value}>
               <label className="flex cursor-pointer items-center gap-2 rounded px-1 py-1 hover:bg-accent-50">

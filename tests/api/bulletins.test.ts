@@ -112,7 +112,7 @@ describe('the bulletin in the reader\'s language', () => {
     await new OutboxWorker(t.ctx).drain();
 
     const [mail] = await waitForMails([fr.email], 1);
-    expect(mail.subject).toMatch(new RegExp(`^Bulletin hebdomadaire Broodcast : ${warm.name}, semaine 33 de 2026 \\(niveau (Base|Accru|Élevé|Critique)\\)$`));
+    expect(mail.subject).toMatch(new RegExp(`^Bulletin hebdomadaire Broodcast : ${warm.name}, semaine 33 de 2026 \\(niveau (Base|Accru|Élevé|Critique)\\)$`));
     for (const words of ['Facteurs du niveau', 'Signal des cas', 'canal endémique', 'La région cette semaine', 'Que faire', 'personnel formé',
       'autorité sanitaire nationale', 'clinicien agréé', 'ne pose aucun diagnostic', 'Ne plus recevoir de courriels'])
       expect(mail.text).toContain(words);

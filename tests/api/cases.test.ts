@@ -145,6 +145,38 @@ describe('closing weeks, late reports and completeness', () => {
     expect((await put(epi, own.id, { year: w.year, week: w.week, cases: 4 })).status).toBe(400);
   });
 
+  it('when a closed week is reopened with a reason, then the lock goes, the counts stay, and the audit keeps who closed it and why it was reopened', async () => {
+    const w = weeksAgo(5);
+    await put(epi, own.id, { year: w.year, week: w.week, cases: 7 });
+    expect((await supervisor.post(`/api/districts/${own.id}/weeks/close`).send({ year: w.year, week: w.week })).status).toBe(200);
+    // No reason: refused, naming the field, nothing written.
+    const before = await rows();
+    const noReason = await epi.post(`/api/districts/${own.id}/weeks/reopen`).send({ year: w.year, week: w.week });
+    expect(noReason.status).toBe(400);
+    expect(paths(noReason)).toEqual(['reason']);
+    // Another district's epidemiologist and an officer may not reopen it.
+    expect((await otherEpi.post(`/api/districts/${own.id}/weeks/reopen`).send({ year: w.year, week: w.week, reason: 'not mine' })).status).toBe(403);
+    expect((await officer.post(`/api/districts/${own.id}/weeks/reopen`).send({ year: w.year, week: w.week, reason: 'not allowed' })).status).toBe(403);
+    expect(await rows()).toEqual(before);
+
+    const res = await epi.post(`/api/districts/${own.id}/weeks/reopen`).send({ year: w.year, week: w.week, reason: 'Closed before the last clinic reported' });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ districtId: own.id, year: w.year, week: w.week, reopened: true });
+    const [audit] = await t.ds.query(`SELECT actor_id, before, after, reason FROM audit_events WHERE action = 'case-week.reopened' ORDER BY id DESC LIMIT 1`);
+    expect(audit.actor_id).toBe(epiId);
+    expect(audit.reason).toBe('Closed before the last clinic reported');
+    expect(audit.before).toMatchObject({ districtId: own.id, year: w.year, week: w.week });
+    expect(audit.before.closedAt).toEqual(expect.any(String));
+    // The week is open again: a correction still needs a reason (a count is recorded), the count is kept.
+    const grid = await epi.get(`/api/cases/grid?diseaseId=${dengueId}&weeks=8`);
+    const cell = grid.body.rows.find((r: { district: { id: string } }) => r.district.id === own.id).cells.find((c: { year: number; week: number }) => c.year === w.year && c.week === w.week);
+    expect(cell.closed).toBe(false);
+    expect(cell.count.cases).toBe(7);
+    // Reopening an open week changes nothing.
+    const again = await epi.post(`/api/districts/${own.id}/weeks/reopen`).send({ year: w.year, week: w.week, reason: 'twice' });
+    expect(again.body.reopened).toBe(false);
+  });
+
   it('when the current week is closed, then it is refused because it is not over', async () => {
     const w = weeksAgo(0);
     const res = await supervisor.post(`/api/districts/${own.id}/weeks/close`).send({ year: w.year, week: w.week });

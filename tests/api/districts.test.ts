@@ -27,6 +27,17 @@ describe('districts', () => {
     expect(map.body.features.find((f: { id: string }) => f.id === id).geometry.type).toBe('Polygon');
   });
 
+  it('when a district has a malaria profile, then its listing names that profile, so its cases page opens on its own disease', async () => {
+    const d = await makeDistrict(t.ds);
+    await t.ds.query("INSERT INTO district_profiles (district_id, profile_id, biofix) VALUES ($1, 'anopheles-falciparum', NULL)", [d.id]);
+    const one = await admin.get(`/api/districts/${d.id}`);
+    expect(one.body.profileIds).toEqual(['anopheles-falciparum']);
+    const diseases = await admin.get('/api/diseases');
+    const own = diseases.body.diseases.filter((x: { profileIds: string[] }) => x.profileIds.includes('anopheles-falciparum'));
+    expect(own.length).toBeGreaterThan(0);
+    expect(own.map((x: { code: string }) => x.code)).not.toContain('DENV');
+  });
+
   it('when a boundary is not polygons, then the answer is 400 naming the problem and nothing is written', async () => {
     const district = await makeDistrict(t.ds);
     const before = await countRows(t.ds, ...ALL_TABLES);

@@ -194,8 +194,8 @@ describe('advisories in the reader\'s language', () => {
     await new OutboxWorker(t.ctx).drain();
 
     const [french] = await waitForMails([fr.email], 1);
-    expect(french.subject).toBe(`Avis Broodcast : ${d.name} — niveau Élevé`);
-    for (const words of ['Que faire', 'Supprimer les eaux de ponte', 'Rechercher activement les cas', 'personnel formé', 'autorité sanitaire nationale',
+    expect(french.subject).toBe(`Avis Broodcast : ${d.name} — niveau Élevé`);
+    for (const words of ['Que faire', 'Supprimer les gîtes larvaires', 'Rechercher activement les cas', 'personnel formé', 'autorité sanitaire nationale',
       'clinicien agréé', 'ne pose aucun diagnostic', 'dépassent la fourchette habituelle', 'Signal des cas (67 % du score)', 'Ne plus recevoir de courriels'])
       expect(french.text.replace(/\u202f|\u00a0/g, ' ')).toContain(words);
     expect(french.text).not.toContain('What to do');

@@ -65,6 +65,7 @@ interface Target { role: keyof typeof agents; method: 'post' | 'put' | 'patch'; 
 const targets: Target[] = [
   { role: 'epidemiologist', method: 'put', path: '/api/districts/:id/cases', valid: validCase },
   { role: 'epidemiologist', method: 'post', path: '/api/districts/:id/weeks/close', valid: () => ({ year: 2025, week: 10 }) },
+  { role: 'epidemiologist', method: 'post', path: '/api/districts/:id/weeks/reopen', valid: () => ({ year: 2025, week: 10, reason: 'closed by mistake' }) },
   { role: 'epidemiologist', method: 'put', path: '/api/districts/:id/channel-settings', valid: () => ({ diseaseId, excludedYears: [2020] }) },
   { role: 'admin', method: 'post', path: '/api/diseases', valid: () => ({ code: 'ZZ-1', name: 'Zed', profileIds: [] }) },
   { role: 'admin', method: 'patch', path: '/api/districts/:id', valid: () => ({ name: 'Renamed district' }) },

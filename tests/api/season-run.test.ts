@@ -134,6 +134,26 @@ describe('the board', () => {
     const worker = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'worker', districtIds: [cool.id] })).email);
     expect((await worker.get(`/api/districts/${warm.id}/file`)).status).toBe(403);
   });
+
+  it('when an earlier season that no run stored is asked for (to compare heat with it), then its vector clock is computed from that year’s weather', async () => {
+    const officer = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'officer' })).email);
+    const stored = await t.ds.query('SELECT count(*)::int AS n FROM vector_clock_seasons WHERE district_id = $1 AND season_year = 2025', [warm.id]);
+    expect(stored[0].n).toBe(0);
+    const res = await officer.get(`/api/districts/${warm.id}/file?season=2025`);
+    expect(res.status).toBe(200);
+    expect(res.body.seasonYear).toBe(2025);
+    expect(res.body.vectorClock).toHaveLength(1);
+    const vc = res.body.vectorClock[0];
+    expect(vc.profileId).toBe('aedes-aegypti-dengue');
+    expect(vc.dates).toHaveLength(365);
+    expect(vc.dates[0]).toBe('2025-01-01');
+    // Degree-days only accumulate: the last day holds the most.
+    expect(vc.cumulativeDegreeDays.at(-1)).toBeGreaterThan(1000);
+    expect(vc.cumulativeDegreeDays.at(-1)).toBeGreaterThanOrEqual(vc.cumulativeDegreeDays[180]);
+    // Computing it wrote nothing.
+    const after = await t.ds.query('SELECT count(*)::int AS n FROM vector_clock_seasons WHERE district_id = $1 AND season_year = 2025', [warm.id]);
+    expect(after[0].n).toBe(0);
+  });
 });
 
 describe('tier settings', () => {

@@ -34,7 +34,7 @@ beforeAll(async () => {
 });
 afterAll(() => stop?.());
 
-async function signedInPage(size: keyof typeof SIZES): Promise<Page> {
+async function signedInPage(size: keyof typeof SIZES, email = 'officer@halvern.example'): Promise<Page> {
   const context = await browser.newContext({ ...SIZES[size], locale: 'en-GB', reducedMotion: 'reduce' });
   await context.addInitScript(() => {
     try {
@@ -46,7 +46,7 @@ async function signedInPage(size: keyof typeof SIZES): Promise<Page> {
   const page = await context.newPage();
   page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
   await page.goto(server.baseUrl + '/sign-in');
-  await page.locator('input[type="email"]').fill('officer@halvern.example');
+  await page.locator('input[type="email"]').fill(email);
   await page.locator('input[type="password"]').fill(DEMO_PASSWORD);
   await page.locator('form button[type="submit"]').click();
   await page.getByTestId('current-role').waitFor();
@@ -114,6 +114,20 @@ describe('screenshots of the Ladder and a District file for the docs', () => {
     const page = await signedInPage(size);
     await openDistrictFile(page);
     await shoot(page, 'district-file', size);
+    await page.context().close();
+  });
+
+  it('when the community worker opens Broodcast on a phone, then the first screen leads with their district and its advisories, the cautions one tap away', async () => {
+    const page = await signedInPage('phone', 'worker@halvern.example');
+    await page.goto(server.baseUrl + '/');
+    await page.getByTestId('worker-home').waitFor();
+    await page.locator('.ladder-table tbody tr[data-district]').first().waitFor();
+    await chartsDrawn(page, '[data-testid="region-map"]');
+    // The worker's district is in the first screenful; the cautions are folded, one tap away.
+    const top = await page.getByRole('heading', { name: /Your district: Saltmere/ }).evaluate((h) => h.getBoundingClientRect().top);
+    expect(top).toBeLessThan(SIZES.phone.viewport.height - 120);
+    expect(await page.locator('[data-testid="worker-home"] details').getAttribute('open')).toBeNull();
+    await shoot(page, 'worker-home', 'phone');
     await page.context().close();
   });
 

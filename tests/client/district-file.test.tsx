@@ -72,9 +72,9 @@ describe('the District file', () => {
     const figures = [...c.querySelectorAll('figure[data-chart]')];
     expect(figures.map((f) => f.getAttribute('data-chart'))).toEqual([
       'Daily temperature and humidity',
-      'Heat accumulation — Aedes aegypti with dengue',
-      'Vector clock — Aedes aegypti with dengue',
-      'Relative vectorial capacity — Aedes aegypti with dengue',
+      'Heat accumulation — Aedes aegypti with dengue virus',
+      'Vector clock — Aedes aegypti with dengue virus',
+      'Relative vectorial capacity — Aedes aegypti with dengue virus',
       'Weekly cases against the endemic channel — Dengue',
       'Larval indices',
       'Tier history and its drivers',

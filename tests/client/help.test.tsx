@@ -72,7 +72,7 @@ describe('the "?" help beside a number', () => {
     try {
       view = await render(<HelpButton topic="channelZone" />);
       const button = view.container.querySelector<HTMLButtonElement>('button.help-button')!;
-      expect(button.getAttribute('aria-label')).toBe('À propos : Canal endémique');
+      expect(button.getAttribute('aria-label')).toBe('À propos : Canal endémique');
       await click(button);
       const panel = view.container.querySelector<HTMLElement>('[role="dialog"]')!;
       expect(panel.textContent).toContain('Comment c’est calculé');

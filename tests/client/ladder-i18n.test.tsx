@@ -50,7 +50,7 @@ describe('the Ladder in French', () => {
     expect(c.querySelector('tr[data-district="HV-05"]')!.textContent).toContain('1 juin 2025');
     expect(c.textContent).toContain('5 districts');
     expect(c.querySelector('label')?.textContent).toBe('Filtrer les districts');
-    expect(c.querySelector('button.help-button')?.getAttribute('aria-label')).toBe('À propos : Niveau et score');
+    expect(c.querySelector('button.help-button')?.getAttribute('aria-label')).toBe('À propos : Niveau et score');
 
     // The CSV speaks French too (its numbers stay machine-readable).
     const csv = ladderCsv(
@@ -90,7 +90,7 @@ describe('the Ladder in French', () => {
       notes: ['The newest weather is 5 days old.', 'Larval indices: no data; its weight is shared among the others.', 'Something new from the server.'],
       drivers: tier.drivers.map((d) => (d.id === 'larval' ? { ...d, score: null } : d)),
     });
-    expect(notes).toEqual(['La météo la plus récente date de 5 jours.', 'Indices larvaires : pas de données ; son poids est réparti entre les autres.', 'Something new from the server.']);
+    expect(notes).toEqual(['La météo la plus récente date de 5 jours.', 'Indices larvaires : pas de données ; son poids est réparti entre les autres.', 'Something new from the server.']);
   });
 });
 

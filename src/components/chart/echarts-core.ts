@@ -19,6 +19,10 @@ import {
   type VisualMapComponentOption,
 } from 'echarts/components';
 import { CanvasRenderer } from 'echarts/renderers';
+// ECharts' own translations of its month and weekday names (the time axis labels), one per interface language.
+import langFR from 'echarts/lib/i18n/langFR.js';
+import langES from 'echarts/lib/i18n/langES.js';
+import langPT from 'echarts/lib/i18n/langPT-br.js';
 
 echarts.use([
   MapChart,
@@ -31,6 +35,13 @@ echarts.use([
   MarkLineComponent,
   CanvasRenderer,
 ]);
+
+echarts.registerLocale('FR', langFR);
+echarts.registerLocale('ES', langES);
+echarts.registerLocale('PT', langPT);
+
+/** The ECharts locale of an interface language (English is ECharts' default). */
+export const echartsLocale = (language: string) => ({ fr: 'FR', es: 'ES', pt: 'PT' })[language.slice(0, 2)] ?? 'EN';
 
 export type ChartOption = echarts.ComposeOption<
   | LineSeriesOption

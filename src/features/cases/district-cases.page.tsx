@@ -31,10 +31,13 @@ export function DistrictCasesPage() {
   const settings = useCasesSettings();
   const districts = useDistricts();
   const code = search.get('disease');
-  const disease = diseases.data?.find((d) => d.code === code) ?? diseases.data?.[0];
+  const district = districts.data?.find((d) => d.id === id);
+  // Without a disease in the address, the page opens on the district's own diseases (those of its profiles) first.
+  const ownDiseases = (diseases.data ?? []).filter((d) => district?.profileIds.some((p) => d.profileIds.includes(p)));
+  const disease = diseases.data?.find((d) => d.code === code) ?? ownDiseases[0] ?? (districts.isPending ? undefined : diseases.data?.[0]);
+  const orderedDiseases = [...ownDiseases, ...(diseases.data ?? []).filter((d) => !ownDiseases.includes(d))];
   const yearParam = Number(search.get('year')) || undefined;
   const signals = useDistrictSignals(id, disease?.id, yearParam);
-  const district = districts.data?.find((d) => d.id === id);
 
   if (isForbidden(signals.error)) return <NotAllowedPage />;
   const data = signals.data;
@@ -53,7 +56,7 @@ export function DistrictCasesPage() {
       <DemoDataLabel districts={district ? [district] : undefined} />
       <div className="mb-4 flex flex-wrap items-end gap-4">
         <SelectField label={t('district.disease')} className="field min-w-0 sm:min-w-56" value={disease?.code ?? ''} onChange={(e) => set('disease', e.currentTarget.value)}>
-          {(diseases.data ?? []).map((d) => (
+          {orderedDiseases.map((d) => (
             <option key={d.id} value={d.code}>
               {d.name}
             </option>
@@ -67,7 +70,7 @@ export function DistrictCasesPage() {
           ))}
         </SelectField>
       </div>
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_20rem]">
+      <div className="grid gap-6 2xl:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-6">
           {signals.isError ? (
             <FormMessage kind="error">{errorText(signals.error)}</FormMessage>

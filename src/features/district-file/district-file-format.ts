@@ -70,3 +70,7 @@ export const channelMethodText = (w: LadderWords, method: string) =>
   method === 'geometric' || method === 'quartile' || method === 'mean-2sd' ? w.t(`district-file:channelMethods.${method}`) : method;
 
 export const fixed = (w: LadderWords, x: number | null, digits = 2) => w.f.number(x, digits, true);
+
+/** A vector–pathogen profile's name in the interface language (the server's English name for a profile the client does not know). */
+export const profileLabel = (w: Pick<LadderWords, 't'>, profile: { profileId: string; profileName: string }) =>
+  w.t(`district-file:profileNames.${profile.profileId}`, { defaultValue: profile.profileName });

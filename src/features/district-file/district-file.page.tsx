@@ -1,4 +1,5 @@
 import { useId, useMemo } from 'react';
+import { useSession } from '../../app/session';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { useTranslation } from 'react-i18next';
 import type { DistrictFileResponse } from '../../../shared/api/board.schema';
@@ -14,7 +15,7 @@ import { DegreeDaysChart, EipChart, RvcChart } from './charts/vector-clock.chart
 import { WeatherChart } from './charts/weather.chart';
 import { CurrentTier } from './components/current-tier';
 import { KeyNumbers } from './components/key-numbers';
-import { weatherSourceText } from './district-file-format';
+import { weatherSourceText , profileLabel } from './district-file-format';
 import { useLadderWords } from '../ladder/ladder-format';
 import './district-file.css';
 import { errorText } from '../../lib/error-text';
@@ -88,6 +89,7 @@ function DistrictFileView({
   const id = useId();
   const w = useLadderWords();
   const { t } = useTranslation('district-file');
+  const me = useSession();
   const { district, seasonYear } = data;
   const seasons = useMemo(() => [...new Set([...data.seasons, seasonYear])].sort((a, b) => b - a), [data.seasons, seasonYear]);
   const earlier = seasons.filter((s) => s < seasonYear);
@@ -106,9 +108,16 @@ function DistrictFileView({
       </p>
       <div className="flex flex-wrap items-start justify-between gap-3">
         <PageHeading lead={t('lead', { code: district.code, season: seasonYear })}>{district.name}</PageHeading>
-        <Link to={`/districts/${district.id}/print?season=${seasonYear}`} className="btn btn-secondary btn-small" data-testid="print-link">
-          {t('printLink')}
-        </Link>
+        <span className="flex flex-wrap gap-2">
+          {me.role === 'officer' || me.role === 'epidemiologist' ? (
+            <Link to={`/flags/new?district=${district.id}`} className="btn btn-secondary btn-small">
+              {t('flags:raise.raiseHere')}
+            </Link>
+          ) : null}
+          <Link to={`/districts/${district.id}/print?season=${seasonYear}`} className="btn btn-secondary btn-small" data-testid="print-link">
+            {t('printLink')}
+          </Link>
+        </span>
       </div>
       <DemoDataLabel districts={[district]} />
 
@@ -167,7 +176,7 @@ function DistrictFileView({
               <li>
                 {data.vectorClock.length === 0
                   ? t('about.noProfile')
-                  : t('about.profiles', { profiles: data.vectorClock.map((v) => v.profileName).join(t('listSeparator')) })}
+                  : t('about.profiles', { profiles: data.vectorClock.map((v) => profileLabel({ t }, v)).join(t('listSeparator')) })}
               </li>
               <li>
                 {data.larval.length === 0

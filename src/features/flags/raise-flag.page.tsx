@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { useSearchParams } from 'react-router-dom';
 import { useNavigate } from 'react-router-dom';
 import { ACTION_IDS, type ActionId } from '../../../shared/api/flags.schema';
 import { CheckboxGroup, FormMessage, SelectField } from '../../components/form';
@@ -26,7 +27,9 @@ export function RaiseFlagPage() {
   const districts = useDistricts();
   const raise = useRaiseFlag();
   const navigate = useNavigate();
-  const [districtId, setDistrictId] = useState('');
+  const [search] = useSearchParams();
+  // Opened from a District file or the Ladder (?district=…), the district is already chosen.
+  const [districtId, setDistrictId] = useState(search.get('district') ?? '');
   const [note, setNote] = useState('');
   const [message, setMessage] = useState('');
   const [actions, setActions] = useState<string[]>([...ACTION_IDS]);
@@ -78,9 +81,22 @@ export function RaiseFlagPage() {
           hint={f.caution()}
           error={fieldError('actions', t('raise.actions'))}
         />
-        <button type="submit" className="btn btn-primary" disabled={raise.isPending || !districtId || note.trim().length < 3 || actions.length === 0}>
-          {raise.isPending ? t('raise.raising') : t('raise.submit')}
-        </button>
+        {(() => {
+          // A disabled button says why: the first thing still missing.
+          const missing = !districtId ? t('raise.needDistrict') : note.trim().length < 3 ? t('raise.needNote') : actions.length === 0 ? t('raise.needAction') : null;
+          return (
+            <>
+              <button type="submit" className="btn btn-primary" disabled={raise.isPending || missing !== null} aria-describedby={missing ? 'raise-missing' : undefined}>
+                {raise.isPending ? t('raise.raising') : t('raise.submit')}
+              </button>
+              {missing ? (
+                <p id="raise-missing" className="text-sm text-ink-muted">
+                  {missing}
+                </p>
+              ) : null}
+            </>
+          );
+        })()}
       </form>
     </section>
   );

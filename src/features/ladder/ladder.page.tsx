@@ -10,6 +10,7 @@ import { RegionMap } from '../region-map/region-map';
 import { useBoard } from './api/board.api';
 import { LadderTable } from './components/ladder.table';
 import { useLadderWords } from './ladder-format';
+import { WorkerHome } from './worker-home';
 import './ladder.css';
 import { errorText } from '../../lib/error-text';
 
@@ -35,15 +36,19 @@ export function LadderPage() {
         <TourButton onClick={tour.start} />
       </div>
       <DemoDataLabel districts={rows} />
-      <div data-tour="cautions">
-        <CautionsPanel className="mb-6" />
-      </div>
+      {me.role === 'worker' ? (
+        <WorkerHome rows={rows} />
+      ) : (
+        <div data-tour="cautions">
+          <CautionsPanel className="mb-6" />
+        </div>
+      )}
       {board.isPending ? (
         <p className="text-ink-muted">{t('loading')}</p>
       ) : board.isError ? (
         <FormMessage kind="error">{errorText(board.error)}</FormMessage>
       ) : (
-        <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,22rem)]">
+        <div className="grid gap-6">
           <div className="min-w-0" data-tour="ladder-table">
             {rows.length === 0 && canUse(me.role, ['admin', 'officer']) ? (
               <FormMessage kind="info">

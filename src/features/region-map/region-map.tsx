@@ -43,9 +43,9 @@ export function RegionMap({ rows }: { rows: LadderRow[] }) {
       ) : boundaries.data.features.length === 0 ? (
         <p className="chart-empty">{t('noBoundaries')}</p>
       ) : (
-        <>
+        <div className="region-map-body mt-3">
           <div
-            className="chart-box mt-3"
+            className="chart-box"
             role="img"
             aria-label={t('mapLabel', { count: listed.length, total: words.count(listed.length) })}
             data-testid="region-map"
@@ -54,7 +54,8 @@ export function RegionMap({ rows }: { rows: LadderRow[] }) {
               <RegionMapChart boundaries={boundaries.data} rows={rows} />
             </Suspense>
           </div>
-          <h3 id={`${id}-list`} className="mt-4 text-sm font-bold">
+          <div>
+          <h3 id={`${id}-list`} className="text-sm font-bold">
             {t('listTitle')}
           </h3>
           <p className="text-xs text-ink-muted">{t('listHint')}</p>
@@ -75,7 +76,8 @@ export function RegionMap({ rows }: { rows: LadderRow[] }) {
               );
             })}
           </ul>
-        </>
+          </div>
+        </div>
       )}
     </section>
   );

@@ -1,3 +1,4 @@
+import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useTranslation } from 'react-i18next';
 import { PageHeading } from '../../components/page-heading';
@@ -17,14 +18,15 @@ export function SurveysPage() {
   const outbox = useSurveyOutbox();
   // A community worker surveys their own district; a health officer any district.
   const choices = me.role === 'worker' ? me.districts : (districts.data ?? []).map(({ id, code, name }) => ({ id, code, name }));
-  const first = choices[0];
+  const [chosenId, setChosenId] = useState<string | null>(null);
+  const first = choices.find((d) => d.id === chosenId) ?? choices[0];
   return (
     <section aria-labelledby="page-title">
       <PageHeading lead={t('page.lead')}>{t('page.title')}</PageHeading>
       {districts.data?.some((d) => d.isDemo) ? <p className="demo-label">{t('page.demo')}</p> : null}
       <div className="grid gap-6 lg:grid-cols-[minmax(0,28rem)_minmax(0,1fr)]">
         <div className="card min-w-0">
-          {choices.length ? <SurveyFormCard districts={choices} /> : <p className="text-ink-muted">{t('page.loadingDistricts')}</p>}
+          {choices.length ? <SurveyFormCard districts={choices} onDistrictChange={setChosenId} /> : <p className="text-ink-muted">{t('page.loadingDistricts')}</p>}
         </div>
         <div className="min-w-0 space-y-6">
           <OutboxList items={outbox.items} onRetry={outbox.retry} onDiscard={outbox.discard} />

@@ -11,6 +11,7 @@ export const casesAccess: AccessTable = {
   'GET /districts/:id/cases': ALL_SIGNED_IN,
   'PUT /districts/:id/cases': ['epidemiologist'],
   'POST /districts/:id/weeks/close': ['epidemiologist', 'supervisor'],
+  'POST /districts/:id/weeks/reopen': ['epidemiologist', 'supervisor'],
   'PUT /districts/:id/channel-settings': ['admin', 'epidemiologist'],
   'POST /surveys': ['officer', 'worker'],
   'POST /surveys/:id/void': ['officer', 'worker'],

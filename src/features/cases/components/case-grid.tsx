@@ -6,6 +6,7 @@ import { FormMessage } from '../../../components/form';
 import { isApiError } from '../../../lib/api-client';
 import { formErrorText } from '../../../lib/form-errors';
 import { useCloseWeek } from '../api/close-week.api';
+import { useReopenWeek } from '../api/reopen-week.api';
 import { usePutCount } from '../api/put-count.api';
 import { useVoidCount } from '../api/void-count.api';
 import { VoidAction } from '../../../components/void-dialog';
@@ -90,7 +91,8 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
                         <input
                           key={`${cell.count?.id ?? 'new'}-${cell.count?.version ?? 0}-${epoch}`}
                           aria-label={marks ? t('grid.cellLabelMarks', { cell: label, marks }) : t('grid.cellLabel', { cell: label })}
-                          className="input w-16 px-1 py-0.5 text-right"
+                          className={`input w-16 px-1 py-0.5 text-right${cell.count ? '' : ' case-cell-empty'}`}
+                          placeholder="—"
                           type="text"
                           inputMode="numeric"
                           defaultValue={cell.count?.voided ? '' : (cell.count?.cases ?? '')}
@@ -105,7 +107,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
                         />
                       ) : (
                         <button type="button" className="btn-quiet tabular-nums" aria-label={t(marks ? 'grid.readLabelMarks' : 'grid.readLabel', { cell: label, cases: cell.count?.cases ?? t('grid.noReport'), marks })} onClick={() => setSelected({ row, index })}>
-                          {cell.count?.voided ? <s>{cell.count.cases}</s> : (cell.count?.cases ?? '–')}
+                          {cell.count?.voided ? <s>{cell.count.cases}</s> : cell.count ? cell.count.cases : <span className="text-ink-muted" aria-hidden="true">—</span>}
                         </button>
                       )}
                       {marks ? <span className="block text-xs text-ink-muted">{marks}</span> : null}
@@ -121,7 +123,7 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
         </table>
       </div>
       <p id="grid-help" className="text-sm text-ink-muted">
-        {t('grid.help')}
+        {t('grid.help')} {t('grid.emptyLegend')}
       </p>
       {problem ? <FormMessage kind="error">{problem}</FormMessage> : null}
       {saved ? <FormMessage kind="success">{saved}</FormMessage> : null}
@@ -167,11 +169,17 @@ function CellPanel({
   const put = usePutCount();
   const voidCount = useVoidCount();
   const close = useCloseWeek();
+  const reopen = useReopenWeek();
   const [reason, setReason] = useState('');
+  /** Closing asks first; reopening asks for a reason. */
+  const [confirming, setConfirming] = useState<'close' | 'reopen' | null>(null);
+  const [reopenReason, setReopenReason] = useState('');
   const [showHistory, setShowHistory] = useState(false);
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
   const canReadHistory = role === 'admin' || role === 'supervisor' || row.editable;
-  const canClose = (role === 'supervisor' || row.editable) && !cell.closed && week.end < today;
+  const mayClose = role === 'supervisor' || row.editable;
+  const canClose = mayClose && !cell.closed && week.end < today;
+  const canReopen = mayClose && cell.closed;
 
   const correct = async () => {
     if (pending === undefined) return;
@@ -193,9 +201,24 @@ function CellPanel({
   const closeWeek = async () => {
     try {
       await close.mutateAsync({ districtId: row.district.id, week: { year: cell.year, week: cell.week } });
+      setConfirming(null);
       setMessage({ kind: 'success', text: t('grid.isClosed', { week: weekLabel(cell), district: row.district.name }) });
     } catch (error) {
       setMessage({ kind: 'error', text: formErrorText(error) });
+    }
+  };
+
+  const reopenWeek = async () => {
+    try {
+      const r = await reopen.mutateAsync({ districtId: row.district.id, week: { year: cell.year, week: cell.week, reason: reopenReason } });
+      setConfirming(null);
+      setReopenReason('');
+      setMessage({ kind: 'success', text: r.reopened ? t('grid.isReopened', { week: weekLabel(cell), district: row.district.name }) : t('grid.wasOpen') });
+    } catch (error) {
+      setMessage({
+        kind: 'error',
+        text: isApiError(error) && error.fields.some((f) => f.path.endsWith('reason')) ? t('grid.giveReopenReason') : formErrorText(error),
+      });
     }
   };
 
@@ -248,12 +271,60 @@ function CellPanel({
         {row.editable && cell.count && !cell.count.voided ? (
           <VoidAction what={t('grid.voidWhat', { cell: `${row.district.code} ${weekLabel(cell)}`, cases: cell.count.cases })} onVoid={(reason) => voidCount.mutateAsync({ countId: cell.count!.id, reason })} />
         ) : null}
-        {canClose ? (
-          <button type="button" className="btn btn-secondary btn-small" onClick={() => void closeWeek()} disabled={close.isPending}>
+        {canClose && confirming !== 'close' ? (
+          <button type="button" className="btn btn-secondary btn-small" onClick={() => setConfirming('close')}>
             {t('grid.closeWeek', { week: weekLabel(cell), district: row.district.code })}
           </button>
         ) : null}
+        {canReopen && confirming !== 'reopen' ? (
+          <button type="button" className="btn btn-secondary btn-small" onClick={() => setConfirming('reopen')}>
+            {t('grid.reopenWeek', { week: weekLabel(cell), district: row.district.code })}
+          </button>
+        ) : null}
       </div>
+      {canClose && confirming === 'close' ? (
+        <div role="group" aria-labelledby="close-confirm" className="notice notice-info space-y-2">
+          <p id="close-confirm" className="text-sm">
+            {t('grid.confirmClose', { week: weekLabel(cell), district: row.district.name })}
+          </p>
+          <div className="flex flex-wrap gap-2">
+            <button type="button" className="btn btn-primary btn-small" onClick={() => void closeWeek()} disabled={close.isPending}>
+              {t('grid.confirmCloseButton')}
+            </button>
+            <button type="button" className="btn btn-secondary btn-small" onClick={() => setConfirming(null)}>
+              {t('grid.cancel')}
+            </button>
+          </div>
+        </div>
+      ) : null}
+      {canReopen && confirming === 'reopen' ? (
+        <form
+          className="notice notice-info space-y-2"
+          aria-labelledby="reopen-title"
+          onSubmit={(e) => {
+            e.preventDefault();
+            void reopenWeek();
+          }}
+        >
+          <p id="reopen-title" className="text-sm">
+            {t('grid.reopenExplain', { week: weekLabel(cell), district: row.district.name })}
+          </p>
+          <div className="field">
+            <label htmlFor="reopen-reason" className="field-label">
+              {t('grid.reopenReason')}
+            </label>
+            <input id="reopen-reason" className="input" value={reopenReason} onChange={(e) => setReopenReason(e.currentTarget.value)} required minLength={3} />
+          </div>
+          <div className="flex flex-wrap gap-2">
+            <button type="submit" className="btn btn-primary btn-small" disabled={reopen.isPending}>
+              {t('grid.confirmReopenButton')}
+            </button>
+            <button type="button" className="btn btn-secondary btn-small" onClick={() => setConfirming(null)}>
+              {t('grid.cancel')}
+            </button>
+          </div>
+        </form>
+      ) : null}
       {showHistory && cell.count ? <RevisionHistory countId={cell.count.id} /> : null}
     </section>
   );

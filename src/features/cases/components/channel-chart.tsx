@@ -6,6 +6,8 @@ import { CanvasRenderer } from 'echarts/renderers';
 import { useTranslation } from 'react-i18next';
 import type { SignalsResponse } from '../../../../shared/api/cases.schema';
 import { useFormat } from '../../../i18n/format';
+import { localizeOption } from '../../../components/chart/echart';
+import { echartsLocale } from '../../../components/chart/echarts-core';
 
 // Only the charts and components this chart uses (STACK.md: tree-shaken ECharts).
 echarts.use([BarChart, LineChart, GridComponent, LegendComponent, TooltipComponent, CanvasRenderer]);
@@ -22,7 +24,7 @@ const PRIOR = '#8c98cf';
  * bound, centre line dashed) and the prior seasons (thin lines, hidden until chosen in the legend).
  */
 export function ChannelChart({ data }: { data: SignalsResponse }) {
-  const { t } = useTranslation('cases');
+  const { t, i18n } = useTranslation('cases');
   const { number } = useFormat();
   const weeksInYear = Math.max(data.weeks.length, ...data.priorSeasons.map((s) => s.weeks.length));
   const categories = Array.from({ length: weeksInYear }, (_, i) => t('chart.weekShort', { week: i + 1 }));
@@ -42,7 +44,7 @@ export function ChannelChart({ data }: { data: SignalsResponse }) {
     aria: { enabled: true },
     animation: false,
     textStyle: { fontFamily: 'Lato, system-ui, sans-serif', color: INK },
-    grid: { left: 44, right: 16, top: 56, bottom: 36 },
+    grid: { left: 48, right: 16, top: 64, bottom: 36 },
     color: [BAND, BAND, CENTRE, SEASON, PRIOR],
     legend: {
       top: 0,
@@ -67,7 +69,7 @@ export function ChannelChart({ data }: { data: SignalsResponse }) {
       },
     },
     xAxis: { type: 'category', data: categories, axisLabel: { interval: 3 } },
-    yAxis: { type: 'value', name: t('chart.axis'), nameTextStyle: { align: 'left' }, minInterval: 1 },
+    yAxis: { type: 'value', name: t('chart.axis'), nameGap: 12, nameTextStyle: { align: 'left' }, minInterval: 1 },
     series: [
       { name: names.lower, type: 'line', data: lower, stack: 'channel', symbol: 'none', lineStyle: { width: 0 }, itemStyle: { color: BAND } },
       {
@@ -95,10 +97,10 @@ export function ChannelChart({ data }: { data: SignalsResponse }) {
   return (
     <ReactEChartsCore
       echarts={echarts}
-      option={option}
+      option={localizeOption(option as never, i18n.language)}
       notMerge
       style={{ height: 340, width: '100%' }}
-      opts={{ renderer: 'canvas' }}
+      opts={{ renderer: 'canvas', locale: echartsLocale(i18n.language) }}
     />
   );
 }

@@ -56,10 +56,10 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
                       {w.channel ? `${formatNumber(w.channel.lower, 1)} – ${formatNumber(w.channel.centre, 1)} – ${formatNumber(w.channel.upper, 1)}` : '—'}
                     </td>
                     <td>{w.zone ? t(`zone.${w.zone}`) : '—'}</td>
-                    <td className="tabular-nums whitespace-nowrap">{flag(w.c1)}</td>
-                    <td className="tabular-nums whitespace-nowrap">{flag(w.c2)}</td>
-                    <td className="tabular-nums whitespace-nowrap">{flag(w.c3)}</td>
-                    <td className="tabular-nums whitespace-nowrap">{flag(w.cusum)}</td>
+                    <td className="tabular-nums">{flag(w.c1)}</td>
+                    <td className="tabular-nums">{flag(w.c2)}</td>
+                    <td className="tabular-nums">{flag(w.c3)}</td>
+                    <td className="tabular-nums">{flag(w.cusum)}</td>
                     <td className="tabular-nums whitespace-nowrap">
                       {w.growth.percent === null ? '—' : `${w.growth.percent > 0 ? '+' : ''}${formatNumber(w.growth.percent, 0)} %`}
                       {w.growth.doublingWeeks !== null ? (

@@ -13,8 +13,12 @@ export const GREY = '#9a968d';
 
 export const FONT = { fontFamily: 'Lato, sans-serif', color: INK };
 
-export const baseGrid = { left: 52, right: 56, top: 40, bottom: 36, containLabel: false } as const;
-export const legend = { top: 0, left: 0, textStyle: FONT, itemGap: 14 } as const;
+/*
+ * The legend takes the top line (it wraps to a second on a narrow screen: `type: 'scroll'` would hide
+ * entries) and the axis titles sit on their own line under it, so the two never overlap.
+ */
+export const baseGrid = { left: 56, right: 60, top: 72, bottom: 36, containLabel: false } as const;
+export const legend = { top: 0, left: 0, right: 0, textStyle: FONT, itemGap: 14 } as const;
 
 export const timeAxis = {
   type: 'time' as const,
@@ -26,6 +30,7 @@ export const timeAxis = {
 export const valueAxis = (name: string, extra: Record<string, unknown> = {}) => ({
   type: 'value' as const,
   name,
+  nameGap: 12,
   nameTextStyle: { ...FONT, color: MUTED },
   axisLabel: { ...FONT, color: MUTED },
   splitLine: { lineStyle: { color: LINE, type: 'dashed' as const } },

@@ -1,3 +1,4 @@
+import { profileLabel } from '../district-file-format';
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { ChartFigure } from '../../../components/chart/chart-figure';
 import { SeriesTable } from '../../../components/chart/series-table';
@@ -36,6 +37,12 @@ export function generationDays(vc: Pick<VectorClock, 'dates' | 'generations'>): 
   return out;
 }
 
+/** Which generations get a name on the heat chart: 1, 2, 5, 10 … so that no more than about eight are named. */
+export function genStep(count: number): number {
+  for (const step of [1, 2, 5, 10, 20, 50]) if (count / step <= 8) return step;
+  return 100;
+}
+
 /** Moves an earlier season's days onto this season's calendar, so the two lines share one time axis. */
 const shiftToYear = (dates: readonly string[], year: number) => dates.map((d) => `${year}${d.slice(4)}`).filter((d) => !d.endsWith('-02-29'));
 
@@ -71,7 +78,7 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
           .join(' ');
   return (
     <ChartFigure
-      title={t('district-file:degreeDays.title', { profile: vc.profileName })}
+      title={t('district-file:degreeDays.title', { profile: profileLabel({ t }, vc) })}
       summary={summary}
       emptyText={last < 0 ? t('district-file:degreeDays.empty') : null}
       height="16rem"
@@ -94,7 +101,8 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
               silent: true,
               lineStyle: { color: PLUM, type: 'dotted', width: 1 },
               label: { ...FONT, color: PLUM, fontSize: 10, formatter: (p: any) => t('district-file:degreeDays.genMark', { generation: p.data?.generation ?? '' }) },
-              data: gens.map((g) => ({ xAxis: g.date, generation: g.generation }) as any),
+              // Every generation keeps its line; only every n-th is named, so at most ~8 names share the width.
+              data: gens.map((g) => ({ xAxis: g.date, generation: g.generation, label: { show: g.generation % genStep(gens.length) === 0 || gens.length <= 8 } }) as any),
             },
           },
           ...(comparedSeries
@@ -104,7 +112,7 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
       }}
       table={
         <SeriesTable
-          caption={t('district-file:degreeDays.tableCaption', { profile: vc.profileName })}
+          caption={t('district-file:degreeDays.tableCaption', { profile: profileLabel({ t }, vc) })}
           header={[t('district-file:table.day'), t('district-file:degreeDays.column', { unit: ddUnit }), t('district-file:degreeDays.generationsColumn'), t('district-file:degreeDays.seasonOpenColumn')]}
           rows={weeklyIndexes(vc.dates.length).map((i) => [
             f.date(vc.dates[i]),
@@ -138,7 +146,7 @@ export function EipChart({ vc }: { vc: VectorClock }) {
   const names = { eip: t('district-file:eip.series.eip'), survival: t('district-file:eip.series.survival') };
   return (
     <ChartFigure
-      title={t('district-file:eip.title', { profile: vc.profileName })}
+      title={t('district-file:eip.title', { profile: profileLabel({ t }, vc) })}
       summary={summary}
       emptyText={last < 0 ? t('district-file:eip.empty') : null}
       height="16rem"
@@ -163,7 +171,7 @@ export function EipChart({ vc }: { vc: VectorClock }) {
       }}
       table={
         <SeriesTable
-          caption={t('district-file:eip.tableCaption', { profile: vc.profileName })}
+          caption={t('district-file:eip.tableCaption', { profile: profileLabel({ t }, vc) })}
           header={[t('district-file:table.day'), t('district-file:eip.column'), t('district-file:eip.survivalColumn'), t('district-file:eip.completeColumn')]}
           rows={weeklyIndexes(vc.dates.length).map((i) => [
             f.date(vc.dates[i]),
@@ -190,7 +198,7 @@ export function RvcChart({ vc }: { vc: VectorClock }) {
   const names = { low: t('district-file:rvc.series.low'), band: t('district-file:rvc.series.band'), central: t('district-file:rvc.series.central') };
   return (
     <ChartFigure
-      title={t('district-file:rvc.title', { profile: vc.profileName })}
+      title={t('district-file:rvc.title', { profile: profileLabel({ t }, vc) })}
       summary={summary}
       emptyText={last < 0 ? t('district-file:rvc.empty') : null}
       height="16rem"
@@ -215,7 +223,7 @@ export function RvcChart({ vc }: { vc: VectorClock }) {
       }}
       table={
         <SeriesTable
-          caption={t('district-file:rvc.tableCaption', { profile: vc.profileName })}
+          caption={t('district-file:rvc.tableCaption', { profile: profileLabel({ t }, vc) })}
           header={[t('district-file:table.day'), t('district-file:rvc.lowColumn'), t('district-file:rvc.centralColumn'), t('district-file:rvc.highColumn')]}
           rows={weeklyIndexes(vc.dates.length).map((i) => [f.date(vc.dates[i]), n2(vc.rvcLow[i]), n2(vc.rvc[i]), n2(vc.rvcHigh[i])])}
           emptyText={t('district-file:table.empty')}

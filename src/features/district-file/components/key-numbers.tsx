@@ -1,3 +1,4 @@
+import { profileLabel } from '../district-file-format';
 import type { ReactNode } from 'react';
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { useUnits } from '../../../lib/units';
@@ -59,7 +60,7 @@ export function KeyNumbers({ data, help = true, headingLevel = 'h2' }: { data: D
         help: 'seasonWindow',
       });
     }
-    if (items.length) groups.push({ id: `vc-${vc.profileId}`, title: vc.profileName, items });
+    if (items.length) groups.push({ id: `vc-${vc.profileId}`, title: profileLabel({ t }, vc), items });
   }
 
   for (const c of data.cases) {

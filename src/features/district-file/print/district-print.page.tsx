@@ -12,7 +12,7 @@ import '../../ladder/ladder.css';
 import { useDistrictFile } from '../api/district-file.api';
 import { CurrentTier } from '../components/current-tier';
 import { KeyNumbers } from '../components/key-numbers';
-import { channelMethodText } from '../district-file-format';
+import { channelMethodText , profileLabel } from '../district-file-format';
 import '../district-file.css';
 import { PrintCasesChart, PrintDegreeDaysChart } from './print-charts';
 import './district-print.css';
@@ -128,7 +128,7 @@ export function DistrictPrintView({ data }: { data: DistrictFileResponse }) {
           </h2>
           {data.vectorClock.map((vc) => (
             <div key={vc.profileId} className="mt-3 print-block">
-              <h3 className="font-bold">{t('degreeDays.title', { profile: vc.profileName })}</h3>
+              <h3 className="font-bold">{t('degreeDays.title', { profile: profileLabel({ t }, vc) })}</h3>
               <PrintDegreeDaysChart vc={vc} />
             </div>
           ))}

@@ -1,3 +1,4 @@
+import { profileLabel } from '../district-file-format';
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { useUnits } from '../../../lib/units';
 import { useLadderWords } from '../../ladder/ladder-format';
@@ -111,7 +112,7 @@ export function PrintDegreeDaysChart({ vc }: { vc: VectorClock }) {
   const points = values.map((v, i) => (v === null ? null : `${x(i)},${y(v)}`)).filter(Boolean).join(' ');
   const every = Math.max(1, Math.ceil(n / 6));
   const xLabels = vc.dates.map((d, i) => ({ x: x(i), text: f.date(d) })).filter((_, i) => i % every === 0);
-  const label = t('district-file:print.degreeDaysChartLabel', { profile: vc.profileName, unit: u.degreeDaySymbol });
+  const label = t('district-file:print.degreeDaysChartLabel', { profile: profileLabel({ t }, vc), unit: u.degreeDaySymbol });
   return (
     <figure className="print-figure">
       <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-label={label} className="print-svg">

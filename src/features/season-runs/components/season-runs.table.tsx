@@ -21,7 +21,7 @@ function buildColumns(t: TFunction, f: Formatters) {
         <span className="cell-stack">
           <span className={`status ${STATUS_CLASS[c.getValue()]}`}>{t(`status.${c.getValue()}`)}</span>
           <span className="text-xs text-ink-muted">
-            {c.row.original.kind === 'nightly' ? t('kind.nightly') : t('kind.manual')}
+            {c.row.original.kind === 'nightly' ? t('kind.nightly') : c.row.original.byPerson ? t('kind.manual') : t('kind.system')}
             {c.row.original.full ? `, ${t('kind.full')}` : ''}
           </span>
         </span>

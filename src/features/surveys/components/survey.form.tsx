@@ -17,7 +17,7 @@ const COUNT_FIELDS = ['housesInspected', 'housesPositive', 'containersInspected'
  * The field form of a larval survey: one column, large touch targets, numeric keyboards, readable at
  * 360 px. Saving keeps the survey on the device first, then sends it (see offline-queue.ts).
  */
-export function SurveyFormCard({ districts }: { districts: DistrictRef[] }) {
+export function SurveyFormCard({ districts, onDistrictChange }: { districts: DistrictRef[]; onDistrictChange?: (districtId: string) => void }) {
   const { t } = useTranslation('surveys');
   const { number } = useFormat();
   const today = localToday();
@@ -46,6 +46,10 @@ export function SurveyFormCard({ districts }: { districts: DistrictRef[] }) {
   });
 
   const values = watch();
+  // The page beside the form shows the chosen district's recent surveys.
+  useEffect(() => {
+    if (values.districtId) onDistrictChange?.(values.districtId);
+  }, [values.districtId, onDistrictChange]);
   const preview = larvalSurveySchema.safeParse({
     housesInspected: values.housesInspected,
     housesPositive: values.housesPositive,

@@ -1,4 +1,6 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
+import { useQueryClient } from '@tanstack/react-query';
+import { weatherKeys } from '../api/weather-keys';
 import { useTranslation } from 'react-i18next';
 import { useFormat } from '../../../i18n/format';
 import type { IssueDto, UploadDto } from '../../../../shared/api/weather.schema';
@@ -29,6 +31,11 @@ export function UploadResult({ initial }: { initial: UploadDto }) {
   const { number: n } = useFormat();
   const upload = useUpload(initial.id);
   const u = upload.data ?? initial;
+  const queryClient = useQueryClient();
+  // "Recent intakes" shows the new upload at once and again with its counts when the checks end.
+  useEffect(() => {
+    void queryClient.invalidateQueries({ queryKey: weatherKeys.uploads, exact: true });
+  }, [queryClient, u.status]);
   const [fixing, setFixing] = useState<IssueDto | null>(null);
   return (
     <section aria-labelledby="result-title" className="card space-y-4" aria-live="polite">
