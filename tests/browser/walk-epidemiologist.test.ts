@@ -97,6 +97,8 @@ describe("the epidemiologist's week", () => {
     // Last week is complete for Korrin Bay: closed.
     await cell('HV-02', lastWeek).focus();
     await panel.getByRole('button', { name: `Close ${lastWeek} for HV-02` }).click();
+    // Closing asks first.
+    await panel.getByRole('button', { name: 'Yes, close the week' }).click();
     await panel.getByText(`${lastWeek} is closed for Korrin Bay.`).waitFor();
     await w.shot('week-closed');
     const [ly, lw] = [Number(lastWeek.split(' ')[1]), Number(lastWeek.slice(1).split(' ')[0])];
