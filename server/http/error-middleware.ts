@@ -51,7 +51,8 @@ export function errorMiddleware(logger: Logger): ErrorRequestHandler {
     }
     if (res.headersSent) return;
     res.status(httpError.status).json({
-      error: { code: httpError.code, message: httpError.message, ...(httpError.fields ? { fields: httpError.fields } : {}) },
+      error: { code: httpError.code, message: httpError.message, ...(httpError.fields ? { fields: httpError.fields } : {}),
+        ...(httpError.params ? { params: httpError.params } : {}) },
     });
   };
 }

@@ -5,6 +5,8 @@ export class HttpError extends Error {
     readonly code: string,
     message: string,
     readonly fields?: { path: string; message: string }[],
+    /** Values the client words the code with (numbers, names), so no one parses the English message. */
+    readonly params?: Record<string, string | number | boolean>,
   ) {
     super(message);
   }

@@ -22,6 +22,8 @@ export const errorBody = z.object({
     code: z.string(),
     message: z.string(),
     fields: z.array(z.object({ path: z.string(), message: z.string() })).optional(),
+    /** The values a code is worded with (a distance, a district code), when it has any. */
+    params: z.record(z.string(), z.union([z.string(), z.number(), z.boolean()])).optional(),
   }),
 });
 export type ErrorBody = z.infer<typeof errorBody>;

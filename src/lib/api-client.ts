@@ -12,13 +12,16 @@ export class ApiError extends Error {
   readonly status: number;
   readonly code: string;
   readonly fields: FieldProblem[];
+  /** The values the server's code is worded with (see `params` in shared/api/common.schema.ts). */
+  readonly params: Record<string, string | number | boolean>;
 
-  constructor(status: number, code: string, message: string, fields: FieldProblem[] = []) {
+  constructor(status: number, code: string, message: string, fields: FieldProblem[] = [], params: Record<string, string | number | boolean> = {}) {
     super(message);
     this.name = 'ApiError';
     this.status = status;
     this.code = code;
     this.fields = fields;
+    this.params = params;
   }
 
   /** The server's problem for one field, if it named that field. */
@@ -59,8 +62,8 @@ export async function errorFromResponse(response: Response): Promise<ApiError> {
   }
   const parsed = errorBody.safeParse(raw);
   if (parsed.success) {
-    const { code, message, fields } = parsed.data.error;
-    return new ApiError(response.status, code, message || fallbackMessage(response.status), fields ?? []);
+    const { code, message, fields, params } = parsed.data.error;
+    return new ApiError(response.status, code, message || fallbackMessage(response.status), fields ?? [], params ?? {});
   }
   return new ApiError(response.status, `http_${response.status}`, fallbackMessage(response.status));
 }
