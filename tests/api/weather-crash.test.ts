@@ -98,13 +98,14 @@ describe('a server killed during a load', () => {
         );
         return rows.length > 0;
       });
-      const [{ status: statusAtKill, rows_processed: processed }] = await t.ds.query('SELECT status, rows_processed FROM weather_uploads WHERE id = $1', [upload.id]);
+      const [{ status: statusAtKill }] = await t.ds.query('SELECT status FROM weather_uploads WHERE id = $1', [upload.id]);
       child.kill('SIGKILL');
       await exited;
       await lock.rollbackTransaction();
       // Its "done" was written in the intake's transaction, not yet committed: others still see it processing.
       expect(statusAtKill).toBe('processing');
-      expect(processed).toBeGreaterThan(0); // the heartbeat saw the rows being read
+      // (Whether a heartbeat landed before the end depends on the machine's speed, so it is not asserted:
+      // the lock wait above already shows the intake read, checked and wrote every row.)
 
       // PostgreSQL rolls back the dead connection's transaction: the upload's rows are all absent.
       await waitFor('PostgreSQL to end the killed server\'s sessions', async () => {
