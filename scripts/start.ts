@@ -1,49 +1,142 @@
 /**
  * `npm start` after scripts/start.sh has made sure of node modules and PostgreSQL's binaries:
  * the dev cluster, migrations, the demo region, the mail catcher, the client build, the server.
- * Ctrl-C stops everything it started; the data stays in the cluster for the next start.
+ *
+ * Stopping: Ctrl-C (SIGINT) or SIGTERM, in any state (while setting up, while running, after the
+ * server died), stops everything this process started — the server, the mail catcher, the fake feed,
+ * and the cluster only if this process started it (one already running belongs to another command and
+ * stays up). A second Ctrl-C while stopping kills the server at once. When the server dies on its own,
+ * the start script stops the rest and exits with the server's code. What it started is written to
+ * `.local/run/start-<port>.json`, so the next start after a crash stops a server left behind.
+ *
+ * Options (for its tests and quick restarts): `--no-build` skips the client build, `--no-demo` skips
+ * loading the demo region.
  */
-import { spawn } from 'node:child_process';
+import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
 import path from 'node:path';
-import { stopCluster } from './lib/cluster';
+import { clusterRunning, stopCluster, type Cluster } from './lib/cluster';
 import { buildClient } from './lib/build-client';
 import { projectDir, startDevDatabase } from './lib/dev-database';
 import { startMailCatcher } from './lib/mail-catcher';
 import { migrate } from './lib/prepare-database';
 import { ports } from './lib/ports';
+import { isAlive, isOurServer, otherStartUsing, readRunState, removeRunState, stopProcess, writeRunState } from './lib/run-state';
 import { DEMO_PASSWORD, DEMO_USERS } from '../sample/demo-region';
 import { startFakeFeed } from '../sample/fake-feed';
+import { sweepUploadFolders } from '../server/weather/upload-dir';
 
+const args = new Set(process.argv.slice(2));
 const started = Date.now();
-const { cluster, url, secrets } = await startDevDatabase();
-const cleanups: (() => Promise<void> | void)[] = [() => stopCluster(cluster)];
-let child: ReturnType<typeof spawn> | null = null;
+const cleanups: { what: string; run: () => Promise<void> | void }[] = [];
+let child: ChildProcess | null = null;
+let childGone = false;
+let cluster: Cluster | null = null;
+let clusterOurs = false;
+let stopping: Promise<never> | null = null;
+let inheritCluster = false;
+/** The cluster start in progress: a stop during it waits for it, so a cluster this start just started is stopped too. */
+let devDatabase: ReturnType<typeof startDevDatabase> | null = null;
 
-async function stopAll(code: number) {
-  if (child && child.exitCode === null) {
-    child.kill('SIGTERM');
-    await new Promise((r) => child!.once('exit', r));
+/** Stop everything this process started, once; a second signal while stopping kills the server outright. */
+function stopAll(code: number): Promise<never> {
+  if (stopping) {
+    if (child && !childGone) child.kill('SIGKILL');
+    return stopping;
   }
-  for (const fn of cleanups.reverse()) await Promise.resolve(fn()).catch((e) => console.error(e));
-  process.exit(code);
+  stopping = (async () => {
+    if (!cluster && devDatabase) {
+      const dev = await devDatabase.catch(() => null);
+      if (dev) {
+        cluster = dev.cluster;
+        clusterOurs = dev.cluster.startedHere || inheritCluster;
+      }
+    }
+    if (child && !childGone) {
+      // `exit` may already have fired (childGone is set by it); otherwise wait for it, with a bound.
+      const gone = new Promise<void>((r) => child!.once('exit', () => r()));
+      child.kill('SIGTERM');
+      const late = setTimeout(() => child?.kill('SIGKILL'), 10_000);
+      await gone;
+      clearTimeout(late);
+    }
+    for (const c of cleanups.reverse()) {
+      try {
+        await c.run();
+      } catch (err) {
+        console.error(`› could not stop ${c.what}:`, (err as Error).message);
+      }
+    }
+    if (cluster && clusterOurs) {
+      const other = otherStartUsing(projectDir, cluster.dataDir);
+      if (other) console.log(`› leaving the PostgreSQL cluster running: the start with pid ${other.startPid} uses it`);
+      else if (clusterRunning(cluster)) stopCluster(cluster);
+    } else if (cluster) {
+      console.log('› leaving the PostgreSQL cluster running: it was running before this start');
+    }
+    removeRunState(projectDir, ports.app);
+    process.exit(code);
+  })();
+  return stopping;
 }
 process.on('SIGINT', () => void stopAll(0));
 process.on('SIGTERM', () => void stopAll(0));
+process.on('SIGHUP', () => void stopAll(0));
+
+const saveState = () =>
+  writeRunState(projectDir, {
+    startPid: process.pid,
+    serverPid: child && !childGone ? (child.pid ?? null) : null,
+    appPort: ports.app,
+    cluster: { dataDir: cluster?.dataDir ?? '', startedHere: clusterOurs },
+  });
+
+/** Before anything starts: another live start on this port is an error; a dead one's server is stopped. */
+async function recoverFromCrash(): Promise<boolean> {
+  const previous = readRunState(projectDir, ports.app);
+  if (!previous) return false;
+  if (previous.startPid !== process.pid && isAlive(previous.startPid)) {
+    console.error(`✗ Broodcast is already running on port ${ports.app} (start script pid ${previous.startPid}). Stop it with Ctrl-C first.`);
+    process.exit(1);
+  }
+  if (previous.serverPid && isAlive(previous.serverPid) && isOurServer(previous.serverPid, projectDir)) {
+    console.log(`› stopping the server (pid ${previous.serverPid}) left running by a start that ended without cleaning up`);
+    await stopProcess(previous.serverPid);
+  }
+  removeRunState(projectDir, ports.app);
+  return previous.cluster.startedHere; // that start had started the cluster: this one takes it over
+}
 
 try {
-  const { migrations, seeded } = await migrate(url, { seedDemo: { nodeEnv: 'development', bcryptCost: 12 } });
+  inheritCluster = await recoverFromCrash();
+  const swept = sweepUploadFolders();
+  if (swept.length) console.log(`› removed ${swept.length} upload folder(s) left by stopped servers`);
+
+  devDatabase = startDevDatabase();
+  const dev = await devDatabase;
+  cluster = dev.cluster;
+  clusterOurs = dev.cluster.startedHere || inheritCluster;
+  saveState();
+  if (stopping) await stopping;
+
+  const { migrations, seeded } = await migrate(dev.url, args.has('--no-demo') ? {} : { seedDemo: { nodeEnv: 'development', bcryptCost: 12 } });
   if (migrations.length) console.log(`› ran ${migrations.length} migration(s)`);
-  console.log(seeded ? '› loaded the invented Halvern Region (demo data)' : '› reusing the data already in the cluster');
+  if (!args.has('--no-demo')) console.log(seeded ? '› loaded the invented Halvern Region (demo data)' : '› reusing the data already in the cluster');
+  if (stopping) await stopping;
 
   const maildev = await startMailCatcher(ports.smtp, ports.mailWeb, path.join(projectDir, '.local', 'mail', 'dev'));
-  cleanups.push(() => maildev.stop());
+  cleanups.push({ what: 'the mail catcher', run: () => maildev.stop() });
   const feedKey = randomBytes(18).toString('base64url');
   const feed = await startFakeFeed({ port: ports.feed, key: feedKey });
-  cleanups.push(() => feed.stop());
+  cleanups.push({ what: 'the weather feed', run: () => feed.stop() });
+  if (stopping) await stopping;
 
-  console.log('› building the client');
-  await buildClient();
+  if (args.has('--no-build')) console.log('› client build skipped (--no-build)');
+  else {
+    console.log('› building the client');
+    await buildClient();
+  }
+  if (stopping) await stopping;
 
   const appUrl = `http://127.0.0.1:${ports.app}`;
   child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
@@ -53,8 +146,8 @@ try {
       ...process.env,
       NODE_ENV: 'development',
       PORT: String(ports.app),
-      DATABASE_URL: url,
-      JWT_SECRET: process.env.JWT_SECRET ?? secrets.jwtSecret,
+      DATABASE_URL: dev.url,
+      JWT_SECRET: process.env.JWT_SECRET ?? dev.secrets.jwtSecret,
       SMTP_HOST: '127.0.0.1',
       SMTP_PORT: String(ports.smtp),
       APP_URL: process.env.APP_URL ?? appUrl,
@@ -63,10 +156,13 @@ try {
       WEATHER_FEED_CRON: process.env.WEATHER_FEED_CRON ?? '*/30 * * * *',
     },
   });
-  child.once('exit', (code) => {
-    console.error(`server exited (${code})`);
-    void stopAll(code ?? 1);
+  child.once('exit', (code, signal) => {
+    childGone = true;
+    if (stopping) return; // stopping already: stopAll is waiting for this
+    console.error(`server exited (${signal ?? code})`);
+    void stopAll(signal ? 1 : (code ?? 1)); // 0 when it stopped normally (it got the terminal's Ctrl-C too)
   });
+  saveState();
   await waitForHealth(`${appUrl}/api/health`);
   console.log(`
 Broodcast is running (set-up took ${((Date.now() - started) / 1000).toFixed(1)} s)
@@ -77,12 +173,15 @@ ${DEMO_USERS.map((u) => `    ${u.role.padEnd(15)} ${u.email}`).join('\n')}
 Press Ctrl-C to stop; the data stays for the next start.
 `);
 } catch (err) {
-  console.error(err);
-  await stopAll(1);
+  if (!stopping) {
+    console.error(err instanceof Error ? err.message : err);
+    await stopAll(1);
+  }
 }
 
 async function waitForHealth(healthUrl: string) {
-  for (let i = 0; i < 150; i++) {
+  for (let i = 0; i < 300; i++) {
+    if (childGone || stopping) return; // the exit handler or a signal is stopping everything
     try {
       const res = await fetch(healthUrl);
       await res.text();
@@ -92,5 +191,5 @@ async function waitForHealth(healthUrl: string) {
     }
     await new Promise((r) => setTimeout(r, 200));
   }
-  throw new Error(`the server did not answer ${healthUrl}`);
+  throw new Error(`the server did not answer ${healthUrl} within 60 s`);
 }

@@ -63,7 +63,8 @@ try {
 } catch (err) {
   console.error(err);
 } finally {
-  stopCluster(cluster);
+  // Only a cluster this run started: one already running belongs to another command (a second npm test waits on the lock).
+  if (cluster.startedHere) stopCluster(cluster);
 }
 console.log(`› npm test finished in ${((Date.now() - t0) / 1000).toFixed(1)} s`);
 process.exit(exitCode);

@@ -51,7 +51,8 @@ export const configSchema = z.object({
   // Weather intake (docs/weather-intake.md).
   /** Largest weather file accepted, in bytes (a national year is about 70 MB). */
   WEATHER_UPLOAD_MAX_BYTES: z.coerce.number().int().min(1).default(200 * 1024 * 1024),
-  /** Where multer writes uploads under generated names while they are checked (default: the OS temp folder). */
+  /** Where multer writes uploads under generated names while they are checked (default: the checkout's
+   * `.local/uploads/<pid>`; folders of processes that are gone are swept when a server starts). */
   WEATHER_UPLOAD_DIR: z.string().optional(),
   /** Gaps of up to this many days are filled by linear interpolation; longer ones stay missing. */
   WEATHER_FILL_MAX_DAYS: z.coerce.number().int().min(0).max(30).default(3),

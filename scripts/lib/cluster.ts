@@ -22,6 +22,8 @@ export interface Cluster {
   port: number;
   /** Superuser connection over the Unix socket (trust auth), for set-up only. */
   adminConfig: pg.ClientConfig;
+  /** True when this process started the server; false when it was already running (another command's). */
+  startedHere: boolean;
 }
 
 function pgUser(): { uid: number; gid: number } {
@@ -110,12 +112,18 @@ export async function startCluster(opts: {
     // initdb created the file as postgres; root may append to it.
     appendFileSync(path.join(dataDir, 'postgresql.conf'), conf);
   }
-  if (isRunning(dataDir) && runningPort(dataDir) !== opts.port) {
-    // Left running on another port (an earlier run with other settings): restart it on the port asked for.
-    runPg('pg_ctl', ['-D', dataDir, '-m', 'fast', '-w', 'stop'], { quiet: true });
+  const running = isRunning(dataDir);
+  const port = running ? runningPort(dataDir) : null;
+  if (running && port !== opts.port) {
+    // Running on another port: another command of this checkout uses it. Never stop a cluster this
+    // process did not start; say how to go on instead.
+    throw new Error(
+      `The ${opts.name} PostgreSQL cluster (${dataDir}) is already running on port ${port}, not ${opts.port}. ` +
+        `Use that port (PGPORT=${port}), or stop the command that uses it first.`,
+    );
   }
-  // Already running on this port (another command of this checkout started it): share it.
-  if (!isRunning(dataDir)) {
+  // Already running on this port (another command of this checkout started it): share it, and leave it running.
+  if (!running) {
     // The throw-away test cluster runs without autovacuum: its workers belong to no role the app may
     // signal, so they would block `DROP DATABASE … WITH (FORCE)` between test files.
     const serverOptions = `-p ${opts.port}${opts.durable ? '' : ' -c autovacuum=off'}`;
@@ -128,10 +136,15 @@ export async function startCluster(opts: {
     dataDir,
     port: opts.port,
     adminConfig: { host: dataDir, port: opts.port, user: 'postgres', database: 'postgres' },
+    startedHere: !running,
   };
 }
 
-export function stopCluster(cluster: Cluster): void {
+/** Whether the cluster's server is running (pg_ctl status). */
+export const clusterRunning = (cluster: Pick<Cluster, 'dataDir'>) => isRunning(cluster.dataDir);
+
+/** Stop the cluster's server unconditionally (`scripts/db.ts stop`); `npm start` and `npm test` stop only one they started. */
+export function stopCluster(cluster: Pick<Cluster, 'dataDir'>): void {
   if (isRunning(cluster.dataDir)) runPg('pg_ctl', ['-D', cluster.dataDir, '-m', 'fast', '-w', 'stop'], { quiet: true });
 }
 

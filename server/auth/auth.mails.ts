@@ -4,6 +4,9 @@ import { DEFAULT_LANGUAGE, textsFor, type Language } from '../i18n';
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
+/** A name on one line: control characters (a CR/LF that would start a new line in the text body) become spaces. */
+export const oneLine = (s: string) => s.replace(/[\p{Cc}\u2028\u2029]+/gu, ' ').trim();
+
 function linkMail(language: Language, subject: string, greeting: string, lines: string[], link: string, linkLabel: string) {
   const signature = textsFor(language, 'common')('signature');
   const text = [greeting, '', ...lines, '', `${linkLabel}: ${link}`, '', signature].join('\n');
@@ -16,12 +19,12 @@ function linkMail(language: Language, subject: string, greeting: string, lines: 
 /** The password-reset mail, in the account's language. */
 export function passwordResetMail(name: string, link: string, ttlHours: number, language: Language = DEFAULT_LANGUAGE) {
   const t = textsFor(language, 'auth');
-  return linkMail(language, t('reset.subject'), t('greeting', { name }), [t('reset.asked'), t('reset.validity', { count: ttlHours })], link, t('reset.link'));
+  return linkMail(language, t('reset.subject'), t('greeting', { name: oneLine(name) }), [t('reset.asked'), t('reset.validity', { count: ttlHours })], link, t('reset.link'));
 }
 
 /** The invitation, in the language the admin chose for the invitee (English when none). */
 export function inviteMail(name: string, role: Role, link: string, ttlHours: number, language: Language = DEFAULT_LANGUAGE) {
   const t = textsFor(language, 'auth');
   const roleLabel = textsFor(language, 'common')(`roles.${role}`);
-  return linkMail(language, t('invite.subject'), t('greeting', { name }), [t('invite.given', { role: roleLabel }), t('invite.validity', { count: ttlHours })], link, t('invite.link'));
+  return linkMail(language, t('invite.subject'), t('greeting', { name: oneLine(name) }), [t('invite.given', { role: roleLabel }), t('invite.validity', { count: ttlHours })], link, t('invite.link'));
 }

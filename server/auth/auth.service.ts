@@ -8,7 +8,9 @@ import { UsersRepository } from '../users/users.repository';
 import { checkNewPassword, hashPassword, verifyAgainstDummy, verifyPassword } from './passwords';
 import type { Principal } from './principal';
 import { SessionsRepository } from './sessions.repository';
-import { consumeToken, issueToken } from './tokens.repository';
+import { consumeToken, newToken } from './tokens.repository';
+import { recordResetRequest } from './reset-requests.repository';
+import { DEFAULT_LANGUAGE } from '../i18n';
 import type { TokenPurpose } from './one-time-token.entity';
 import { passwordResetMail } from './auth.mails';
 import { sessionCookieName } from './session.middleware';
@@ -84,14 +86,23 @@ export class AuthService {
     }
   }
 
-  /** Always answers the same way, whether or not the account exists. */
+  /**
+   * Always answers the same way and does the same work, whether or not the account exists (no account
+   * enumeration by answer or by time): one lookup, one token made and hashed, one mail written, one
+   * statement in one transaction that puts the token and the mail in the outbox — or, for an address
+   * with no usable account, inserts nothing. The outbox worker sends the mail (and retries while the
+   * mail server is down); nothing is sent inside the request.
+   */
   async requestPasswordReset(email: string): Promise<void> {
     const user = await this.users.findByEmail(email);
-    if (!user || !user.active || !user.passwordHash) return;
-    const token = await issueToken(this.ctx.ds.manager, user.id, 'password-reset', RESET_TTL_HOURS);
-    this.ctx.logger.info({ event: 'auth.password-reset-requested', user: user.id }, 'password reset link issued');
+    const account = user && user.active && user.passwordHash ? user : null;
+    const { token, tokenHash } = newToken();
     const link = new URL(`/reset-password?token=${token}`, this.ctx.config.APP_URL).toString();
-    await this.sendQuietly(user.email, passwordResetMail(user.displayName, link, RESET_TTL_HOURS, user.language));
+    const mail = passwordResetMail(account?.displayName ?? email, link, RESET_TTL_HOURS, account?.language ?? DEFAULT_LANGUAGE);
+    const written = await this.ctx.ds.transaction((manager) =>
+      recordResetRequest(manager, this.ctx.config, { userId: account?.id ?? null, to: account?.email ?? email, tokenHash, ttlHours: RESET_TTL_HOURS, mail }),
+    );
+    if (written > 0) this.ctx.logger.info({ event: 'auth.password-reset-requested', user: account!.id }, 'password reset link queued');
   }
 
   confirmPasswordReset(token: string, password: string) {
@@ -126,14 +137,5 @@ export class AuthService {
       });
       this.ctx.logger.info({ event: purpose === 'invite' ? 'auth.invite-accepted' : 'auth.password-reset', user: row.userId }, 'password set; other sessions ended');
     });
-  }
-
-  /** Mail that must not turn a request into an error (the account's existence stays private). */
-  private async sendQuietly(to: string, mail: { subject: string; text: string; html: string }) {
-    try {
-      await this.ctx.mailer.send({ to, ...mail });
-    } catch (err) {
-      this.ctx.logger.warn({ err: (err as Error).message }, 'password reset mail could not be sent');
-    }
   }
 }

@@ -5,6 +5,12 @@ import { OneTimeTokenEntity, type TokenPurpose } from './one-time-token.entity';
 
 const sha256 = (token: string) => createHash('sha256').update(token).digest('hex');
 
+/** A new one-time token and the hash that is stored of it (the plain token goes only in the link). */
+export function newToken(): { token: string; tokenHash: string } {
+  const token = randomBytes(32).toString('base64url');
+  return { token, tokenHash: sha256(token) };
+}
+
 /** Issue a one-time token; the plain token goes in the e-mail link, only its hash is stored. */
 export async function issueToken(manager: EntityManager, userId: string, purpose: TokenPurpose, ttlHours: number) {
   const token = randomBytes(32).toString('base64url');

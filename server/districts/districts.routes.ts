@@ -1,5 +1,5 @@
 import { idParams } from '../../shared/api/common.schema';
-import { boundaryBody, districtCreateBody, districtUpdateBody, populationBody } from '../../shared/api/districts.schema';
+import { boundaryBody, boundaryQuery, districtCreateBody, districtUpdateBody, populationBody } from '../../shared/api/districts.schema';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
 import { DistrictsService } from './districts.service';
@@ -29,8 +29,8 @@ export function districtsRoutes(ctx: AppContext) {
       handler: ({ principal, params, body }) => service.setPopulation(principal, params.id, body),
     }),
     defineRoute({
-      method: 'put', path: '/districts/:id/boundary', access: ['admin'], params: idParams, body: boundaryBody,
-      handler: ({ principal, params, body }) => service.setBoundary(principal, params.id, body),
+      method: 'put', path: '/districts/:id/boundary', access: ['admin'], params: idParams, query: boundaryQuery, body: boundaryBody,
+      handler: ({ principal, params, query, body }) => service.setBoundary(principal, params.id, body, { confirm: query.confirm === 'true' }),
     }),
   ];
 }

@@ -1,10 +1,12 @@
-import { centroid } from '@turf/turf';
 import type { z } from 'zod';
 import type { boundaryBody, districtCreateBody, districtUpdateBody, PolygonGeometry, PopulationBody } from '../../shared/api/districts.schema';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import { assertDistrictVisible, type Principal, seesAllDistricts } from '../auth/principal';
 import { conflict, notFound } from '../http/errors';
+import { recomputeDistrictSeries } from '../weather/district-series.repository';
+import { refreshAssignments } from '../weather/weather-geo';
+import { checkPlausibility, checkValidity, type Reference } from './boundary-checks';
 import { presentDistrict } from './district.presenter';
 import { DistrictPopulationEntity } from './district-population.entity';
 import { DistrictEntity } from './district.entity';
@@ -90,15 +92,38 @@ export class DistrictsService {
     return presentDistrict((await this.districts.find(id))!);
   }
 
-  async setBoundary(actor: Principal, id: string, body: z.infer<typeof boundaryBody>) {
-    const geometry: PolygonGeometry = body.type === 'Feature' ? body.geometry : body;
-    const centre = centroid(geometry as never).geometry.coordinates;
+  /**
+   * Store a boundary after the checks of ./boundary-checks.ts (validity refused with a code, rings
+   * rewound to the right-hand rule, an implausible place refused unless `confirm`), then, in the same
+   * transaction, re-place the stations in districts and recompute the weather series of every district
+   * whose sources changed; the season run sees their new inputs (its fingerprint covers the series and
+   * the centroid), and their run state is cleared so the next run recomputes them.
+   */
+  async setBoundary(actor: Principal, id: string, body: z.infer<typeof boundaryBody>, opts: { confirm?: boolean } = {}) {
+    const submitted: PolygonGeometry = body.type === 'Feature' ? body.geometry : body;
+    const { geometry, centre, orientationFixed } = checkValidity(submitted);
     await this.ctx.ds.transaction(async (manager) => {
-      if (!(await manager.existsBy(DistrictEntity, { id }))) throw notFound('The district');
+      const current = await manager.findOne(DistrictEntity, { where: { id }, select: { id: true, code: true, centroidLat: true, centroidLon: true } });
+      if (!current) throw notFound('The district');
+      const others: { code: string; lat: number; lon: number }[] = await manager.query(
+        `SELECT code, centroid_lat AS lat, centroid_lon AS lon FROM districts
+          WHERE id <> $1 AND boundary IS NOT NULL AND centroid_lat IS NOT NULL AND centroid_lon IS NOT NULL`,
+        [id],
+      );
+      const refs: Reference[] = others.length
+        ? others
+        : current.centroidLat !== null && current.centroidLon !== null
+          ? [{ code: current.code, lat: current.centroidLat, lon: current.centroidLon }]
+          : [];
+      if (!opts.confirm) checkPlausibility(centre, refs);
       await manager.update(DistrictEntity, { id }, { boundary: geometry, centroidLon: centre[0], centroidLat: centre[1] });
+      const touched = await refreshAssignments(manager, this.ctx.config.WEATHER_IDW_STATIONS);
+      touched.add(id);
+      await recomputeDistrictSeries(manager, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
+      await manager.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...touched]]);
       await recordAudit(manager, {
         actorId: actor.userId, action: 'district.boundary-set', entity: 'district', entityId: id,
-        after: { type: geometry.type, centroid: centre },
+        after: { type: geometry.type, centroid: centre, orientationFixed, confirmed: opts.confirm === true, districtsRecomputed: touched.size },
       });
     });
     return presentDistrict((await this.districts.find(id))!);

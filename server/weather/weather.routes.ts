@@ -1,7 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { mkdirSync, unlink } from 'node:fs';
-import os from 'node:os';
-import path from 'node:path';
+import { unlink } from 'node:fs';
 import type { NextFunction, Request, Response } from 'express';
 import multer from 'multer';
 import { idParams } from '../../shared/api/common.schema';
@@ -12,6 +10,7 @@ import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
 import { checkCsvUpload, uploadLimit } from '../http/uploads';
 import { WeatherFeedService } from './weather-feed.service';
+import { uploadFolder } from './upload-dir';
 import { WeatherService } from './weather.service';
 
 const EDITORS = ['admin', 'officer'] as const;
@@ -20,9 +19,8 @@ const EDITORS = ['admin', 'officer'] as const;
 export function weatherRoutes(ctx: AppContext) {
   const service = new WeatherService(ctx);
   const feed = new WeatherFeedService(ctx);
-  // One folder per system user: a shared name under /tmp breaks when another user created it first.
-  const dir = ctx.config.WEATHER_UPLOAD_DIR ?? path.join(os.tmpdir(), `broodcast-uploads-${os.userInfo().username}`);
-  mkdirSync(dir, { recursive: true, mode: 0o700 });
+  // The checkout's own .local/uploads/<pid> (leftovers of dead processes swept), or WEATHER_UPLOAD_DIR.
+  const dir = uploadFolder(ctx.config.WEATHER_UPLOAD_DIR);
   // Disk storage under a generated name (never the client's file name), so a 200 MB file is never held in memory.
   const upload = multer({
     storage: multer.diskStorage({ destination: dir, filename: (_req, _file, cb) => cb(null, `${randomUUID()}.upload`) }),

@@ -34,6 +34,11 @@ export const boundaryBody = z.union(
   { message: 'must be a GeoJSON Polygon, MultiPolygon or a Feature holding one' },
 );
 
+/** `PUT /api/districts/:id/boundary?confirm=true`: save a boundary the plausibility check questioned. */
+export const boundaryQuery = z.strictObject({
+  confirm: z.enum(['true', 'false'], { message: 'must be true or false' }).optional(),
+});
+
 const code = z
   .string()
   .trim()

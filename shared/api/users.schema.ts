@@ -7,7 +7,14 @@ export { RAIN_UNITS, TEMPERATURE_UNITS } from '../units';
 export type { Language, PreferencesBody, PreferencesDto } from './auth.schema';
 import { email, uniqueIds, uuid } from './common.schema';
 
-const displayName = z.string().trim().min(1, { message: 'is required' }).max(120, { message: 'is too long' });
+/** A person's name as shown and mailed: one line of text. Control characters (CR, LF, tab, NUL…) are
+ * refused, so a name cannot add a line such as a fake "Bcc:" to a mail (issue 14, item 10). */
+const displayName = z
+  .string()
+  .trim()
+  .min(1, { message: 'is required' })
+  .max(120, { message: 'is too long' })
+  .refine((s) => !/[\p{Cc}\u2028\u2029]/u.test(s), { message: 'must not contain control characters such as line breaks' });
 
 export const userInviteBody = z.strictObject({
   email,

@@ -43,6 +43,7 @@ const EXACT: Record<string, string> = {
   'must be a whole year': 'wholeYear',
   'cannot be negative': 'negative',
   'nothing to change': 'nothingToChange',
+  'must not contain control characters such as line breaks': 'controlChars',
   'is not a known field': 'unknownField',
   'is not a valid link token': 'linkToken',
   'has expired or was already used': 'linkUsed',

@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { ALL_TABLES, countRows, makeDistrict, makeUser, signedInAgent, TEST_PASSWORD } from '../support/factories';
 import { linkToken, waitForMail } from '../support/mail';
+import { OutboxWorker } from '../../server/outbox/outbox.worker';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -91,6 +92,7 @@ describe('password reset and invitations', () => {
     const oldAgent = await signedInAgent(t.app, user.email);
     const ask = await request(t.app).post('/api/auth/password-reset').send({ email: user.email });
     expect(ask.status).toBe(202);
+    await new OutboxWorker(t.ctx).drain(); // the reset mail goes through the outbox
     const mail = await waitForMail(user.email);
     expect(mail.subject).toBe('Broodcast: set a new password');
     const token = linkToken(mail)!;
@@ -105,15 +107,16 @@ describe('password reset and invitations', () => {
   });
 
   it('when a reset is asked for an unknown e-mail, then the answer is the same 202 and nothing is written', async () => {
-    const before = await countRows(t.ds, ...ALL_TABLES);
+    const before = await countRows(t.ds, ...ALL_TABLES, 'outbox_messages');
     const res = await request(t.app).post('/api/auth/password-reset').send({ email: 'nobody-here@test.example' });
     expect(res.status).toBe(202);
-    expect(await countRows(t.ds, ...ALL_TABLES)).toEqual(before);
+    expect(await countRows(t.ds, ...ALL_TABLES, 'outbox_messages')).toEqual(before);
   });
 
   it('when the new password is too short or common, then the answer is 400 naming password and the token stays usable', async () => {
     const user = await makeUser(t.ds, { role: 'officer', email: `weak-${Date.now()}@test.example` });
     await request(t.app).post('/api/auth/password-reset').send({ email: user.email });
+    await new OutboxWorker(t.ctx).drain();
     const token = linkToken(await waitForMail(user.email))!;
     const short = await request(t.app).post('/api/auth/password-reset/confirm').send({ token, password: 'short' });
     expect(short.status).toBe(400);

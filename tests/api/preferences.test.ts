@@ -4,6 +4,7 @@ import { createTestApp, type TestApp } from '../support/test-app';
 import { countRows, makeDistrict, makeUser, signedInAgent, square } from '../support/factories';
 import { linkToken, waitForMail } from '../support/mail';
 import { csv, makeStation } from '../support/weather-factories';
+import { OutboxWorker } from '../../server/outbox/outbox.worker';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -77,6 +78,7 @@ describe('mail in the recipient\'s language', () => {
     const user = await makeUser(t.ds, { role: 'officer' });
     await t.ds.query(`UPDATE users SET language = 'pt' WHERE id = $1`, [user.id]);
     expect((await request(t.app).post('/api/auth/password-reset').send({ email: user.email })).status).toBe(202);
+    await new OutboxWorker(t.ctx).drain(); // the reset mail goes through the outbox
     const mail = await waitForMail(user.email);
     expect(mail.subject).toBe('Broodcast: definir uma nova palavra-passe');
     expect(mail.text).toContain('durante 1 hora.');

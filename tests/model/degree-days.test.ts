@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { degreeDays, DEGREE_DAY_METHODS, type DegreeDayMethod } from '../../shared/model';
+import { expectAtMost, expectClose } from '../support/close';
 
 const f2c = (f: number) => ((f - 32) * 5) / 9;
 /** Degree-days in °C units → °F units. */
@@ -102,7 +103,7 @@ describe('degree-days: properties (fast-check)', () => {
   it('when the cutoff is horizontal, then sine, triangle and average-clamped never exceed upper − lower (plain average has no upper cap by definition)', () => {
     fc.assert(
       fc.property(day, fc.constantFrom(...curveMethods), (d, method) => {
-        expect(degreeDays({ method, cutoff: 'horizontal', ...d }).degreeDays).toBeLessThanOrEqual(d.upper - d.lower + 1e-9);
+        expectAtMost(degreeDays({ method, cutoff: 'horizontal', ...d }).degreeDays, d.upper - d.lower);
       }),
     );
   });
@@ -110,8 +111,8 @@ describe('degree-days: properties (fast-check)', () => {
     fc.assert(
       fc.property(day, fc.constantFrom('single-sine', 'double-sine', 'single-triangle', 'double-triangle' as const), (d, method) => {
         const h = degreeDays({ method, cutoff: 'horizontal', ...d }).degreeDays;
-        expect(degreeDays({ method, cutoff: 'vertical', ...d }).degreeDays).toBeLessThanOrEqual(h + 1e-9);
-        expect(degreeDays({ method, cutoff: 'intermediate', ...d }).degreeDays).toBeLessThanOrEqual(h + 1e-9);
+        expectAtMost(degreeDays({ method, cutoff: 'vertical', ...d }).degreeDays, h);
+        expectAtMost(degreeDays({ method, cutoff: 'intermediate', ...d }).degreeDays, h);
       }),
     );
   });
@@ -119,8 +120,8 @@ describe('degree-days: properties (fast-check)', () => {
     fc.assert(
       fc.property(day, fc.constantFrom('horizontal', 'vertical', 'intermediate' as const), (d, cutoff) => {
         const x = { ...d, cutoff, tminNext: d.tmin };
-        expect(degreeDays({ ...x, method: 'double-sine' }).degreeDays).toBeCloseTo(degreeDays({ ...x, method: 'single-sine' }).degreeDays, 9);
-        expect(degreeDays({ ...x, method: 'double-triangle' }).degreeDays).toBeCloseTo(degreeDays({ ...x, method: 'single-triangle' }).degreeDays, 9);
+        expectClose(degreeDays({ ...x, method: 'double-sine' }).degreeDays, degreeDays({ ...x, method: 'single-sine' }).degreeDays);
+        expectClose(degreeDays({ ...x, method: 'double-triangle' }).degreeDays, degreeDays({ ...x, method: 'single-triangle' }).degreeDays);
       }),
     );
   });

@@ -70,7 +70,7 @@ describe.runIf(existsSync(CLI))('model CLI, channel --batch', () => {
       JSON.stringify({ method: 'quartile', history: [10, 20, 15, 30, 25, 12] }),
       JSON.stringify({ method: 'quartile', history: [1, -2] }),
     ].join('\n');
-    const out = spawnSync('node_modules/.bin/tsx', [CLI, 'channel', '--batch'], { input, encoding: 'utf8' });
+    const out = spawnSync(process.execPath, ['--import', 'tsx', CLI, 'channel', '--batch'], { input, encoding: 'utf8' });
     expect(out.status).toBe(0); // batch mode reports a bad line in its place and carries on
     const lines = out.stdout.trim().split('\n');
     expect(lines).toHaveLength(2);

@@ -10,8 +10,11 @@ const MAX_BYTES = 20 * 1024 * 1024;
 
 type Outcome =
   | { kind: 'success'; text: string }
-  | { kind: 'error'; text: string; problems?: FieldProblem[] }
+  | { kind: 'error'; text: string; problems?: FieldProblem[]; confirm?: { geojson: unknown; fileName: string } }
   | null;
+
+/** The boundary checks' codes (server/districts/boundary-checks.ts), worded here with their parameters. */
+const BOUNDARY_CODES = ['boundary_self_intersecting', 'boundary_invalid', 'boundary_coordinates_swapped', 'boundary_far_from_region'];
 
 /** Reads a .geojson/.json file in the browser and sends its JSON as the district's boundary. */
 export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
@@ -42,19 +45,26 @@ export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
       setFileError(t('boundary.notJson', { file: file.name }));
       return;
     }
+    await send(geojson, file.name, false);
+  };
+
+  const send = async (geojson: unknown, fileName: string, confirm: boolean) => {
+    setOutcome(null);
     try {
-      await upload.mutateAsync({ id: district.id, geojson });
-      setOutcome({ kind: 'success', text: t('boundary.saved', { file: file.name }) });
+      await upload.mutateAsync({ id: district.id, geojson, confirm });
+      setOutcome({ kind: 'success', text: t('boundary.saved', { file: fileName }) });
       if (fileRef.current) fileRef.current.value = '';
     } catch (error) {
+      const known = isApiError(error) && BOUNDARY_CODES.includes(error.code);
       setOutcome({
         kind: 'error',
         text: isApiError(error)
           ? error.status === 413
-            ? t('boundary.tooLargeForServer', { file: file.name })
-            : t('boundary.refused', { file: file.name, reason: errorText(error) })
+            ? t('boundary.tooLargeForServer', { file: fileName })
+            : t('boundary.refused', { file: fileName, reason: known ? t(`boundary.problems.${error.code}`, error.params) : errorText(error) })
           : t('boundary.failed'),
-        problems: isApiError(error) ? error.fields : undefined,
+        problems: isApiError(error) && !known ? error.fields : undefined,
+        confirm: isApiError(error) && error.params.confirmable === true ? { geojson, fileName } : undefined,
       });
     }
   };
@@ -80,6 +90,19 @@ export function BoundaryUploadForm({ district }: { district: DistrictDto }) {
                 </li>
               ))}
             </ul>
+          ) : null}
+          {outcome.kind === 'error' && outcome.confirm ? (
+            <div className="mt-3 space-y-2 font-normal">
+              <p className="text-sm">{t('boundary.confirmHint')}</p>
+              <button
+                type="button"
+                className="btn btn-secondary btn-small"
+                disabled={upload.isPending}
+                onClick={() => void send(outcome.confirm!.geojson, outcome.confirm!.fileName, true)}
+              >
+                {t('boundary.confirm')}
+              </button>
+            </div>
           ) : null}
         </FormMessage>
       ) : null}
