@@ -154,9 +154,10 @@ describe('CSV headers and empty files', () => {
     const res = await officer
       .post('/api/weather/uploads?wait=true')
       .attach('file', Buffer.from(csv('station,date,tmin,tmax,tmax', [[station.code, '2026-01-05', 10, 20, 30]])), 'w.csv');
-    expect(res.status).toBeLessThan(500);
-    const upload = res.body.status ? res.body : (await officer.get(`/api/weather/uploads`)).body.uploads[0];
-    expect(upload.status).toBe('failed');
+    expect(res.status).toBe(422);
+    expect(res.body.error.code).toBe('bad_header');
+    const upload = (await officer.get(`/api/weather/uploads`)).body.uploads[0];
+    expect(upload.status).toBe('refused');
     expect(upload.message).toMatch(/tmax appears twice/);
     const stored = await t.ds.query(`SELECT count(*)::int AS n FROM weather_observations WHERE station_id = $1`, [station.id]);
     expect(stored[0].n).toBe(0);

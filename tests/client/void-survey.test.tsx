@@ -40,7 +40,7 @@ describe('voiding a survey', () => {
         json(200, {
           district: workerMe.districts[0],
           surveys: [survey(voided ? { at: '2026-11-26T09:00:00.000Z', by: workerMe.id, reason: 'Wrong ward' } : null)],
-          weeks: voided ? [] : [{ year: 2026, week: 47, surveys: 1, houses: 100, indices: { house: 40, container: 30, breteau: 90, pupa: null } }],
+          weeks: voided ? [] : [{ year: 2026, week: 47, surveys: 1, pupaSurveys: 0, houses: 100, indices: { house: 40, container: 30, breteau: 90, pupa: null } }],
         }),
       [`POST /api/surveys/${surveyId}/void`]: () => {
         voided = true;
