@@ -64,6 +64,13 @@ export const routes: RouteObject[] = [
             ),
           },
           {
+            path: 'admin/profiles',
+            lazy: async () => {
+              const { ProfilesPage } = await import('../features/profiles/profiles.page');
+              return { element: <RequireRole roles={rolesFor('profiles')}><ProfilesPage /></RequireRole> };
+            },
+          },
+          {
             path: 'cases',
             lazy: async () => {
               const { CaseLedgerPage } = await import('../features/cases/case-ledger.page');

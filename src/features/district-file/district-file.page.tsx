@@ -14,6 +14,7 @@ import { DegreeDaysChart, EipChart, RvcChart } from './charts/vector-clock.chart
 import { WeatherChart } from './charts/weather.chart';
 import { CurrentTier } from './components/current-tier';
 import { KeyNumbers } from './components/key-numbers';
+import { ProfileAssignment } from '../profiles/components/profile-assignment';
 import { weatherSourceText } from './district-file-format';
 import { useLadderWords } from '../ladder/ladder-format';
 import './district-file.css';
@@ -177,6 +178,7 @@ function DistrictFileView({
             </ul>
             <DistrictLinks districtId={district.id} />
           </section>
+          <ProfileAssignment profiles={data.profiles ?? []} />
         </div>
         <CautionsPanel className="self-start" />
       </div>
