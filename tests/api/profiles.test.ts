@@ -91,7 +91,7 @@ describe('assigning profiles to districts', () => {
     expect(shown).toMatchObject({ biofix: '02-29', assignedBy: expect.any(String), assignedAt: expect.any(String) });
   });
 
-  it('when a district with weather has no profile, then the season run says so; after an assignment, the next run computes it with the model', async () => {
+  it('when a district with weather has no profile, then the season run says so; after an assignment with a 02-29 biofix, the next run of a common year computes it with the model', async () => {
     const d = await makeSeasonDistrict(t.ds, { warmth: 2 });
     await t.ds.query(`DELETE FROM district_profiles WHERE district_id = $1`, [d.id]);
     const first = await runSeasonNow(t.ctx, { asOf: AS_OF });
@@ -99,11 +99,12 @@ describe('assigning profiles to districts', () => {
     const none = await t.ds.query(`SELECT count(*)::int AS n FROM vector_clock_seasons WHERE district_id = $1`, [d.id]);
     expect(none[0].n).toBe(0);
 
-    const res = await admin.put('/api/districts/profiles').send({ districtIds: [d.id], profiles: [{ profileId: 'aedes-aegypti-dengue', biofix: '03-01' }], reason: 'assign for the season' });
+    const res = await admin.put('/api/districts/profiles').send({ districtIds: [d.id], profiles: [{ profileId: 'aedes-aegypti-dengue', biofix: '02-29' }], reason: 'assign for the season' });
     expect(res.status).toBe(200);
     // An incremental run: only districts whose input fingerprint changed are recomputed.
     const second = await runSeasonNow(t.ctx, { asOf: AS_OF, full: false });
-    expect(second!.warnings.some((w) => w.code === 'no_profiles' && w.districtId === d.id)).toBe(false);
+    expect(second!.error).toBeNull();
+    expect(second!.warnings.filter((w) => w.districtId === d.id)).toEqual([]);
     const [clock] = await t.ds.query(`SELECT profile_id FROM vector_clock_seasons WHERE district_id = $1 AND season_year = 2026`, [d.id]);
     expect(clock.profile_id).toBe('aedes-aegypti-dengue');
     const [tier] = await t.ds.query(`SELECT profile_id FROM district_tiers WHERE district_id = $1 ORDER BY epi_year DESC, epi_week DESC LIMIT 1`, [d.id]);
