@@ -6,6 +6,7 @@ import { errorText } from '../../lib/error-text';
 import { NotAllowedPage } from '../../app/not-allowed.page';
 import type { ProfileParameterDto } from '../../../shared/api/profiles.schema';
 import { useProfiles } from './api/profiles.api';
+import { VariantForm } from './components/variant.form';
 
 function sourceText(p: ProfileParameterDto): string {
   if (!p.source) return '';
@@ -32,6 +33,7 @@ export function ProfilesPage() {
         <FormMessage kind="error">{errorText(profiles.error)}</FormMessage>
       ) : (
         <div className="space-y-8">
+          <VariantForm profiles={profiles.data} />
           {profiles.data.map((p) => (
             <article key={p.id} className="card" aria-labelledby={`profile-${p.id}`}>
               <h2 id={`profile-${p.id}`} className="text-lg font-bold">
