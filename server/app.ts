@@ -25,6 +25,7 @@ import { boardRoutes } from './board/board.routes';
 import { seasonRoutes } from './season/season.routes';
 import { flagsRoutes } from './flags/flags.routes';
 import { bulletinsRoutes } from './bulletins/bulletins.routes';
+import { profilesRoutes } from './profiles/profiles.routes';
 
 export interface BroodcastApp extends Express {
   locals: Express['locals'] & { routes: RouteDef[] };
@@ -72,6 +73,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...boardRoutes(ctx),
     ...flagsRoutes(ctx),
     ...bulletinsRoutes(ctx),
+    ...profilesRoutes(ctx),
   ];
   app.locals.routes = routes;
 

@@ -6,6 +6,8 @@ import { buildSignals, CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
 import type { AppContext } from '../app-context';
 import { assertDistrictVisible, type Principal } from '../auth/principal';
 import { notFound } from '../http/errors';
+import { presentAssignment } from '../profiles/profiles.presenter';
+import { ProfilesRepository } from '../profiles/profiles.repository';
 
 
 /** Everything the District file shows, in one answer, from stored data (no recomputation). */
@@ -31,7 +33,7 @@ export class DistrictFileService {
     const from = `${seasonYear}-01-01`;
     const to = `${seasonYear}-12-31`;
 
-    const [weatherRows, sourceRows, clockRows, caseRows, surveyRows, tierRows, excludedRows] = await Promise.all([
+    const [weatherRows, sourceRows, clockRows, caseRows, surveyRows, tierRows, excludedRows, assignmentRows] = await Promise.all([
       q(`SELECT to_char(date, 'YYYY-MM-DD') AS date, tmin, tmax, rh, rain, filled FROM district_weather_days
           WHERE district_id = $1 AND date BETWEEN $2 AND $3 ORDER BY date`, [districtId, from, to]),
       q(`SELECT s.method, s.distance_km, s.weight, st.code FROM district_weather_sources s JOIN weather_stations st ON st.id = s.station_id
@@ -54,6 +56,7 @@ export class DistrictFileService {
       q(`SELECT epi_year, epi_week, tier, tier_low, tier_high, score, confidence, drivers, notes, leading_driver, changed_driver
            FROM district_tiers WHERE district_id = $1 AND epi_year = $2 ORDER BY epi_week`, [districtId, seasonYear]),
       q(`SELECT disease_id, excluded_years FROM case_channel_settings WHERE district_id = $1`, [districtId]),
+      new ProfilesRepository(this.ctx.ds).districtAssignment(districtId),
     ]);
 
     const source = sourceRows.length === 0
@@ -115,6 +118,7 @@ export class DistrictFileService {
       district,
       seasonYear,
       seasons,
+      profiles: assignmentRows.map(presentAssignment),
       weather: {
         dates: weatherRows.map((r: { date: string }) => r.date),
         tmin: weatherRows.map((r: { tmin: number | null }) => r.tmin),

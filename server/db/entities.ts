@@ -9,6 +9,7 @@ import { casesEntities } from '../cases/cases.entities';
 import { weatherEntities } from '../weather/weather.entities';
 import { seasonEntities } from '../season/season.entities';
 import { flagsEntities } from '../flags/flags.entities';
+import { profilesEntities } from '../profiles/profiles.entities';
 
 /** Every entity, listed by hand so the DataSource works the same under tsx, vitest and the CLI. */
 export const entities = [
@@ -23,4 +24,5 @@ export const entities = [
   ...casesEntities,
   ...seasonEntities,
   ...flagsEntities,
+  ...profilesEntities,
 ];

@@ -14,6 +14,13 @@ export class DistrictProfileEntity {
   @Column({ type: 'text', nullable: true })
   biofix: string | null;
 
+  /** Who assigned this profile (PUT /api/districts/profiles); null for the demo seed and older rows. */
+  @Column({ name: 'assigned_by', type: 'uuid', nullable: true })
+  assignedBy: string | null;
+
+  @Column({ name: 'assigned_at', type: 'timestamptz', nullable: true })
+  assignedAt: Date | null;
+
   @ManyToOne(() => DistrictEntity, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'district_id' })
   district?: DistrictEntity;

@@ -45,7 +45,9 @@ export interface DistrictSeasonResult {
 
 const mean = (xs: number[]) => (xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : null);
 const daysBetween = (a: string, b: string) => parseIsoDate(b) - parseIsoDate(a);
-const biofixFor = (monthDay: string | null, year: number) => (monthDay ? `${year}-${monthDay}` : undefined);
+// An assigned 02-29 biofix falls back to 28 February in common years, as a profile's default does.
+const biofixFor = (monthDay: string | null, year: number) =>
+  monthDay ? `${year}-${monthDay === '02-29' && !isLeapYear(year) ? '02-28' : monthDay}` : undefined;
 const orNull = (x: number) => (Number.isNaN(x) ? null : x);
 
 // One output buffer per process, reused for every district and profile (the season run is sequential).

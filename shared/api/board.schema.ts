@@ -58,6 +58,15 @@ export const districtFileResponse = z.object({
   district: z.object({ id: uuid, code: z.string(), name: z.string(), isDemo: z.boolean(), lat: z.number().nullable(), lon: z.number().nullable() }),
   seasonYear: z.number().int(),
   seasons: z.array(z.number().int()),
+  /** The district's profile assignment: which profiles the season run computes, the biofix, who assigned them and when. */
+  profiles: z.array(z.object({
+    profileId: z.string(),
+    profileName: z.string(),
+    biofix: z.string().nullable(),
+    defaultBiofix: z.string().nullable(),
+    assignedBy: z.string().nullable(),
+    assignedAt: z.string().nullable(),
+  })),
   weather: z.object({
     dates: z.array(z.string()),
     tmin: nullableNumbers,

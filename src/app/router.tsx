@@ -162,6 +162,12 @@ export const routes: RouteObject[] = [
             })),
           },
           {
+            path: 'admin/profiles',
+            lazy: screen('features/profiles/profiles.page', () => import('../features/profiles/profiles.page'), ({ ProfilesPage }) => ({
+              element: guarded(rolesFor('profiles'), <ProfilesPage />),
+            })),
+          },
+          {
             path: 'cases',
             lazy: screen('features/cases/case-ledger.page', () => import('../features/cases/case-ledger.page'), ({ CaseLedgerPage }) => ({
               element: guarded(rolesFor('case-ledger'), <CaseLedgerPage />),

@@ -8,6 +8,7 @@ import { foundationAccess, signOutAccess } from './access/foundation.access';
 import { weatherAccess } from './access/weather.access';
 import { seasonAccess } from './access/season.access';
 import { flagsAccess } from './access/flags.access';
+import { profilesAccess } from './access/profiles.access';
 
 /**
  * Every API route × every role (and no session). The expected access is written here, from
@@ -19,7 +20,7 @@ const EVERYBODY: Who[] = ['anonymous', ...ROLES];
 
 // One table per feature (tests/api/access/*.access.ts), merged; the sign-out row goes last because it
 // ends the sessions the other rows use.
-const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...signOutAccess };
+const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...profilesAccess, ...signOutAccess };
 
 let t: TestApp;
 const agents = new Map<Who, ReturnType<typeof request.agent>>();

@@ -15,7 +15,8 @@ import { DegreeDaysChart, EipChart, RvcChart } from './charts/vector-clock.chart
 import { WeatherChart } from './charts/weather.chart';
 import { CurrentTier } from './components/current-tier';
 import { KeyNumbers } from './components/key-numbers';
-import { weatherSourceText , profileLabel } from './district-file-format';
+import { ProfileAssignment } from '../profiles/components/profile-assignment';
+import { profileLabel, weatherSourceText } from './district-file-format';
 import { useLadderWords } from '../ladder/ladder-format';
 import './district-file.css';
 import { errorText } from '../../lib/error-text';
@@ -186,6 +187,7 @@ function DistrictFileView({
             </ul>
             <DistrictLinks districtId={district.id} />
           </section>
+          <ProfileAssignment profiles={data.profiles ?? []} />
         </div>
         <CautionsPanel className="self-start" />
       </div>

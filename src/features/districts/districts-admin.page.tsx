@@ -8,6 +8,7 @@ import { useDistricts } from './api/districts.api';
 import { CreateDistrictForm } from './components/create-district.form';
 import { DemoDataLabel } from './components/demo-data-label';
 import { DistrictsTable } from './components/districts.table';
+import { AssignProfilesForm } from '../profiles/components/assign-profiles.form';
 
 export function DistrictsAdminPage() {
   const { t } = useTranslation('districts');
@@ -27,6 +28,11 @@ export function DistrictsAdminPage() {
             <DistrictsTable districts={districts.data} />
           )}
         </div>
+        {districts.data ? (
+          <div className="card">
+            <AssignProfilesForm districts={districts.data} />
+          </div>
+        ) : null}
         <div className="card">
           <CreateDistrictForm />
         </div>

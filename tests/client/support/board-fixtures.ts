@@ -55,6 +55,7 @@ export const demoDistrictFile = (seasonYear = 2025) => ({
   district: { id: id(1), code: 'HV-01', name: 'Saltmarsh Coast', isDemo: true, lat: 24.5, lon: 51.2 },
   seasonYear,
   seasons: [2025, 2024, 2023],
+  profiles: [{ profileId: 'aedes-aegypti-dengue', profileName: 'Aedes aegypti – dengue', biofix: '03-15', defaultBiofix: '01-01', assignedBy: 'Ada Admin', assignedAt: '2025-03-01T09:00:00.000Z' }],
   weather: {
     dates: days,
     tmin: series((i) => 22 + i / 10),

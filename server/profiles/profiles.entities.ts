@@ -1,0 +1,3 @@
+import { ProfileVariantEntity } from './profile-variant.entity';
+
+export const profilesEntities: Function[] = [ProfileVariantEntity];

@@ -1,0 +1,23 @@
+import { z } from 'zod';
+import { assignProfilesBody, profileVariantBody } from '../../shared/api/profiles.schema';
+import type { AppContext } from '../app-context';
+import { defineRoute } from '../http/route';
+import { ProfilesService } from './profiles.service';
+
+const profileIdParams = z.strictObject({ id: z.string().min(1).max(100) });
+
+export function profilesRoutes(ctx: AppContext) {
+  const service = new ProfilesService(ctx);
+  return [
+    defineRoute({ method: 'get', path: '/profiles', access: 'signed-in', handler: () => service.list() }),
+    defineRoute({
+      method: 'put', path: '/districts/profiles', access: ['admin'], body: assignProfilesBody,
+      handler: ({ principal, body }) => service.assign(principal, body),
+    }),
+    // No PUT/PATCH on /profiles/:id: a published profile is never edited in place, only copied.
+    defineRoute({
+      method: 'post', path: '/profiles/:id/variants', access: ['admin'], params: profileIdParams, body: profileVariantBody, status: 201,
+      handler: ({ principal, params, body }) => service.createVariant(principal, params.id, body),
+    }),
+  ];
+}
