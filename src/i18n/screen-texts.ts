@@ -22,7 +22,7 @@ export const SCREEN_TEXTS = {
   'features/cases/district-cases.page': ['cases', 'cautions', 'districts', 'surveys'],
   'features/surveys/surveys.page': ['cautions', 'surveys'],
   'features/district-file/print/district-print.page': ['cautions', 'district-file', 'districts', 'help', 'ladder'],
-  'features/district-file/district-file.page': ['cautions', 'district-file', 'districts', 'help', 'ladder', 'profiles'],
+  'features/district-file/district-file.page': ['cautions', 'district-file', 'districts', 'flags', 'help', 'ladder', 'profiles'],
   'features/season-runs/season-runs.page': ['season-runs'],
   'features/weather/intake.page': ['weather'],
   'features/weather/stations.page': ['weather'],

@@ -132,7 +132,7 @@ describe('the District file', () => {
     view = await renderRoutes(path);
     const c = view.container;
     await waitFor(() => expect(c.querySelector('h1')?.textContent).toBe('Saltmarsh Coast'), 5000);
-    const figure = c.querySelector('figure[data-chart="Vector clock — Aedes aegypti with dengue"]')!;
+    const figure = c.querySelector('figure[data-chart="Vector clock — Aedes aegypti with dengue virus"]')!;
     expect(figure.querySelector('[role="img"]')?.getAttribute('aria-label')).toContain('the extrinsic incubation was not completed');
     await click([...figure.querySelectorAll('button')].find((b) => b.textContent === 'Show as table')!);
     const rows = [...figure.querySelectorAll('tbody tr')].map((r) => [...r.children].map((x) => x.textContent));

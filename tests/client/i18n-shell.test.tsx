@@ -44,7 +44,7 @@ const CASES: {
     email: 'Adresse e-mail',
     password: 'Mot de passe',
     submit: 'Se connecter',
-    invalidEmail: `Adresse e-mail${NBSP}: ce n’est pas une adresse e-mail valide.`,
+    invalidEmail: `Adresse e-mail${NNBSP}: ce n’est pas une adresse e-mail valide.`,
     nav: ['Classement', 'Utilisateurs', 'Districts', 'Calculs de saison'],
     mainNav: 'Menu principal',
     role: 'Administrateur',

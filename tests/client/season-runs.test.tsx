@@ -62,8 +62,8 @@ describe('season runs', () => {
     expect(c.textContent).not.toMatch(/district_failed|invalid_value|missing_weather|\{"/);
     try {
       await i18n.changeLanguage('fr');
-      await waitFor(() => expect(c.textContent).toContain('Pellam Highlands n’a pas été calculé : une valeur enregistrée n’est pas valide (pupae).'));
-      expect(c.textContent).toContain('1 en échec : Pellam Highlands');
+      await waitFor(() => expect(c.textContent).toContain('Pellam Highlands n’a pas été calculé\u202f: une valeur enregistrée n’est pas valide (pupae).'));
+      expect(c.textContent).toContain('1 en échec\u202f: Pellam Highlands');
     } finally {
       await i18n.changeLanguage('en');
     }
