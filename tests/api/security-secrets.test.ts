@@ -79,7 +79,7 @@ describe('secrets', () => {
     expect(() => parseConfig({ DATABASE_URL: 'postgres://u@127.0.0.1:1/db' })).toThrow(/JWT_SECRET/);
     expect(() => parseConfig({ DATABASE_URL: 'postgres://u@127.0.0.1:1/db', JWT_SECRET: 'short' })).toThrow(/JWT_SECRET/);
     // npm start passes the generated secret when JWT_SECRET is not set, and .local/ stays out of git.
-    expect(readFileSync(path.join(root, 'scripts/start.ts'), 'utf8')).toMatch(/JWT_SECRET: process\.env\.JWT_SECRET \?\? secrets\.jwtSecret/);
+    expect(readFileSync(path.join(root, 'scripts/start.ts'), 'utf8')).toMatch(/JWT_SECRET: process\.env\.JWT_SECRET \?\? (\w+\.)?secrets\.jwtSecret/);
     expect(execFileSync('git', ['check-ignore', '.local/secrets.dev.json'], { cwd: root, encoding: 'utf8' }).trim()).toBe('.local/secrets.dev.json');
   });
 });
