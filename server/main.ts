@@ -7,6 +7,7 @@ import { createMailer } from './mail/mailer';
 import { allJobs } from '../jobs/index';
 import { startScheduler } from '../jobs/scheduler';
 import { startupRuns } from './season/season-run.service';
+import { installProcessGuards } from './platform/process-guards';
 
 let config;
 try {
@@ -34,15 +35,19 @@ const server = app.listen(config.PORT, config.HOST, () => {
 });
 
 let stopping = false;
-async function shutdown(signal: string) {
+async function shutdown(signal: string, code = 0) {
   if (stopping) return;
   stopping = true;
   logger.info({ signal }, 'shutting down');
   scheduler.stop();
-  server.close();
+  // Requests in flight get a few seconds to finish; then the process goes anyway.
+  const closed = new Promise<void>((resolve) => server.close(() => resolve()));
+  server.closeIdleConnections();
+  await Promise.race([closed, new Promise((resolve) => setTimeout(resolve, 5_000).unref())]);
   mailer.close();
   await ds.destroy().catch(() => undefined);
-  process.exit(0);
+  process.exit(code);
 }
 process.on('SIGINT', () => void shutdown('SIGINT'));
 process.on('SIGTERM', () => void shutdown('SIGTERM'));
+installProcessGuards(process, logger, (code) => shutdown('fatal', code));
