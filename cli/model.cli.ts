@@ -181,6 +181,12 @@ async function main(argv: string[]): Promise<number> {
   }
 }
 
-main(process.argv.slice(2)).then((code) => {
-  process.exitCode = code;
-});
+main(process.argv.slice(2)).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (err: unknown) => {
+    console.error(err);
+    process.exitCode = 1;
+  },
+);

@@ -14,7 +14,8 @@ export function startScheduler(ctx: AppContext, jobs: JobDef[]): { stop(): void;
   for (const job of jobs) {
     if (!job.cron) continue;
     const task = cron.createTask(job.cron, () => runJob(ctx, job), { name: job.name, timezone: job.timezone, noOverlap: true });
-    task.start();
+    // An in-process task starts synchronously; a background one returns a promise, whose failure is logged.
+    void Promise.resolve(task.start()).catch((err: unknown) => ctx.logger.error({ job: job.name, err: (err as Error).message }, 'job could not be scheduled'));
     tasks.push(task);
     ctx.logger.info({ job: job.name, cron: job.cron, timezone: job.timezone }, 'job scheduled');
   }

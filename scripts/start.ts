@@ -38,6 +38,11 @@ let inheritCluster = false;
 /** The cluster start in progress: a stop during it waits for it, so a cluster this start just started is stopped too. */
 let devDatabase: ReturnType<typeof startDevDatabase> | null = null;
 
+/** A stop asked for during set-up: wait here for it (it exits the process) instead of starting the next part. */
+async function untilStopped(): Promise<void> {
+  if (stopping) await stopping;
+}
+
 /** Stop everything this process started, once; a second signal while stopping kills the server outright. */
 function stopAll(code: number): Promise<never> {
   if (stopping) {
@@ -117,26 +122,26 @@ try {
   cluster = dev.cluster;
   clusterOurs = dev.cluster.startedHere || inheritCluster;
   saveState();
-  if (stopping) await stopping;
+  await untilStopped();
 
   const { migrations, seeded } = await migrate(dev.url, args.has('--no-demo') ? {} : { seedDemo: { nodeEnv: 'development', bcryptCost: 12 } });
   if (migrations.length) console.log(`› ran ${migrations.length} migration(s)`);
   if (!args.has('--no-demo')) console.log(seeded ? '› loaded the invented Halvern Region (demo data)' : '› reusing the data already in the cluster');
-  if (stopping) await stopping;
+  await untilStopped();
 
   const maildev = await startMailCatcher(ports.smtp, ports.mailWeb, path.join(projectDir, '.local', 'mail', 'dev'));
   cleanups.push({ what: 'the mail catcher', run: () => maildev.stop() });
   const feedKey = randomBytes(18).toString('base64url');
   const feed = await startFakeFeed({ port: ports.feed, key: feedKey });
   cleanups.push({ what: 'the weather feed', run: () => feed.stop() });
-  if (stopping) await stopping;
+  await untilStopped();
 
   if (args.has('--no-build')) console.log('› client build skipped (--no-build)');
   else {
     console.log('› building the client');
     await buildClient();
   }
-  if (stopping) await stopping;
+  await untilStopped();
 
   const appUrl = `http://127.0.0.1:${ports.app}`;
   child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {

@@ -1,13 +1,15 @@
 /**
  * `npm test` after scripts/test.sh has made sure of node modules, PostgreSQL and Chromium:
  * a throw-away test cluster (never the demo data; fsync off), migrations into a template database,
- * a mail catcher on test ports, the client build, then vitest with any arguments passed on
+ * a mail catcher on test ports, the client build, the guard rails (type check, lint, layer rules; whole
+ * runs only), then vitest with any arguments passed on
  * (`npm test -- tests/api/auth.test.ts`). Each test file gets its own copy of the template database.
  */
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import pg from 'pg';
 import { buildClient } from './lib/build-client';
+import { runGuardRails } from './lib/guard-rails';
 import { ensureDatabase, startCluster, stopCluster } from './lib/cluster';
 import { projectDir } from './lib/dev-database';
 import { startMailCatcher } from './lib/mail-catcher';
@@ -39,6 +41,9 @@ try {
     const files = process.argv.slice(2).filter((a) => a.startsWith('tests/'));
     if (files.length === 0 || files.some((f) => f.startsWith('tests/browser'))) await buildClient();
     else console.log('› no browser test named: the client build is skipped');
+    // The whole suite (no file named, as CI runs it) first passes the type check, lint and layer rules.
+    const railsOk = files.length === 0 ? await runGuardRails() : true;
+    if (!railsOk) throw new Error('a guard rail failed (above); no test was run');
     console.log(`› test set-up took ${((Date.now() - t0) / 1000).toFixed(1)} s`);
     exitCode = await new Promise<number>((resolve) => {
       const child = spawn(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)], {

@@ -124,7 +124,9 @@ export function stationYearCopy(manager: EntityManager) {
       compactUploads(y);
       w.row(9).uuid(y.stationId).int4(y.year).float8Array(y.tmin).float8Array(y.tmax).float8Array(y.rh).float8Array(y.rain)
         .int2Array(y.flags).int2Array(y.uploadIx).uuidArray(y.uploads);
-      if (w.pending >= COPY_PART_BYTES && !copy.write(w.take())) return Promise.race([once(copy, 'drain'), done]).then(() => undefined);
+      // A failed COPY rejects `done`, which end() and abort() report; this promise only waits and never
+      // rejects, so a caller that does not await it leaves no unobserved rejection behind.
+      if (w.pending >= COPY_PART_BYTES && !copy.write(w.take())) return Promise.race([once(copy, 'drain'), done]).then(() => undefined, () => undefined);
       return undefined;
     },
     async end(): Promise<void> {

@@ -96,7 +96,7 @@ export default function RegionMapChart({ boundaries, rows }: { boundaries: Bound
   const onEvents = useMemo(
     () => ({
       click: (p: any) => {
-        if (typeof p?.name === 'string' && p.name) navigate(`/districts/${p.name}`);
+        if (typeof p?.name === 'string' && p.name) void navigate(`/districts/${p.name}`);
       },
     }),
     [navigate],

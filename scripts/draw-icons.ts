@@ -1,12 +1,12 @@
 /**
  * Redraws the app's PNG icons (public/icon-*.png) from the hand-written SVGs in public/, with Debian's
  * Chromium through playwright-core (nothing downloaded). Run after changing an SVG:
- *   npx tsx src/pwa/draw-icons.ts
+ *   npx tsx scripts/draw-icons.ts
  * The PNGs are committed; the build only copies them. Not part of the client bundle.
  */
 import { readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
-import { launchBrowser } from '../../tests/support/browser';
+import { launchBrowser } from '../tests/support/browser';
 
 const PUBLIC = path.resolve('public');
 const ICONS = [
