@@ -27,8 +27,8 @@ import { buildSignals, CHANNEL_LOOKBACK_YEARS } from './case-signals';
 import { currentWeek, deadlineOf, isDue, todayIn, weekKey, weekRef, weeksEndingWith } from './case-weeks';
 import { CaseWeekClosureEntity } from './case-week-closure.entity';
 import { DiseaseEntity } from './disease.entity';
+import { isUniqueViolation } from '../platform/database-errors';
 
-const isUniqueViolation = (err: unknown) => (err as { code?: string })?.code === '23505';
 
 /** The new values of one count as an entry or upload gives them; `undefined` keeps what is recorded. */
 export interface CountInput {

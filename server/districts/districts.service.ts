@@ -11,8 +11,8 @@ import { presentDistrict } from './district.presenter';
 import { DistrictPopulationEntity } from './district-population.entity';
 import { DistrictEntity } from './district.entity';
 import { DistrictsRepository } from './districts.repository';
+import { isUniqueViolation } from '../platform/database-errors';
 
-const isUniqueViolation = (err: unknown) => (err as { code?: string })?.code === '23505';
 
 export class DistrictsService {
   private readonly districts: DistrictsRepository;

@@ -3,7 +3,8 @@ import type {
   CorrectionBody, DistrictWeatherSource, IssueDto, StationCreateBody, StationUpdateBody, UploadDto, VoidDayBody,
 } from '../../shared/api/weather.schema';
 import { fromCelsius, fromMillimetres, type RainUnit, type TemperatureUnit, toCelsius, toMillimetres } from '../../shared/units';
-import { csvCell, issueValueUnit } from '../../shared/weather/qc';
+import { csvCell } from '../../shared/csv';
+import { issueValueUnit } from '../../shared/weather/qc';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import { assertDistrictVisible, type Principal, seesAllDistricts } from '../auth/principal';
@@ -18,8 +19,8 @@ import { WeatherStationEntity } from './weather-station.entity';
 import { WeatherUploadEntity } from './weather-upload.entity';
 import { presentStation, presentUpload } from './weather.presenter';
 import { WeatherRepository } from './weather.repository';
+import { isUniqueViolation } from '../platform/database-errors';
 
-const isUniqueViolation = (err: unknown) => (err as { code?: string })?.code === '23505';
 const today = () => new Date().toISOString().slice(0, 10);
 const daysBefore = (iso: string, n: number) => new Date(Date.parse(iso) - n * 86_400_000).toISOString().slice(0, 10);
 

@@ -380,12 +380,3 @@ export function idwWeights(distancesKm: number[], power = 2): number[] {
   return raw.map((w) => w / sum);
 }
 
-/**
- * One CSV cell, safe to open in a spreadsheet: a cell starting with = + - @ tab or CR is prefixed with
- * an apostrophe so it is read as text, not as a formula (OWASP, "CSV Injection"); then quoted per RFC 4180.
- */
-export function csvCell(value: unknown): string {
-  let s = value === null || value === undefined ? '' : String(value);
-  if (/^[=+\-@\t\r]/.test(s)) s = `'${s}`;
-  return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}

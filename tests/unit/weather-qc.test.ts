@@ -1,8 +1,9 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
-  checkRow, csvCell, dayOfIsoDate, fillGaps, idwWeights, plainNumber, readHeader, rhFromDewPoint, type RowIssue, toCelsius, toMillimetres,
+  checkRow, dayOfIsoDate, fillGaps, idwWeights, plainNumber, readHeader, rhFromDewPoint, type RowIssue, toCelsius, toMillimetres,
 } from '../../shared/weather/qc';
+import { csvCell } from '../../shared/csv';
 import { relativeHumidityFromDewPoint } from '../../shared/model';
 import { buildDemoStations } from '../../sample/demo-stations';
 import { demoWeather } from '../../sample/demo-weather';
@@ -71,6 +72,8 @@ describe('weather quality rules', () => {
     expect(['=1+1', '+1', '-2', '@A', '\tx', '\rx', 'ok', 'a,b', 'q"'].map(csvCell)).toEqual(
       ["'=1+1", "'+1", "'-2", "'@A", "'\tx", "\"'\rx\"", 'ok', '"a,b"', '"q"""'],
     );
+    // One writer for the browser and the server: a negative number is data, written as it is.
+    expect([-2, 0.5, null, undefined, Number.NaN].map(csvCell)).toEqual(['-2', '0.5', '', '', '']);
   });
 
   it('when the demo weather is generated twice, then it is the same, and summer is warm enough for vectors in every zone', () => {
