@@ -116,6 +116,20 @@ export class SeasonRepository {
     return new Map(rows.map((r) => [r.id, r.fp]));
   }
 
+  /**
+   * Station-days held as implausible (docs/weather-intake.md § Plausibility) between two dates: they are
+   * left out of the district series, so the run computes without them. How many, and at which stations.
+   */
+  async heldWeather(from: string, to: string): Promise<{ count: number; stations: string[] }> {
+    const [r]: { count: number; stations: string[] }[] = await this.ds.query(
+      `SELECT count(*)::int AS count, coalesce(array_agg(DISTINCT s.code ORDER BY s.code), '{}') AS stations
+         FROM weather_observations o JOIN weather_stations s ON s.id = o.station_id
+        WHERE 'held' = ANY(o.flags) AND o.date BETWEEN $1 AND $2`,
+      [from, to],
+    );
+    return r;
+  }
+
   async runStates(): Promise<Map<string, { fingerprint: string; asOf: string }>> {
     const rows: { district_id: string; fingerprint: string; as_of: string }[] = await this.ds.query(
       `SELECT district_id, fingerprint, to_char(as_of, 'YYYY-MM-DD') AS as_of FROM district_run_state`,

@@ -113,9 +113,11 @@ export interface RowIssue {
   date: string | null;
   column: string;
   value: string | null;
-  severity: 'rejected' | 'flagged' | 'filled';
+  severity: 'rejected' | 'flagged' | 'filled' | 'held';
   rule: string;
   reason: string;
+  /** The figures a held line names (shared/weather/plausibility.ts). */
+  params?: Record<string, string | number | null>;
 }
 
 export interface CheckedRow {
