@@ -122,10 +122,14 @@ export class SeasonRepository {
    */
   async heldWeather(from: string, to: string): Promise<{ count: number; stations: string[] }> {
     const [r]: { count: number; stations: string[] }[] = await this.ds.query(
+      // Straight from the station-years of the season's calendar years (the view would unnest every year).
       `SELECT count(*)::int AS count, coalesce(array_agg(DISTINCT s.code ORDER BY s.code), '{}') AS stations
-         FROM weather_observations o JOIN weather_stations s ON s.id = o.station_id
-        WHERE 'held' = ANY(o.flags) AND o.date BETWEEN $1 AND $2`,
-      [from, to],
+         FROM weather_station_years y
+         JOIN weather_stations s ON s.id = y.station_id
+        CROSS JOIN LATERAL unnest(y.flags) WITH ORDINALITY AS f(bits, i)
+        WHERE y.year BETWEEN $3 AND $4 AND f.bits & 8 <> 0 AND y.tmin[f.i] IS NOT NULL
+          AND make_date(y.year, 1, 1) + (f.i - 1)::int BETWEEN $1::date AND $2::date`,
+      [from, to, Number(from.slice(0, 4)), Number(to.slice(0, 4))],
     );
     return r;
   }
