@@ -325,6 +325,8 @@ export class WeatherIntakeService {
 
     // Plausibility (docs/weather-intake.md § Plausibility): implausible days are held. A correction is a
     // person's own value and is not held (correcting a held day releases it).
+    // It reads stored history on this connection, so the early COPY must have ended.
+    if (upload.source !== 'correction') await copied;
     const plaus = upload.source === 'correction'
       ? { held: merged.map(() => null), rows: [] as HeldRow[] }
       : await judgePlausibility(manager, merged, years, nb, storedKeys, { tempUnit: upload.tempUnit, historyYears: config.WEATHER_PLAUS_HISTORY_YEARS });

@@ -62,7 +62,7 @@ const TEMPERATURE_COLUMNS = new Set(['tmin', 'tmax', 'dewpoint']);
 
 /**
  * The unit a row-report value is in: a rejected value is what the file said, in the upload's units; a
- * flagged or filled one is a stored value, in °C and mm. Null for a column without a unit.
+ * flagged, held or filled one is a stored value, in °C and mm. Null for a column without a unit.
  */
 export function issueValueUnit(
   issue: { column: string; severity: string },
