@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   dayOfYear, doyDistance, heldReason, judge, MAD_CONSTANT, modifiedZ, MODIFIED_Z_LIMIT, otherUnitReading, robustStats,
@@ -14,6 +15,21 @@ describe('the plausibility statistics', () => {
     expect(modifiedZ(100, s, 0)).toBeCloseTo(MAD_CONSTANT * 96, 10);
     expect(Math.abs(modifiedZ(100, s, 0))).toBeGreaterThan(MODIFIED_Z_LIMIT);
     expect(Math.abs(modifiedZ(5, s, 0))).toBeLessThan(MODIFIED_Z_LIMIT);
+  });
+
+  it('when any sample is given, then the in-place selection gives the same median and MAD as sorting', () => {
+    const sorted = (v: number[]) => [...v].sort((a, b) => a - b);
+    const med = (v: number[]) => {
+      const s = sorted(v);
+      return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+    };
+    fc.assert(
+      fc.property(fc.array(fc.integer({ min: -400, max: 400 }).map((x) => x / 4), { minLength: 1, maxLength: 80 }), (v) => {
+        const m = med(v);
+        expect(stats(v)).toEqual({ median: m, mad: med(v.map((x) => Math.abs(x - m))), n: v.length });
+      }),
+      { numRuns: 500 },
+    );
   });
 
   it('when the sample has an even count, then the median is the mean of the middle two', () => {
