@@ -41,11 +41,11 @@ const upload = (body: string, tempUnit = 'C') =>
 
 const doy = (iso: string) => (Date.parse(iso) - Date.parse(`${iso.slice(0, 4)}-01-01`)) / 86_400_000;
 /**
- * A cold upland station's invented climate (°C): Tmin −2 + 10 sin(2π(doy − 110)/365) with a small
- * deterministic wobble, Tmax 8 °C above. In December Tmin is about −8 °C and Tmax about 0 °C.
+ * A cold upland station's invented climate (°C): Tmin −5 + 10 sin(2π(doy − 110)/365) with a small
+ * deterministic wobble, Tmax 8 °C above. In November Tmin is about −8 °C and Tmax about 0 °C.
  */
 const climate = (iso: string, i: number) => {
-  const tmin = Math.round((-2 + 10 * Math.sin((2 * Math.PI * (doy(iso) - 110)) / 365) + ((i * 7) % 5) - 2) * 10) / 10;
+  const tmin = Math.round((-5 + 10 * Math.sin((2 * Math.PI * (doy(iso) - 110)) / 365) + ((i * 7) % 5) - 2) * 10) / 10;
   return { tmin, tmax: Math.round((tmin + 8 + ((i * 3) % 3)) * 10) / 10 };
 };
 const toF = (c: number) => Math.round((c * 9 / 5 + 32) * 10) / 10;
@@ -57,25 +57,25 @@ describe('plausibility before the model', () => {
     const station = await makeStation(t.ds, { latitude: 45.5, longitude: 70.5, elevation: 973 });
     // Four years of history, all plausible (the first upload has nothing to compare with, so nothing is held).
     const history: (string | number)[][] = [];
-    for (let i = 0, d = '2023-01-01'; d <= '2026-11-30'; i++, d = dayAfter('2023-01-01', i)) {
+    for (let i = 0, d = '2023-01-01'; d <= '2026-10-31'; i++, d = dayAfter('2023-01-01', i)) {
       const { tmin, tmax } = climate(d, i);
       history.push([station.code, d, tmin, tmax, 70, 1]);
     }
     const first = await upload(csv(HEADER, history));
     expect(first.body).toMatchObject({ status: 'done', rowsAccepted: history.length, rowsHeld: 0 });
 
-    const AS_OF = '2026-12-20';
+    const AS_OF = '2026-11-20';
     await runSeasonNow(t.ctx, { asOf: AS_OF });
     const tierOf = async () => (await t.ds.query('SELECT tier, score FROM district_tiers WHERE district_id = $1', [district.id]))[0];
     const before = await tierOf();
 
-    // December's cold days typed in °F in a file declared °C: 17–34 "°C" would be warm days for the mosquito.
-    const december = Array.from({ length: 20 }, (_, k) => {
-      const d = dayAfter('2026-12-01', k);
+    // November's cold days typed in °F in a file declared °C: 17–34 "°C" would be warm days for the mosquito.
+    const november = Array.from({ length: 20 }, (_, k) => {
+      const d = dayAfter('2026-11-01', k);
       const { tmin, tmax } = climate(d, 10_000 + k);
       return [station.code, d, toF(tmin), toF(tmax), 70, 1];
     });
-    const res = await upload(csv(HEADER, december));
+    const res = await upload(csv(HEADER, november));
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ status: 'done', rowsAccepted: 20, rowsHeld: 20 });
 
@@ -87,7 +87,7 @@ describe('plausibility before the model', () => {
       expect(line.rule).toBe('looks_fahrenheit');
       expect(line.params).toMatchObject({ basis: 'station' });
       expect(Math.abs(line.params.z)).toBeGreaterThan(3.5);
-      expect(line.params.alternative).toBeLessThan(5); // read as °F the value is a cold December day
+      expect(line.params.alternative).toBeLessThan(5); // read as °F the value is a cold November day
       expect(line.stored).toMatchObject({ held: true, rh: 70, rain: 1 });
     }
     const listed = await officer.get('/api/weather/held');
@@ -96,7 +96,7 @@ describe('plausibility before the model', () => {
     expect(listed.body.held[0].reasons[0].rule).toBe('looks_fahrenheit');
 
     // Left out of the district series (the gap is too long to fill), so out of the model and the tier.
-    const series = await officer.get(`/api/weather/districts/${district.id}/series?from=2026-12-01&to=2026-12-20`);
+    const series = await officer.get(`/api/weather/districts/${district.id}/series?from=2026-11-01&to=2026-11-20`);
     expect(series.body.days.every((d: { tmax: number | null }) => d.tmax === null || d.tmax < 5)).toBe(true);
     const run = await new SeasonRunService(t.ctx).runLocked({ kind: 'manual', full: true, asOf: AS_OF });
     expect(run!.warnings).toContainEqual(expect.objectContaining({ code: 'weather_held', params: { count: 20, stations: station.code } }));
@@ -104,22 +104,22 @@ describe('plausibility before the model', () => {
 
     // Refused confirmations write nothing: no reason, a day that is not held.
     const audits = await countRows(t.ds, 'audit_events');
-    const noReason = await officer.post('/api/weather/observations/confirm').send({ station: station.code, date: '2026-12-01' });
+    const noReason = await officer.post('/api/weather/observations/confirm').send({ station: station.code, date: '2026-11-01' });
     expect(noReason.status).toBe(400);
     expect(noReason.body.error.fields.map((f: { path: string }) => f.path)).toContain('reason');
-    const notHeld = await officer.post('/api/weather/observations/confirm').send({ station: station.code, date: '2026-11-01', reason: 'checked' });
+    const notHeld = await officer.post('/api/weather/observations/confirm').send({ station: station.code, date: '2026-10-01', reason: 'checked' });
     expect(notHeld.status).toBe(400);
     expect(notHeld.body.error).toMatchObject({ code: 'not_held', fields: [{ path: 'date' }] });
     expect(await countRows(t.ds, 'audit_events')).toEqual(audits);
 
     // A person confirms them (here: says the warm values are true) — only then do they count.
-    for (const [, date] of december) {
+    for (const [, date] of november) {
       const ok = await officer.post('/api/weather/observations/confirm').send({ station: station.code, date, reason: 'Checked with the observer' });
       expect(ok.status).toBe(200);
       expect(ok.body.districtsRecomputed).toBe(1);
     }
     expect((await officer.get('/api/weather/held')).body.total).toBe(0);
-    const after = await officer.get(`/api/weather/districts/${district.id}/series?from=2026-12-01&to=2026-12-20`);
+    const after = await officer.get(`/api/weather/districts/${district.id}/series?from=2026-11-01&to=2026-11-20`);
     expect(after.body.days).toHaveLength(20);
     expect(after.body.days.every((d: { tmax: number }) => d.tmax > 25)).toBe(true);
     const rerun = await new SeasonRunService(t.ctx).runLocked({ kind: 'nightly', asOf: AS_OF });
@@ -129,7 +129,7 @@ describe('plausibility before the model', () => {
     expect(confirmed.score).toBeGreaterThan(before.score);
     expect(tierRank(confirmed.tier)).toBeGreaterThan(tierRank(before.tier));
     // A later pull of the same values does not hold the confirmed days again.
-    const again = await upload(csv(HEADER, december));
+    const again = await upload(csv(HEADER, november));
     expect(again.body).toMatchObject({ status: 'done', rowsHeld: 0 });
   });
 
