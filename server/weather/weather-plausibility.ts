@@ -1,6 +1,6 @@
 import type { EntityManager } from 'typeorm';
 import {
-  dayOfYear, doyDistance, type HeldFinding, type HeldReason, heldReason, judge, MIN_SAMPLE, type RobustStats, robustStats, WINDOW_DAYS,
+  doyDistance, type HeldFinding, type HeldReason, heldReason, judge, MIN_SAMPLE, type RobustStats, robustStats, WINDOW_DAYS,
 } from '../../shared/weather/plausibility';
 import { FLAG_BITS, readStationYears, type StationYear, stationYearKey } from './station-years.repository';
 import type { Neighbour } from './weather-geo';
@@ -54,18 +54,18 @@ export async function judgePlausibility(
   for (const n of nb) around.set(n.stationId, [...(around.get(n.stationId) ?? []), n]);
 
   let scratch = new Float64Array(1024);
-  const sampleOf = (fill: (push: (x: number) => void) => void): RobustStats => {
-    let n = 0;
-    fill((x) => {
-      if (n === scratch.length) {
-        const bigger = new Float64Array(scratch.length * 2);
-        bigger.set(scratch);
-        scratch = bigger;
-      }
-      scratch[n++] = x;
-    });
-    return robustStats(scratch, n);
+  let n = 0;
+  const push = (x: number) => {
+    if (n === scratch.length) {
+      const bigger = new Float64Array(scratch.length * 2);
+      bigger.set(scratch);
+      scratch = bigger;
+    }
+    scratch[n++] = x;
   };
+  const EMPTY: RobustStats = { median: Number.NaN, mad: Number.NaN, n: 0 };
+  const BLOCKS = Math.ceil(366 / BLOCK);
+  const slot = (c: Col, day: number) => COLUMNS.indexOf(c) * BLOCKS + Math.floor(day / BLOCK);
 
   const stations = [...byStation.keys()];
   for (let s0 = 0; s0 < stations.length; s0 += STATIONS_PER_READ) {
@@ -82,56 +82,56 @@ export async function judgePlausibility(
 
     for (const stationId of part) {
       const own = historyOf.get(stationId) ?? [];
-      // The station's climatology by column and day of year (0–365), computed once per station.
-      const climate = new Map<string, RobustStats>();
-      const climateOf = (c: Col, day: number) => {
-        const doy = blockMiddle(day);
-        const key = `${c}|${doy}`;
-        let s = climate.get(key);
-        if (!s) {
-          s = sampleOf((push) => {
-            for (const h of own) {
-              const len = h.tmin.length;
-              for (let d = -RADIUS; d <= RADIUS; d++) {
-                const i = (((doy + d) % len) + len) % len;
-                if (doyDistance(i, doy) > RADIUS) continue;
-                const x = h[c][i];
-                if (x === x && (h.flags[i] & FLAG_BITS.held) === 0) push(x);
-              }
-            }
-          });
-          climate.set(key, s);
+      // The station's climatology by column and 5-day block, computed once per station (typed loops, no
+      // callbacks: this runs for every block of every station of a national upload).
+      const climate: (RobustStats | undefined)[] = new Array(COLUMNS.length * BLOCKS);
+      const climateOf = (c: Col, day: number): RobustStats => {
+        if (!own.length) return EMPTY;
+        const at = slot(c, day);
+        const hit = climate[at];
+        if (hit) return hit;
+        const mid = blockMiddle(day);
+        n = 0;
+        for (const h of own) {
+          const len = h.tmin.length;
+          const values = h[c];
+          for (let d = -RADIUS; d <= RADIUS; d++) {
+            const i = (((mid + d) % len) + len) % len;
+            if (doyDistance(i, mid) > RADIUS) continue;
+            const x = values[i];
+            if (x === x && (h.flags[i] & FLAG_BITS.held) === 0) push(x);
+          }
         }
-        return s;
+        return (climate[at] = robustStats(scratch, n));
       };
       for (const k of byStation.get(stationId)!) {
         const { y, rows: rowOf, unchanged } = merged[k];
         const ring = (around.get(stationId) ?? [])
           .map((m) => ({ m, ny: years.get(stationYearKey(m.neighbourId, y.year)) }))
           .filter((x): x is { m: Neighbour; ny: StationYear } => x.ny !== undefined);
-        const nearStats = new Map<string, RobustStats>();
-        const neighbourStats = (c: Col, day: number) => {
+        const nearStats: (RobustStats | undefined)[] = new Array(COLUMNS.length * BLOCKS);
+        const neighbourStats = (c: Col, day: number): RobustStats => {
+          if (!ring.length) return EMPTY;
+          const at = slot(c, day);
+          const hit = nearStats[at];
+          if (hit) return hit;
           const mid = blockMiddle(day);
-          const key = `${c}|${mid}`;
-          let s = nearStats.get(key);
-          if (!s) {
-            s = sampleOf((push) => {
-              for (const { m, ny } of ring) {
-                const shift = c === 'rh' ? 0 : m.lapse;
-                for (let j = Math.max(0, mid - RADIUS); j <= Math.min(ny.tmin.length - 1, mid + RADIUS); j++) {
-                  const x = ny[c][j];
-                  if (x === x && (ny.flags[j] & FLAG_BITS.held) === 0) push(x + shift);
-                }
-              }
-            });
-            nearStats.set(key, s);
+          n = 0;
+          for (const { m, ny } of ring) {
+            const shift = c === 'rh' ? 0 : m.lapse;
+            const values = ny[c];
+            const last = Math.min(ny.tmin.length - 1, mid + RADIUS);
+            for (let j = Math.max(0, mid - RADIUS); j <= last; j++) {
+              const x = values[j];
+              if (x === x && (ny.flags[j] & FLAG_BITS.held) === 0) push(x + shift);
+            }
           }
-          return s;
+          return (nearStats[at] = robustStats(scratch, n));
         };
         for (let i = 0; i < rowOf.length; i++) {
           if (rowOf[i] === 0 || unchanged?.[i]) continue;
           const findings: HeldFinding[] = [];
-          const doy = dayOfYear(y.start + i);
+          const doy = i; // the year's arrays start on 1 January, so index = day of year (0-based)
           for (const c of COLUMNS) {
             const x = y[c][i];
             if (x !== x) continue;
