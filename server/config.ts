@@ -59,6 +59,8 @@ export const configSchema = z.object({
   WEATHER_QC_JUMP_C: z.coerce.number().positive().default(15),
   WEATHER_QC_RUN_DAYS: z.coerce.number().int().min(2).default(5),
   WEATHER_QC_SPATIAL_C: z.coerce.number().positive().default(8),
+  /** Years of a station's stored history the plausibility check reads (docs/weather-intake.md § Plausibility). */
+  WEATHER_PLAUS_HISTORY_YEARS: z.coerce.number().int().min(1).max(100).default(15),
   WEATHER_QC_NEIGHBOUR_KM: z.coerce.number().positive().default(150),
   WEATHER_IDW_STATIONS: z.coerce.number().int().min(1).max(10).default(3),
   /** How often a running intake reports its progress (and that it is alive), in milliseconds. */

@@ -124,6 +124,18 @@ export class SeasonRunService {
             const s = states.get(d.id);
             return !s || s.asOf !== asOf || s.fingerprint !== fingerprints.get(d.id);
           });
+      // Held weather (implausible values waiting for a person) is left out of the series: say so on the run.
+      // Never a reason for the run to fail.
+      try {
+        const held = await this.repo.heldWeather(seasonStart, asOf);
+        if (held.count > 0)
+          run.warnings.push({
+            code: 'weather_held',
+            params: { count: held.count, stations: held.stations.slice(0, 10).join(', ') + (held.stations.length > 10 ? ', …' : '') },
+          });
+      } catch (err) {
+        this.ctx.logger.warn({ run: run.id, err: (err as Error).message }, 'season run: could not count held weather');
+      }
       run.districtsTotal = todo.length;
       run.districtsSkipped = districts.length - todo.length;
       await runs.update(run.id, { districtsTotal: run.districtsTotal, districtsSkipped: run.districtsSkipped });

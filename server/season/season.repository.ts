@@ -116,6 +116,24 @@ export class SeasonRepository {
     return new Map(rows.map((r) => [r.id, r.fp]));
   }
 
+  /**
+   * Station-days held as implausible (docs/weather-intake.md § Plausibility) between two dates: they are
+   * left out of the district series, so the run computes without them. How many, and at which stations.
+   */
+  async heldWeather(from: string, to: string): Promise<{ count: number; stations: string[] }> {
+    const [r]: { count: number; stations: string[] }[] = await this.ds.query(
+      // Straight from the station-years of the season's calendar years (the view would unnest every year).
+      `SELECT count(*)::int AS count, coalesce(array_agg(DISTINCT s.code ORDER BY s.code), '{}') AS stations
+         FROM weather_station_years y
+         JOIN weather_stations s ON s.id = y.station_id
+        CROSS JOIN LATERAL unnest(y.flags) WITH ORDINALITY AS f(bits, i)
+        WHERE y.year BETWEEN $3 AND $4 AND f.bits & 8 <> 0 AND y.tmin[f.i] IS NOT NULL
+          AND make_date(y.year, 1, 1) + (f.i - 1)::int BETWEEN $1::date AND $2::date`,
+      [from, to, Number(from.slice(0, 4)), Number(to.slice(0, 4))],
+    );
+    return r;
+  }
+
   async runStates(): Promise<Map<string, { fingerprint: string; asOf: string }>> {
     const rows: { district_id: string; fingerprint: string; as_of: string }[] = await this.ds.query(
       `SELECT district_id, fingerprint, to_char(as_of, 'YYYY-MM-DD') AS as_of FROM district_run_state`,

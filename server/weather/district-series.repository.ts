@@ -6,7 +6,8 @@ const round2 = (x: number | null) => (x === null ? null : Math.round(x * 100) / 
 /**
  * Recompute the daily series of the given districts from their sources: each day the weighted mean of
  * the stations that reported (weights renormalised over them), then short gaps filled and long ones kept
- * as missing days. One aggregate query and one insert per district.
+ * as missing days. Held station-days (judged implausible, not yet confirmed or corrected) count nowhere:
+ * the day is as if the station had not reported. One aggregate query and one insert per district.
  */
 export async function recomputeDistrictSeries(manager: EntityManager, districtIds: Iterable<string>, maxFillDays: number): Promise<void> {
   for (const districtId of districtIds) {
@@ -18,7 +19,7 @@ export async function recomputeDistrictSeries(manager: EntityManager, districtId
               sum(w.weight * o.rain) FILTER (WHERE o.rain IS NOT NULL) / nullif(sum(w.weight) FILTER (WHERE o.rain IS NOT NULL), 0) AS rain,
               count(*)::int AS n
          FROM district_weather_sources w
-         JOIN weather_observations o ON o.station_id = w.station_id
+         JOIN weather_observations o ON o.station_id = w.station_id AND NOT ('held' = ANY(o.flags))
         WHERE w.district_id = $1
         GROUP BY o.date ORDER BY o.date`,
       [districtId],

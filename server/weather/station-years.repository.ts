@@ -28,8 +28,12 @@ export interface StationYear {
   uploads: string[];
 }
 
-/** The flag rules as bits of StationYear.flags, in the order the row report lists them. */
-export const FLAG_BITS = { jump: 1, run: 2, spatial: 4 } as const;
+/**
+ * The flag rules as bits of StationYear.flags, in the order the row report lists them. `held`: the day was
+ * judged implausible (docs/weather-intake.md § Plausibility) and is left out of the district series until
+ * a person confirms or corrects it.
+ */
+export const FLAG_BITS = { jump: 1, run: 2, spatial: 4, held: 8 } as const;
 export type FlagName = keyof typeof FLAG_BITS;
 export const flagNames = (bits: number): FlagName[] =>
   (Object.keys(FLAG_BITS) as FlagName[]).filter((name) => (bits & FLAG_BITS[name]) !== 0);

@@ -9,10 +9,11 @@ import { capText } from '../http/limits';
 import { recordAudit } from '../audit/audit.repository';
 import { districtsUsingStations, recomputeDistrictSeries } from './district-series.repository';
 import {
-  emptyStationYear, flagNames, readStationYears, type StationYear, stationYearCopy, stationYearKey, storedStationYearKeys, uploadIndex,
+  emptyStationYear, FLAG_BITS, flagNames, readStationYears, type StationYear, stationYearCopy, stationYearKey, storedStationYearKeys, uploadIndex,
   writeStationYearFlags, writeStationYears,
 } from './station-years.repository';
 import { type FlagFinding, flagStationYears } from './weather-flags';
+import { type HeldRow, judgePlausibility } from './weather-plausibility';
 import { neighbours, refreshAssignments } from './weather-geo';
 import { type UploadSource, WeatherUploadEntity } from './weather-upload.entity';
 import { type CheckedBatch, type ReaderOptions, readChecked } from './intake-reader';
@@ -105,8 +106,9 @@ export class WeatherIntakeService {
       await stopBeat();
       await qr.query(
         `UPDATE weather_uploads SET status = 'done', rows_processed = $2, rows_accepted = $3, rows_flagged = $4, rows_rejected = $5,
-                rows_replaced = $6, bytes_processed = bytes_total, message = $7, heartbeat_at = now(), finished_at = clock_timestamp() WHERE id = $1`,
-        [upload.id, result.processed, result.accepted, result.flagged, result.rejected, result.replaced, result.message],
+                rows_replaced = $6, rows_held = $8, rows_conflicting = $9, bytes_processed = bytes_total, message = $7, heartbeat_at = now(),
+                finished_at = clock_timestamp() WHERE id = $1`,
+        [upload.id, result.processed, result.accepted, result.flagged, result.rejected, result.replaced, result.message, result.held, result.conflicting],
       );
       await recordAudit(qr.manager, {
         actorId: upload.createdBy, action: 'weather.intake-loaded', entity: 'weather_upload', entityId: upload.id,
@@ -250,11 +252,28 @@ export class WeatherIntakeService {
     const years = await readStationYears(manager, [...wanted.values()]);
     stage('stored');
 
+    // Hand corrections win (issue 16): a feed pull or an upload never replaces a day whose stored value a
+    // person corrected (its intake is a correction); the new value is kept as an open conflict instead.
+    const hand = new Set<string>();
+    if (upload.source !== 'correction') {
+      const ids = new Set<string>();
+      for (const inc of incoming.values()) for (const u of years.get(stationYearKey(inc.y.stationId, inc.y.year))?.uploads ?? []) ids.add(u);
+      if (ids.size) {
+        const rows: { id: string }[] = await manager.query(
+          `SELECT id FROM weather_uploads WHERE id = ANY($1::uuid[]) AND source = 'correction'`, [[...ids]],
+        );
+        for (const r of rows) hand.add(r.id);
+      }
+    }
+    const conflicts: Conflict[] = [];
+
     // The merge, keyed by station and date: a new value replaces the stored one (which goes to the
     // revisions); the same value changes nothing; days the intake does not carry stay as they were.
     const revisions: Revision[] = [];
     const rewrite = new Set<StationYear>();
-    const merged: { y: StationYear; rows: Int32Array }[] = [];
+    // unchanged[i] = 1: the intake brings the values already stored, so a day's held state stays as it is
+    // (a day a person confirmed is not held again by the next pull of the same values).
+    const merged: { y: StationYear; rows: Int32Array; unchanged?: Uint8Array }[] = [];
     for (const inc of incoming.values()) {
       const key = stationYearKey(inc.y.stationId, inc.y.year);
       const stored = years.get(key);
@@ -266,12 +285,21 @@ export class WeatherIntakeService {
         continue;
       }
       const y = stored;
+      const unchanged = new Uint8Array(inc.row.length);
       let ix = 0;
       for (let i = 0; i < inc.row.length; i++) {
         if (inc.row[i] === 0) continue;
         const had = y.tmin[i] === y.tmin[i];
         const v = inc.y;
-        if (had && same(y.tmin[i], v.tmin[i]) && same(y.tmax[i], v.tmax[i]) && same(y.rh[i], v.rh[i]) && same(y.rain[i], v.rain[i])) continue;
+        if (had && same(y.tmin[i], v.tmin[i]) && same(y.tmax[i], v.tmax[i]) && same(y.rh[i], v.rh[i]) && same(y.rain[i], v.rain[i])) {
+          unchanged[i] = 1;
+          continue;
+        }
+        if (had && y.uploadIx[i] && hand.has(y.uploads[y.uploadIx[i] - 1])) {
+          conflicts.push({ stationId: y.stationId, day: y.start + i, tmin: v.tmin[i], tmax: v.tmax[i], rh: nullable(v.rh[i]), rain: nullable(v.rain[i]) });
+          inc.row[i] = 0; // not this intake's day: no flags, no plausibility, no report line
+          continue;
+        }
         if (had)
           revisions.push({
             stationId: y.stationId, day: y.start + i, tmin: y.tmin[i], tmax: y.tmax[i], rh: nullable(y.rh[i]), rain: nullable(y.rain[i]),
@@ -285,7 +313,7 @@ export class WeatherIntakeService {
         y.uploadIx[i] = ix;
         rewrite.add(y);
       }
-      merged.push({ y, rows: inc.row });
+      merged.push({ y, rows: inc.row, unchanged });
     }
     stage('merge');
 
@@ -293,24 +321,37 @@ export class WeatherIntakeService {
     const { bits: newBits, findings } = flagStationYears(merged, years, nb, {
       runDays: config.WEATHER_QC_RUN_DAYS, jumpC: config.WEATHER_QC_JUMP_C, spatialC: config.WEATHER_QC_SPATIAL_C,
     });
+    stage('flags');
+
+    // Plausibility (docs/weather-intake.md § Plausibility): implausible days are held. A correction is a
+    // person's own value and is not held (correcting a held day releases it).
+    // It reads stored history on this connection, so the early COPY must have ended.
+    if (upload.source !== 'correction') await copied;
+    const plaus = upload.source === 'correction'
+      ? { held: merged.map(() => null), rows: [] as HeldRow[] }
+      : await judgePlausibility(manager, merged, years, nb, storedKeys, { tempUnit: upload.tempUnit, historyYears: config.WEATHER_PLAUS_HISTORY_YEARS });
+    stage('plausibility');
     const reflag = new Set<StationYear>();
     for (let k = 0; k < merged.length; k++) {
       const { y, rows } = merged[k];
+      const heldDays = plaus.held[k];
       for (let i = 0; i < rows.length; i++) {
         if (rows[i] === 0) continue;
-        const bits = newBits[k][i];
+        const held = merged[k].unchanged?.[i] ? y.flags[i] & FLAG_BITS.held : heldDays?.[i] ? FLAG_BITS.held : 0;
+        const bits = newBits[k][i] | held;
         if (bits !== y.flags[i]) {
           y.flags[i] = bits;
           if (!rewrite.has(y)) reflag.add(y);
         }
       }
     }
-    stage('flags');
+    stage('reflag');
 
     await copied;
     await writeStationYears(manager, [...rewrite]);
     await writeStationYearFlags(manager, [...reflag]);
     await insertRevisions(manager, revisions, upload.id, upload.createdBy);
+    await insertConflicts(manager, conflicts, upload.id);
     stage('write');
 
     const touched = await refreshAssignments(manager, config.WEATHER_IDW_STATIONS);
@@ -319,14 +360,18 @@ export class WeatherIntakeService {
     stage('series');
 
     const codeOf = new Map(ids.map((id, k) => [id, codes[k]]));
-    const flagged = flagIssues(findings, codeOf, config, maxIssues - issues.length);
-    await insertIssues(manager, upload.id, [...issues, ...flagged.issues]);
-    const listed = issues.length + flagged.issues.length;
-    const more = issuesDropped + flagged.dropped;
+    const heldLines = heldIssues(plaus.rows, codeOf, maxIssues - issues.length);
+    const flagged = flagIssues(findings, codeOf, config, maxIssues - issues.length - heldLines.issues.length);
+    await insertIssues(manager, upload.id, [...issues, ...heldLines.issues, ...flagged.issues]);
+    const listed = issues.length + heldLines.issues.length + flagged.issues.length;
+    const more = issuesDropped + heldLines.dropped + flagged.dropped;
     const message = more > 0 ? `The report lists the first ${listed.toLocaleString('en')} findings; ${more.toLocaleString('en')} more were not listed.` : null;
     stage('issues');
     this.ctx.logger.info({ uploadId: upload.id, stagesMs: stages }, 'weather intake stages');
-    return { processed, accepted, flagged: findings.length, rejected, replaced: revisions.length, message };
+    return {
+      processed, accepted: accepted - conflicts.length, flagged: findings.length, rejected, replaced: revisions.length, message,
+      held: plaus.rows.length, conflicting: conflicts.length,
+    };
   }
 
   /** Mark failed every upload whose process stopped touching it (a crash or a kill mid-load). */
@@ -362,11 +407,14 @@ async function insertIssues(manager: EntityManager, uploadId: string, issues: Ro
   for (let i = 0; i < issues.length; i += 5000) {
     const part = issues.slice(i, i + 5000);
     await manager.query(
-      `INSERT INTO weather_upload_issues (upload_id, row_number, station, date, "column", value, severity, rule, reason)
-       SELECT $1, * FROM unnest($2::int[], $3::text[], $4::text[], $5::text[], $6::text[], $7::text[], $8::text[], $9::text[])`,
+      `INSERT INTO weather_upload_issues (upload_id, row_number, station, date, "column", value, severity, rule, reason, params)
+       SELECT $1, r, st, d, c, v, sev, ru, re, p::jsonb
+         FROM unnest($2::int[], $3::text[], $4::text[], $5::text[], $6::text[], $7::text[], $8::text[], $9::text[], $10::text[])
+              AS x(r, st, d, c, v, sev, ru, re, p)`,
       // Every stored text capped (LIMITS.VALUE_MAX_CHARS, MESSAGE_MAX_CHARS), marked with what was cut.
       [uploadId, part.map((x) => x.rowNumber), part.map((x) => short(x.station)), part.map((x) => short(x.date)), part.map((x) => short(x.column)),
-        part.map((x) => short(x.value)), part.map((x) => x.severity), part.map((x) => short(x.rule)), part.map((x) => capText(x.reason))],
+        part.map((x) => short(x.value)), part.map((x) => x.severity), part.map((x) => short(x.rule)), part.map((x) => capText(x.reason)),
+        part.map((x) => (x.params ? JSON.stringify(x.params) : null))],
     );
   }
 }
@@ -424,6 +472,59 @@ async function insertRevisions(manager: EntityManager, revisions: Revision[], up
         part.map((r) => r.rain), part.map((r) => r.flags.join(',')), part.map((r) => r.previousUploadId), uploadId, actorId],
     );
   }
+}
+
+interface Conflict {
+  stationId: string;
+  day: number;
+  tmin: number;
+  tmax: number;
+  rh: number | null;
+  rain: number | null;
+}
+
+/** Values kept back because the day was corrected by hand: one open conflict per station-day (a newer value replaces the older). */
+async function insertConflicts(manager: EntityManager, conflicts: Conflict[], uploadId: string) {
+  for (let i = 0; i < conflicts.length; i += 5000) {
+    const part = conflicts.slice(i, i + 5000);
+    await manager.query(
+      `INSERT INTO weather_observation_conflicts (station_id, date, tmin, tmax, rh, rain, upload_id)
+       SELECT v.*, $7::uuid FROM unnest($1::uuid[], $2::date[], $3::float8[], $4::float8[], $5::float8[], $6::float8[]) AS v
+       ON CONFLICT (station_id, date) WHERE resolved_at IS NULL
+       DO UPDATE SET tmin = excluded.tmin, tmax = excluded.tmax, rh = excluded.rh, rain = excluded.rain, upload_id = excluded.upload_id,
+                     created_at = now()`,
+      [part.map((c) => c.stationId), part.map((c) => iso(c.day)), part.map((c) => c.tmin), part.map((c) => c.tmax), part.map((c) => c.rh),
+        part.map((c) => c.rain), uploadId],
+    );
+  }
+}
+
+/**
+ * The row report's lines for the held days: one per implausible value, with the reason as its rule code and
+ * the figures as params (the client words them); the English sentence is for the CSV and the log.
+ */
+function heldIssues(rows: HeldRow[], codeOf: Map<string, string>, room: number) {
+  const sorted = [...rows].sort((a, b) => a.rowNumber - b.rowNumber);
+  const issues: RowIssue[] = [];
+  let dropped = 0;
+  for (const r of sorted) {
+    for (const f of r.findings) {
+      if (issues.length >= Math.max(0, room)) {
+        dropped++;
+        continue;
+      }
+      const unit = f.column === 'rh' ? '%' : '°C';
+      const reading = f.alternative !== null ? ` Read as °${r.reason === 'looks_fahrenheit' ? 'F' : 'C'} it would be ${f.alternative} °C, which fits.` : '';
+      issues.push({
+        rowNumber: r.rowNumber, station: codeOf.get(r.stationId) ?? null, date: iso(r.day), column: f.column, value: String(f.value),
+        severity: 'held', rule: r.reason,
+        reason: `Held: ${f.value} ${unit} is far from the ${f.basis === 'station' ? "station's own values" : "neighbouring stations' values"} for this time of year `
+          + `(median ${f.median} ${unit}, modified z-score ${f.z}, limit 3.5).${reading} Confirm it or correct it.`,
+        params: { column: f.column, value: f.value, median: f.median, mad: f.mad, z: f.z, n: f.n, basis: f.basis, alternative: f.alternative },
+      });
+    }
+  }
+  return { issues, dropped };
 }
 
 /** The row report's lines for the flagged days, in row order, at most `room` of them. */

@@ -1,9 +1,9 @@
 import { Check, Column, Entity, Index, PrimaryGeneratedColumn, JoinColumn, ManyToOne } from 'typeorm';
 import { WeatherUploadEntity } from './weather-upload.entity';
 
-/** One line of an intake's row-level report: a rejected or flagged value and why. */
+/** One line of an intake's row-level report: a rejected, flagged or held value and why. */
 @Entity({ name: 'weather_upload_issues' })
-@Check('weather_upload_issues_severity_check', "severity IN ('rejected', 'flagged', 'filled')")
+@Check('weather_upload_issues_severity_check', "severity IN ('rejected', 'flagged', 'filled', 'held')")
 @Index('weather_upload_issues_upload_idx', ['uploadId', 'rowNumber'])
 export class WeatherUploadIssueEntity {
   @PrimaryGeneratedColumn({ type: 'bigint' })
@@ -29,13 +29,17 @@ export class WeatherUploadIssueEntity {
   value: string | null;
 
   @Column({ type: 'text' })
-  severity: 'rejected' | 'flagged' | 'filled';
+  severity: 'rejected' | 'flagged' | 'filled' | 'held';
 
   @Column({ type: 'text' })
   rule: string;
 
   @Column({ type: 'text' })
   reason: string;
+
+  /** The figures a held line's reason names (column, value, median, MAD, modified z-score, basis…). */
+  @Column({ type: 'jsonb', nullable: true })
+  params: Record<string, string | number | null> | null;
 
   @ManyToOne(() => WeatherUploadEntity, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'upload_id' })

@@ -55,6 +55,14 @@ export class WeatherUploadEntity {
   @Column({ name: 'rows_replaced', type: 'integer', default: 0 })
   rowsReplaced: number;
 
+  /** Accepted rows held as implausible (stored, left out of the series until confirmed or corrected). */
+  @Column({ name: 'rows_held', type: 'integer', default: 0 })
+  rowsHeld: number;
+
+  /** Rows not applied because the day was corrected by hand (kept as open conflicts instead). */
+  @Column({ name: 'rows_conflicting', type: 'integer', default: 0 })
+  rowsConflicting: number;
+
   /** Capped English text (LIMITS.MESSAGE_MAX_CHARS); the client words a refusal from reasonCode instead. */
   @Column({ type: 'text', nullable: true })
   message: string | null;

@@ -1,5 +1,6 @@
 import { DistrictWeatherDayEntity } from './district-weather-day.entity';
 import { DistrictWeatherSourceEntity } from './district-weather-source.entity';
+import { WeatherObservationConflictEntity } from './weather-observation-conflict.entity';
 import { WeatherObservationRevisionEntity } from './weather-observation-revision.entity';
 import { WeatherStationYearEntity } from './weather-station-year.entity';
 import { WeatherStationEntity } from './weather-station.entity';
@@ -13,6 +14,7 @@ export const weatherEntities: Function[] = [
   WeatherUploadIssueEntity,
   WeatherStationYearEntity,
   WeatherObservationRevisionEntity,
+  WeatherObservationConflictEntity,
   DistrictWeatherSourceEntity,
   DistrictWeatherDayEntity,
 ];

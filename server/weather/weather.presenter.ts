@@ -38,6 +38,8 @@ export const presentUpload = (u: WeatherUploadEntity, issueCount: number): Uploa
   rowsFlagged: u.rowsFlagged,
   rowsRejected: u.rowsRejected,
   rowsReplaced: u.rowsReplaced,
+  rowsHeld: u.rowsHeld ?? 0,
+  rowsConflicting: u.rowsConflicting ?? 0,
   issueCount,
   message: capText(u.message),
   reasonCode: u.reasonCode ?? null,

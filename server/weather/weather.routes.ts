@@ -4,7 +4,7 @@ import type { NextFunction, Request, Response } from 'express';
 import multer from 'multer';
 import { idParams } from '../../shared/api/common.schema';
 import {
-  correctionBody, voidDayBody, issuesReportQuery, rangeQuery, revisionsQuery, stationCreateBody, stationUpdateBody, uploadForm, uploadQuery,
+  confirmBody, conflictParams, correctionBody, resolveConflictBody, voidDayBody, issuesReportQuery, rangeQuery, revisionsQuery, stationCreateBody, stationUpdateBody, uploadForm, uploadQuery,
 } from '../../shared/api/weather.schema';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
@@ -78,6 +78,16 @@ export function weatherRoutes(ctx: AppContext) {
     defineRoute({
       method: 'post', path: '/weather/observations/void', access: EDITORS, body: voidDayBody,
       handler: ({ principal, body }) => service.voidDay(principal, body),
+    }),
+    defineRoute({
+      method: 'post', path: '/weather/observations/confirm', access: EDITORS, body: confirmBody,
+      handler: ({ principal, body }) => service.confirm(principal, body),
+    }),
+    defineRoute({ method: 'get', path: '/weather/held', access: EDITORS, handler: () => service.held() }),
+    defineRoute({ method: 'get', path: '/weather/conflicts', access: EDITORS, handler: () => service.conflicts() }),
+    defineRoute({
+      method: 'post', path: '/weather/conflicts/:id/resolve', access: EDITORS, params: conflictParams, body: resolveConflictBody,
+      handler: ({ principal, params, body }) => service.resolveConflict(principal, params.id, body),
     }),
     defineRoute({
       method: 'post', path: '/weather/feed/pull', access: EDITORS, status: 201,

@@ -1,6 +1,7 @@
 import type { Response } from 'express';
+import type { EntityManager } from 'typeorm';
 import type {
-  CorrectionBody, DistrictWeatherSource, IssueDto, StationCreateBody, StationUpdateBody, UploadDto, VoidDayBody,
+  ConfirmBody, ConflictDto, CorrectionBody, DistrictWeatherSource, HeldDayDto, IssueDto, ResolveConflictBody, StationCreateBody, StationUpdateBody, UploadDto, VoidDayBody,
 } from '../../shared/api/weather.schema';
 import { fromCelsius, fromMillimetres, type RainUnit, type TemperatureUnit, toCelsius, toMillimetres } from '../../shared/units';
 import { csvCell } from '../../shared/csv';
@@ -11,7 +12,9 @@ import { assertDistrictVisible, type Principal, seesAllDistricts } from '../auth
 import { DistrictEntity } from '../districts/district.entity';
 import { badRequest, conflict, forbidden, notFound, unprocessable } from '../http/errors';
 import { recomputeDistrictSeries } from './district-series.repository';
-import { flagNames, readStationYears, stationYearKey, writeStationYears, yearStartDay } from './station-years.repository';
+import {
+  FLAG_BITS, flagNames, readStationYears, stationYearKey, uploadIndex, writeStationYearFlags, writeStationYears, yearStartDay,
+} from './station-years.repository';
 import { WeatherObservationRevisionEntity } from './weather-observation-revision.entity';
 import { refreshAssignments } from './weather-geo';
 import { recordsSource, WeatherIntakeService } from './weather-intake.service';
@@ -25,6 +28,12 @@ const today = () => new Date().toISOString().slice(0, 10);
 const daysBefore = (iso: string, n: number) => new Date(Date.parse(iso) - n * 86_400_000).toISOString().slice(0, 10);
 
 const nanToNull = (v: number) => (Number.isNaN(v) ? null : v);
+/** A YYYY-MM-DD text that names a real day (report lines keep a rejected row's date as it was written). */
+const isRealDate = (s: string) => {
+  if (!/^\d{4}-\d{2}-\d{2}$/.test(s)) return false;
+  const t = Date.parse(`${s}T00:00:00Z`);
+  return Number.isFinite(t) && new Date(t).toISOString().slice(0, 10) === s && Number(s.slice(0, 4)) >= 1900 && Number(s.slice(0, 4)) <= 2100;
+};
 
 export class WeatherService {
   readonly intake: WeatherIntakeService;
@@ -163,10 +172,16 @@ export class WeatherService {
   async issues(id: string, offset: number, limit: number): Promise<{ total: number; issues: IssueDto[] }> {
     const u = await this.upload(id);
     const rows = await this.repo.issuesPage(id, offset, limit);
+    // Every value stored now for the lines' station-days, so Correct starts from the whole row (issue 21).
+    const keys = new Map<string, { code: string; date: string }>();
+    for (const r of rows as { station: string | null; date: string | null }[])
+      if (r.station && r.date && isRealDate(r.date)) keys.set(`${r.station}|${r.date}`, { code: r.station, date: r.date });
+    const stored = await this.repo.storedDays([...keys.values()]);
     return {
       total: u.issueCount,
       issues: rows.map((r: any) => ({
         rowNumber: r.row_number, station: r.station, date: r.date, column: r.column, value: r.value, severity: r.severity, rule: r.rule, reason: r.reason,
+        params: r.params ?? null, stored: stored.get(`${r.station}|${r.date}`) ?? null,
       })),
     };
   }
@@ -231,6 +246,120 @@ export class WeatherService {
       });
       return { stationId: stationId, date: body.date, voided: { ...old, reason: body.reason }, districtsRecomputed: fed.length };
     });
+  }
+
+  // ---- held days (docs/weather-intake.md § Plausibility)
+  async held(limit = 500): Promise<{ total: number; held: HeldDayDto[] }> {
+    const { total, rows } = await this.repo.held(limit);
+    return {
+      total,
+      held: rows.map((r: any) => ({
+        stationId: r.station_id, station: r.station, date: r.date, tmin: r.tmin, tmax: r.tmax, rh: r.rh, rain: r.rain, uploadId: r.upload_id,
+        reasons: r.reasons,
+      })),
+    };
+  }
+
+  /**
+   * A person confirms a held station-day as true: the held bit goes, the districts it feeds are recomputed
+   * (so it counts in the series, the fingerprints and the next season run), with the reason in the audit.
+   */
+  async confirm(actor: Principal, body: ConfirmBody) {
+    return this.ctx.ds.transaction(async (manager) => {
+      const { stationId, y, i } = await this.lockedDay(manager, body.station, body.date);
+      if ((y.flags[i] & FLAG_BITS.held) === 0)
+        throw badRequest('not_held', 'This station-day is not held.', [{ path: 'date', message: 'is not held at this station' }]);
+      y.flags[i] &= ~FLAG_BITS.held;
+      await writeStationYearFlags(manager, [y]);
+      const districts = await this.recomputeFedBy(manager, stationId);
+      await recordAudit(manager, {
+        actorId: actor.userId, action: 'weather-day.confirmed', entity: 'weather_station', entityId: stationId,
+        before: { date: body.date, held: true, tmin: y.tmin[i], tmax: y.tmax[i], rh: nanToNull(y.rh[i]), rain: nanToNull(y.rain[i]) },
+        after: { held: false, districtsRecomputed: districts }, reason: body.reason,
+      });
+      return { stationId, date: body.date, districtsRecomputed: districts };
+    });
+  }
+
+  // ---- conflicts: hand corrections win (docs/weather-intake.md § Hand corrections win)
+  async conflicts(limit = 500): Promise<{ conflicts: ConflictDto[] }> {
+    const rows = await this.repo.openConflicts(limit);
+    return {
+      conflicts: rows.map((r: any) => ({
+        id: r.id, stationId: r.station_id, station: r.station, date: r.date,
+        current: r.cur_tmin === null ? null : { tmin: r.cur_tmin, tmax: r.cur_tmax, rh: r.cur_rh, rain: r.cur_rain },
+        incoming: { tmin: r.tmin, tmax: r.tmax, rh: r.rh, rain: r.rain },
+        uploadId: r.upload_id, source: r.source ?? 'feed', createdAt: new Date(r.created_at).toISOString(),
+      })),
+    };
+  }
+
+  /**
+   * Resolve an open conflict. keep: the hand correction stays (and keeps winning over later pulls).
+   * take: the incoming values replace it; the corrected values go to the revisions, the day's flags are
+   * cleared (the values were checked when they came in), and the districts it feeds are recomputed.
+   */
+  async resolveConflict(actor: Principal, id: string, body: ResolveConflictBody) {
+    return this.ctx.ds.transaction(async (manager) => {
+      const [c]: { station_id: string; code: string; date: string; tmin: number; tmax: number; rh: number | null; rain: number | null; upload_id: string; resolved_at: Date | null }[] =
+        await manager.query(
+          `SELECT c.station_id, s.code, to_char(c.date, 'YYYY-MM-DD') AS date, c.tmin, c.tmax, c.rh, c.rain, c.upload_id, c.resolved_at
+             FROM weather_observation_conflicts c JOIN weather_stations s ON s.id = c.station_id WHERE c.id = $1 FOR UPDATE OF c`,
+          [id],
+        );
+      if (!c) throw notFound('The conflict');
+      if (c.resolved_at) throw conflict('conflict_resolved', 'This conflict was already resolved.');
+      let districts = 0;
+      let before: Record<string, unknown> | null = null;
+      if (body.choice === 'take') {
+        const { stationId, y, i } = await this.lockedDay(manager, c.code, c.date);
+        before = { tmin: y.tmin[i], tmax: y.tmax[i], rh: nanToNull(y.rh[i]), rain: nanToNull(y.rain[i]), flags: flagNames(y.flags[i]) };
+        await manager.insert(WeatherObservationRevisionEntity, {
+          stationId, date: c.date, tmin: y.tmin[i], tmax: y.tmax[i], rh: nanToNull(y.rh[i]), rain: nanToNull(y.rain[i]), flags: flagNames(y.flags[i]),
+          previousUploadId: y.uploadIx[i] > 0 ? y.uploads[y.uploadIx[i] - 1] : null, replacedByUploadId: c.upload_id, replacedBy: actor.userId,
+          kind: 'replaced', reason: body.reason,
+        });
+        y.tmin[i] = c.tmin;
+        y.tmax[i] = c.tmax;
+        y.rh[i] = c.rh ?? Number.NaN;
+        y.rain[i] = c.rain ?? Number.NaN;
+        y.flags[i] = 0;
+        y.uploadIx[i] = uploadIndex(y, c.upload_id);
+        await writeStationYears(manager, [y]);
+        districts = await this.recomputeFedBy(manager, stationId);
+      }
+      await manager.query(
+        `UPDATE weather_observation_conflicts SET resolved_at = now(), resolved_by = $2, choice = $3, reason = $4 WHERE id = $1`,
+        [id, actor.userId, body.choice, body.reason],
+      );
+      await recordAudit(manager, {
+        actorId: actor.userId, action: 'weather-conflict.resolved', entity: 'weather_station', entityId: c.station_id,
+        before: { conflict: id, date: c.date, current: before, incoming: { tmin: c.tmin, tmax: c.tmax, rh: c.rh, rain: c.rain } },
+        after: { choice: body.choice, districtsRecomputed: districts }, reason: body.reason,
+      });
+      return { id, choice: body.choice, districtsRecomputed: districts };
+    });
+  }
+
+  /** A station-day's stored year, locked against intakes (400 naming the field when there is no such station or value). */
+  private async lockedDay(manager: EntityManager, code: string, date: string) {
+    const [found]: { id: string }[] = await manager.query('SELECT id FROM weather_stations WHERE code = $1', [code]);
+    if (!found) throw badRequest('unknown_station', 'No station has this code.', [{ path: 'station', message: 'is not a known station' }]);
+    const stationId = found.id;
+    const year = Number(date.slice(0, 4));
+    await manager.query('SELECT 1 FROM weather_station_years WHERE station_id = $1 AND year = $2 FOR UPDATE', [stationId, year]);
+    const y = (await readStationYears(manager, [{ stationId, year }])).get(stationYearKey(stationId, year));
+    const i = Date.parse(`${date}T00:00:00Z`) / 86_400_000 - yearStartDay(year);
+    if (!y || !(i >= 0 && i < y.tmin.length) || Number.isNaN(y.tmin[i]))
+      throw badRequest('no_value', 'The station has no value on this day.', [{ path: 'date', message: 'has no value at this station' }]);
+    return { stationId, y, i };
+  }
+
+  /** Recompute the series of every district this station feeds; how many. */
+  private async recomputeFedBy(manager: EntityManager, stationId: string): Promise<number> {
+    const fed: { district_id: string }[] = await manager.query('SELECT DISTINCT district_id FROM district_weather_sources WHERE station_id = $1', [stationId]);
+    await recomputeDistrictSeries(manager, fed.map((r) => r.district_id), this.ctx.config.WEATHER_FILL_MAX_DAYS);
+    return fed.length;
   }
 
   /** One corrected day: a one-row intake through the same checks; a rejected row is a 400 with the reasons. */

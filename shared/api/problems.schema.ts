@@ -13,7 +13,8 @@ export type ProblemReason = z.infer<typeof problemReason>;
 /**
  * A warning recorded on a season run. `district_failed` names the district and its `reason`; the other
  * codes (`no_profiles`, `missing_weather`, `no_position`, `tier_stale`, `tier_insufficient`) describe a
- * district that was computed with less than it should have. `message` is only on runs stored before
+ * district that was computed with less than it should have; `weather_held` (no district; params `count`,
+ * `stations`) says how many station-days of the season were held as implausible and left out. `message` is only on runs stored before
  * warnings became codes.
  */
 export const runWarning = z.object({

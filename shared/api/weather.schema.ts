@@ -112,6 +112,10 @@ export const uploadDto = z.object({
   rowsFlagged: z.number(),
   rowsRejected: z.number(),
   rowsReplaced: z.number(),
+  /** Rows held as implausible: stored, left out of the model and the tier until confirmed or corrected. */
+  rowsHeld: z.number().optional(),
+  /** Rows not applied because a person had corrected the day by hand (listed as conflicts to resolve). */
+  rowsConflicting: z.number().optional(),
   issueCount: z.number(),
   message: z.string().nullable(),
   /** Why the upload was refused or failed, as a stable code, and the values it names (a line, a limit). */
@@ -123,15 +127,30 @@ export const uploadDto = z.object({
 export type UploadDto = z.infer<typeof uploadDto>;
 export const uploadsResponse = z.object({ uploads: z.array(uploadDto) });
 
+/** The values stored now for a report line's station and day (°C, %, mm), and whether the day is still held. */
+export const storedDayDto = z.object({
+  tmin: z.number(),
+  tmax: z.number(),
+  rh: z.number().nullable(),
+  rain: z.number().nullable(),
+  held: z.boolean(),
+});
+export type StoredDayDto = z.infer<typeof storedDayDto>;
+
 export const issueDto = z.object({
   rowNumber: z.number().nullable(),
   station: z.string().nullable(),
   date: z.string().nullable(),
   column: z.string(),
   value: z.string().nullable(),
-  severity: z.enum(['rejected', 'flagged', 'filled']),
+  /** held: stored but left out of the model until a person confirms or corrects it (rule: the reason code). */
+  severity: z.enum(['rejected', 'flagged', 'filled', 'held']),
   rule: z.string(),
   reason: z.string(),
+  /** The figures a held line names: column, value, median, mad, z, n, basis ('station' | 'neighbours'), alternative. */
+  params: z.record(z.string(), z.union([z.string(), z.number(), z.null()])).nullish(),
+  /** The day as stored now (null: nothing stored), so a correction starts from every value of the row. */
+  stored: storedDayDto.nullish(),
 });
 export type IssueDto = z.infer<typeof issueDto>;
 export const issuesQuery = z.strictObject({
@@ -188,3 +207,47 @@ export const districtSeriesResponse = z.object({
 export type DistrictSeriesResponse = z.infer<typeof districtSeriesResponse>;
 
 export const feedPullResponse = uploadDto;
+
+/** Confirm held station-days as true values (admin, health officer): they then count in the series and the tier. */
+export const confirmBody = z.strictObject({
+  station: z.string().trim().min(1, { message: 'is required' }),
+  date: isoDate,
+  reason: voidBody.shape.reason,
+});
+export type ConfirmBody = z.infer<typeof confirmBody>;
+export const confirmResponse = z.object({ stationId: uuid, date: z.string(), districtsRecomputed: z.number() });
+
+const dayValues = z.object({ tmin: z.number(), tmax: z.number(), rh: z.number().nullable(), rain: z.number().nullable() });
+
+/** A held station-day and why it is held (the report lines of the intake that wrote it). */
+export const heldDayDto = dayValues.extend({
+  stationId: uuid,
+  station: z.string(),
+  date: z.string(),
+  uploadId: z.string().nullable(),
+  reasons: z.array(z.object({ rule: z.string(), column: z.string(), params: z.record(z.string(), z.union([z.string(), z.number(), z.null()])).nullable() })),
+});
+export type HeldDayDto = z.infer<typeof heldDayDto>;
+export const heldResponse = z.object({ total: z.number(), held: z.array(heldDayDto) });
+
+/** An open conflict: the hand-corrected values that stand, and the values a feed or an upload brought since. */
+export const conflictDto = z.object({
+  id: z.string(),
+  stationId: uuid,
+  station: z.string(),
+  date: z.string(),
+  current: dayValues.nullable(),
+  incoming: dayValues,
+  uploadId: z.string(),
+  source: z.enum(['upload', 'feed', 'correction']),
+  createdAt: z.string(),
+});
+export type ConflictDto = z.infer<typeof conflictDto>;
+export const conflictsResponse = z.object({ conflicts: z.array(conflictDto) });
+export const conflictParams = z.strictObject({ id: z.string().regex(/^[1-9][0-9]{0,17}$/, { message: 'must be a conflict number' }) });
+export const resolveConflictBody = z.strictObject({
+  choice: z.enum(['keep', 'take'], { message: 'must be keep or take' }),
+  reason: voidBody.shape.reason,
+});
+export type ResolveConflictBody = z.infer<typeof resolveConflictBody>;
+export const resolveConflictResponse = z.object({ id: z.string(), choice: z.enum(['keep', 'take']), districtsRecomputed: z.number() });

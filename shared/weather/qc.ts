@@ -62,7 +62,7 @@ const TEMPERATURE_COLUMNS = new Set(['tmin', 'tmax', 'dewpoint']);
 
 /**
  * The unit a row-report value is in: a rejected value is what the file said, in the upload's units; a
- * flagged or filled one is a stored value, in °C and mm. Null for a column without a unit.
+ * flagged, held or filled one is a stored value, in °C and mm. Null for a column without a unit.
  */
 export function issueValueUnit(
   issue: { column: string; severity: string },
@@ -113,9 +113,11 @@ export interface RowIssue {
   date: string | null;
   column: string;
   value: string | null;
-  severity: 'rejected' | 'flagged' | 'filled';
+  severity: 'rejected' | 'flagged' | 'filled' | 'held';
   rule: string;
   reason: string;
+  /** The figures a held line names (shared/weather/plausibility.ts). */
+  params?: Record<string, string | number | null>;
 }
 
 export interface CheckedRow {

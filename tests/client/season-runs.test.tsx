@@ -51,15 +51,18 @@ describe('season runs', () => {
       warnings: [
         { code: 'district_failed', districtId: 'd1', districtName: 'Pellam Highlands', params: { stage: 'compute' }, reason: { code: 'invalid_value', params: { fields: 'pupae' } } },
         { code: 'missing_weather', districtId: 'd2', districtName: 'Vell Marsh' },
+        { code: 'weather_held', params: { count: 20, stations: 'HV-UP-07' } },
       ],
     });
     const { c } = await open({ 'GET /api/season-runs': () => json(200, { runs: [done] }) });
-    await waitFor(() => expect(c.textContent).toContain('2 warnings'));
+    await waitFor(() => expect(c.textContent).toContain('3 warnings'));
     expect(c.textContent).toContain('11 / 12');
     expect(c.textContent).toContain('1 failed: Pellam Highlands');
     expect(c.textContent).toContain('Pellam Highlands was not computed: a stored value is not valid (pupae).');
     expect(c.textContent).toContain('Vell Marsh: no weather this season.');
-    expect(c.textContent).not.toMatch(/district_failed|invalid_value|missing_weather|\{"/);
+    // Issue 16: held weather is named in words on the run.
+    expect(c.textContent).toContain('20 station-days held as implausible (stations HV-UP-07) were left out of this run');
+    expect(c.textContent).not.toMatch(/district_failed|invalid_value|missing_weather|weather_held|\{"/);
     try {
       await i18n.changeLanguage('fr');
       await waitFor(() => expect(c.textContent).toContain('Pellam Highlands n’a pas été calculé\u202f: une valeur enregistrée n’est pas valide (pupae).'));

@@ -9,6 +9,7 @@ import { isApiError } from '../../lib/api-client';
 import { errorText } from '../../lib/error-text';
 import { usePullFeed } from './api/correct.api';
 import { useUploads } from './api/uploads.api';
+import { ConflictsList } from './components/conflicts.list';
 import { CorrectionForm } from './components/correction.form';
 import { UploadForm } from './components/upload.form';
 import { UploadResult } from './components/upload-result';
@@ -44,6 +45,7 @@ export function IntakePage() {
           {feed.isPending ? t('intake.pulling') : t('intake.pull')}
         </button>
       </div>
+      <ConflictsList />
       <div className="card">
         <CorrectionForm from={null} />
       </div>
@@ -60,6 +62,7 @@ export function IntakePage() {
                   {t(`intake.status.${u.status}`)}
                   {u.status === 'done'
                     ? ` · ${t('intake.counts', { accepted: number(u.rowsAccepted), flagged: number(u.rowsFlagged), rejected: number(u.rowsRejected) })}`
+                      + (u.rowsHeld ? ` · ${t('intake.heldCount', { held: number(u.rowsHeld) })}` : '')
                     : ''}
                 </span>
                 <button type="button" className="btn btn-secondary btn-small" onClick={() => setCurrent(u)}>

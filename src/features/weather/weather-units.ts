@@ -30,6 +30,7 @@ const KNOWN_RULES = { ...REJECT_RULES, ...FLAG_RULES } as Record<string, string>
  * row of a duplicate): in English it replaces the rule's text; in other languages it is shown under it.
  */
 export function issueReason(issue: IssueDto, units: Units, f: Formatters, t: TFunction<'weather'>, language: string): { text: string; detail: string | null } {
+  if (issue.severity === 'held') return { text: heldReasonText(issue, units, f, t), detail: null };
   const generic = KNOWN_RULES[issue.rule];
   if (!generic) return { text: issue.reason, detail: null };
   const specific = issue.reason !== generic;
@@ -42,4 +43,21 @@ export function issueReason(issue: IssueDto, units: Units, f: Formatters, t: TFu
         : `${f.number(units.toTemperature(LIMITS.tempMaxC), 0)} ${units.temperatureSymbol}`,
   });
   return { text, detail: specific && !language.startsWith('en') ? issue.reason : null };
+}
+
+/**
+ * Why a row is held, in words, from its reason code and figures (docs/weather-intake.md § Plausibility):
+ * the median of the sample and the modified z-score, and for a unit mix-up the value read in the other unit.
+ */
+export function heldReasonText(issue: IssueDto, units: Units, f: Formatters, t: TFunction<'weather'>): string {
+  const p = issue.params ?? {};
+  const num = (x: unknown) => (typeof x === 'number' ? x : Number.NaN);
+  const temp = (x: unknown) => `${f.number(units.toTemperature(num(x)), 1)} ${units.temperatureSymbol}`;
+  const isTemp = p.column !== 'rh';
+  return t(`report.held.${issue.rule}`, {
+    median: isTemp ? temp(p.median) : `${f.number(num(p.median), 0)} %`,
+    z: f.number(num(p.z), 1),
+    alternative: p.alternative === null || p.alternative === undefined ? '' : temp(p.alternative),
+    defaultValue: t('report.held.unlike_station_history', { median: isTemp ? temp(p.median) : `${f.number(num(p.median), 0)} %`, z: f.number(num(p.z), 1) }),
+  });
 }

@@ -15,6 +15,10 @@ export const weatherAccess: AccessTable = {
   'GET /weather/uploads/:id/issues': EDITORS,
   'PUT /weather/observations': EDITORS,
   'POST /weather/observations/void': EDITORS,
+  'POST /weather/observations/confirm': EDITORS,
+  'GET /weather/held': EDITORS,
+  'GET /weather/conflicts': EDITORS,
+  'POST /weather/conflicts/:id/resolve': EDITORS,
   'POST /weather/feed/pull': EDITORS,
   'GET /weather/districts/:id/series': ALL_SIGNED_IN,
 };

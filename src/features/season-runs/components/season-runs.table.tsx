@@ -74,6 +74,8 @@ export function warningText(w: RunWarning, t: TFunction): string {
     const key = w.params?.stage === 'write' ? 'warning.district_failed_write' : 'warning.district_failed_compute';
     return t(key, { district, reason: problemReasonText(w.reason) });
   }
+  if (w.code === 'weather_held')
+    return t('warning.weather_held', { n: String(w.params?.count ?? ''), stations: String(w.params?.stations ?? '') });
   const key = `warning.${w.code}`;
   if (i18n.exists(key, { ns: 'season-runs' })) return t(key, { district });
   // A run stored before warnings became codes kept its own words.

@@ -5,5 +5,6 @@ export const weatherKeys = {
   uploads: ['weather', 'uploads'] as const,
   upload: (id: string) => ['weather', 'uploads', id] as const,
   issues: (id: string, offset: number) => ['weather', 'uploads', id, 'issues', offset] as const,
+  conflicts: ['weather', 'conflicts'] as const,
   series: (districtId: string) => ['weather', 'series', districtId] as const,
 };

@@ -24,10 +24,13 @@ export function CorrectionForm({ from, onDone }: { from: IssueDto | null; onDone
   const [voided, setVoided] = useState(false);
   const [station, setStation] = useState(from?.station ?? '');
   const [date, setDate] = useState(from?.date ?? '');
-  const [tmin, setTmin] = useState('');
-  const [tmax, setTmax] = useState('');
-  const [rh, setRh] = useState('');
-  const [rain, setRain] = useState('');
+  // Correct starts from every value of the row as stored (issue 21: RH and rain were saved empty unless retyped).
+  const stored = from?.stored ?? null;
+  const shown = (x: number | null | undefined, to: (v: number) => number) => (x === null || x === undefined ? '' : String(round2(to(x))));
+  const [tmin, setTmin] = useState(shown(stored?.tmin, units.toTemperature));
+  const [tmax, setTmax] = useState(shown(stored?.tmax, units.toTemperature));
+  const [rh, setRh] = useState(shown(stored?.rh, (v) => v));
+  const [rain, setRain] = useState(stored?.rain === null || stored?.rain === undefined ? '' : String(Math.round(units.toRain(stored.rain) * 1000) / 1000));
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [outcome, setOutcome] = useState<{ kind: 'success' | 'error'; text: string } | null>(null);
   const labels = {

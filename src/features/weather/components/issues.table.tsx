@@ -5,7 +5,9 @@ import type { IssueDto, UploadDto } from '../../../../shared/api/weather.schema'
 import { DataTable, plainTableFeatures, type PlainTableFeatures } from '../../../components/data-table';
 import { useFormat } from '../../../i18n/format';
 import { useUnits } from '../../../lib/units';
+import { useConfirmDay } from '../api/confirm-day.api';
 import { ISSUES_PAGE, issuesCsvUrl, useIssues } from '../api/issues.api';
+import { ReasonAction } from './reason-action';
 import { issueReason, issueValue } from '../weather-units';
 
 const column = createColumnHelper<PlainTableFeatures, IssueDto>();
@@ -18,6 +20,7 @@ export function IssuesTable({ upload, onFix }: { upload: Pick<UploadDto, 'id' | 
   const uploadId = upload.id;
   const [offset, setOffset] = useState(0);
   const issues = useIssues(uploadId, offset, true);
+  const confirm = useConfirmDay();
   const columns = useMemo(
     () =>
       column.columns([
@@ -32,7 +35,7 @@ export function IssuesTable({ upload, onFix }: { upload: Pick<UploadDto, 'id' | 
         }),
         column.accessor('severity', {
           header: t('report.outcome'),
-          cell: (c) => <span className={c.getValue() === 'rejected' ? 'font-bold' : undefined}>{t(`report.severity.${c.getValue()}`)}</span>,
+          cell: (c) => <span className={c.getValue() === 'rejected' || c.getValue() === 'held' ? 'font-bold' : undefined}>{t(`report.severity.${c.getValue()}`)}</span>,
         }),
         column.accessor((i) => issueReason(i, units, format, t, i18n.language), {
           id: 'reason',
@@ -50,15 +53,29 @@ export function IssuesTable({ upload, onFix }: { upload: Pick<UploadDto, 'id' | 
         column.display({
           id: 'fix',
           header: t('report.fix'),
-          cell: ({ row }) =>
-            onFix && row.original.severity === 'rejected' && row.original.station && row.original.date ? (
-              <button type="button" className="btn btn-secondary btn-small" onClick={() => onFix(row.original)}>
-                {t('report.correct')}
-              </button>
-            ) : null,
+          cell: ({ row }) => {
+            const i = row.original;
+            if (!onFix || !i.station || !i.date || i.severity === 'filled') return null;
+            const { station, date } = i;
+            // A held day still held offers Confirm beside Correct (each with its own reason in the audit trail).
+            return (
+              <div className="flex flex-wrap gap-2">
+                <button type="button" className="btn btn-secondary btn-small" onClick={() => onFix(i)}>
+                  {t('report.correct')}
+                </button>
+                {i.severity === 'held' && i.stored?.held ? (
+                  <ReasonAction
+                    label={t('report.confirm')}
+                    title={t('report.confirmTitle', { station, date })}
+                    onAct={(reason) => confirm.mutateAsync({ station, date, reason })}
+                  />
+                ) : null}
+              </div>
+            );
+          },
         }),
       ]),
-    [onFix, t, i18n.language, upload, units, format],
+    [onFix, t, i18n.language, upload, units, format, confirm],
   );
   const data = issues.data?.issues ?? [];
   const table = useTable({ features: plainTableFeatures, columns, data, getRowId: (_r, i) => String(offset + i) });

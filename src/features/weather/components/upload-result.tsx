@@ -53,12 +53,14 @@ export function UploadResult({ initial }: { initial: UploadDto }) {
       {u.status === 'refused' || u.status === 'failed' ? <RefusalMessage upload={u} /> : null}
       {u.status === 'done' ? (
         <>
-          <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+          <dl className="grid grid-cols-2 gap-3 sm:grid-cols-3">
             {[
               [t('result.accepted'), u.rowsAccepted],
               [t('result.flagged'), u.rowsFlagged],
               [t('result.rejected'), u.rowsRejected],
               [t('result.replaced'), u.rowsReplaced],
+              [t('result.held'), u.rowsHeld ?? 0],
+              [t('result.conflicting'), u.rowsConflicting ?? 0],
             ].map(([label, value]) => (
               <div key={label as string} className="rounded-md border border-line p-3">
                 <dt className="text-sm text-ink-muted">{label}</dt>
@@ -66,6 +68,8 @@ export function UploadResult({ initial }: { initial: UploadDto }) {
               </div>
             ))}
           </dl>
+          {u.rowsHeld ? <FormMessage kind="info">{t('result.heldNotice')}</FormMessage> : null}
+          {u.rowsConflicting ? <FormMessage kind="info">{t('result.conflictingNotice')}</FormMessage> : null}
           {u.message ? <FormMessage kind="info">{u.message}</FormMessage> : null}
           <IssuesTable upload={u} onFix={setFixing} />
           {fixing ? <CorrectionForm key={`${fixing.station}-${fixing.date}-${fixing.rowNumber}`} from={fixing} /> : null}
