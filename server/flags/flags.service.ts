@@ -50,7 +50,8 @@ async function insertFlag(manager: EntityManager, row: Partial<FlagEntity>, acto
  * newer flag can take their place in the queue (the partial unique index holds one open flag per reason).
  */
 async function storeLapsed(manager: EntityManager, districtId: string, reasons: FlagReason[]): Promise<void> {
-  const lapsed: { id: string; version: number }[] = await manager.query(
+  // An UPDATE … RETURNING answers [rows, affected count] through TypeORM's query().
+  const [lapsed]: [{ id: string; version: number }[], number] = await manager.query(
     `UPDATE flags f SET status = 'lapsed', version = version + 1
       WHERE f.district_id = $1 AND f.reason = ANY($2) AND f.status = 'open' AND ${lapsedSql('f')}
       RETURNING f.id, f.version`,
