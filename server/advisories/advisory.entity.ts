@@ -1,5 +1,5 @@
-import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
-import type { ActionDto } from '../../shared/api/flags.schema';
+import { Check, Column, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import type { ActionDto, MessageCode, MessageParams } from '../../shared/api/flags.schema';
 import { DistrictEntity } from '../districts/district.entity';
 import { FlagEntity } from '../flags/flag.entity';
 import { UserEntity } from '../users/user.entity';
@@ -7,6 +7,7 @@ import { UserEntity } from '../users/user.entity';
 /** An approved flag as sent to the people of a district. Current until `expires_at` (then it leaves the bulletin). */
 @Entity({ name: 'advisories' })
 @Index('advisories_district_idx', ['districtId', 'issuedAt'])
+@Check('advisories_message_code_check', "message_code IS NULL OR message_code IN ('diapause', 'zero-suitability', 'no-signal', 'case-signal-only', 'case-led', 'weather-led', 'larval-led', 'mixed', 'custom')")
 export class AdvisoryEntity {
   @PrimaryGeneratedColumn('uuid')
   id: string;
@@ -29,8 +30,16 @@ export class AdvisoryEntity {
   @Column({ type: 'text', nullable: true })
   tier: string | null;
 
+  /** The message in English (or as the supervisor wrote it), for the record. */
   @Column({ type: 'text' })
   message: string;
+
+  /** The message as a code and its numbers, worded in each reader's language; null on advisories issued before. */
+  @Column({ name: 'message_code', type: 'text', nullable: true })
+  messageCode: MessageCode | null;
+
+  @Column({ name: 'message_params', type: 'jsonb', nullable: true })
+  messageParams: MessageParams | null;
 
   @Column({ type: 'jsonb' })
   actions: ActionDto[];

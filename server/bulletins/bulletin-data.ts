@@ -7,7 +7,9 @@ import type { Principal } from '../auth/principal';
 import { presentBoard } from '../board/board.presenter';
 import { BoardRepository } from '../board/board.repository';
 import { DistrictFileService } from '../board/district-file.service';
-import { actionsOf, type SuggestionInput } from '../flags/flag-texts';
+import { type AdvisoryMessage } from '../../shared/api/flags.schema';
+import { actionsOf } from '../flags/flag-texts';
+import { ADVISORY_MESSAGE_COLUMNS, advisoryComposed, type AdvisoryMessageRecord } from '../flags/flags.presenter';
 import type { Language } from '../i18n';
 import { BulletinTranslationEntity } from './bulletin-translation.entity';
 import { bulletinHtml, bulletinPdf, bulletinSubject, bulletinText } from './bulletin.render';
@@ -30,8 +32,8 @@ export interface BulletinData {
   ranking: { rank: number; code: string; name: string; tier: Tier; score: number; confidence: string; isThis: boolean }[];
   tierHistory: { week: number; tier: Tier; score: number }[];
   cases: { diseaseName: string; weeks: CaseWeek[] }[];
-  /** Open advisories; `flag` holds the facts its message was written from (to write it again in the reader's language). */
-  advisories: { issuedAt: string; tier: Tier | null; message: string; flag: Omit<SuggestionInput, 'language'> | null }[];
+  /** Open advisories; `composed` is the message as code and numbers (worded in the reader's language), null for an old one a person wrote. */
+  advisories: { issuedAt: string; tier: Tier | null; message: string; composed: AdvisoryMessage | null }[];
   actions: ActionDto[];
 }
 
@@ -66,12 +68,9 @@ export class BulletinDataReader {
     const file = await this.files.file(SYSTEM, districtId, ladder.epiYear);
     const week = ladder.epiWeek;
     const tierRow = file.tiers.find((t) => t.epiYear === ladder.epiYear && t.epiWeek === week) ?? null;
-    const advisories: {
-      issued_at: Date; tier: Tier | null; message: string; reason: SuggestionInput['reason'] | null; flag_tier: Tier | null;
-      previous_tier: Tier | null; drivers: SuggestionInput['drivers'] | null; note: string | null;
-    }[] = await this.ctx.ds.query(
-      `SELECT a.issued_at, a.tier, a.message, f.reason, f.tier AS flag_tier, f.previous_tier, f.drivers, f.note
-         FROM advisories a LEFT JOIN flags f ON f.id = a.flag_id
+    const advisories: (AdvisoryMessageRecord & { issued_at: Date; tier: Tier | null })[] = await this.ctx.ds.query(
+      `SELECT a.issued_at, a.tier, ${ADVISORY_MESSAGE_COLUMNS}
+         FROM advisories a JOIN districts d ON d.id = a.district_id LEFT JOIN flags f ON f.id = a.flag_id
         WHERE a.district_id = $1 AND a.expires_at > now() ORDER BY a.issued_at DESC`,
       [districtId],
     );
@@ -96,10 +95,7 @@ export class BulletinDataReader {
       tierHistory: file.tiers.filter((t) => t.epiWeek <= week).map((t) => ({ week: t.epiWeek, tier: t.tier, score: t.score })),
       cases,
       advisories: advisories.map((a) => ({
-        issuedAt: new Date(a.issued_at).toISOString(), tier: a.tier, message: a.message,
-        flag: a.reason
-          ? { districtName: file.district.name, reason: a.reason, tier: a.flag_tier, previousTier: a.previous_tier, drivers: a.drivers ?? [], note: a.note }
-          : null,
+        issuedAt: new Date(a.issued_at).toISOString(), tier: a.tier, message: a.message, composed: advisoryComposed(a),
       })),
       actions: actionsForTier(tierRow?.tier ?? null),
     };

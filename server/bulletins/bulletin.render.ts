@@ -1,5 +1,5 @@
 import PDFDocument from 'pdfkit';
-import { DRIVER_LABELS, type Tier } from '../../shared/tier';
+import { DRIVER_LABELS, shareOf, type Tier } from '../../shared/tier';
 import { actionIn } from '../advisories/advisory.mails';
 import { messageFor } from '../flags/flag-texts';
 import { DEFAULT_LANGUAGE, formatFor, pdfText, textsFor, type Language } from '../i18n';
@@ -68,7 +68,7 @@ const caseVars = (wk: CaseWeek, w: Words) => ({ week: wk.week, count: wk.count ?
 const labelled = (label: string, text: string, w: Words) => w.c('labelled', { label, text });
 const driverName = (dr: { id: string }, w: Words) => w.c(`drivers.${dr.id}`);
 const advisoryLine = (a: BulletinData['advisories'][number], w: Words) => {
-  const vars = { date: w.date(a.issuedAt), message: messageFor(w.language, a.message, a.flag) };
+  const vars = { date: w.date(a.issuedAt), message: messageFor(w.language, a.message, a.composed) };
   return a.tier ? w.t('advisoryItemTier', { ...vars, tier: w.tier(a.tier) }) : w.t('advisoryItem', vars);
 };
 const weekLine = (d: BulletinData, w: Words) =>
@@ -88,7 +88,7 @@ export function bulletinText(d: BulletinData, language: Language = DEFAULT_LANGU
   if (d.tier) {
     out.push(t('driversHeading'));
     for (const dr of d.tier.drivers)
-      out.push(`- ${labelled(driverName(dr, w), dr.score === null ? t('driverNoData') : t('driverLine', { score: w.score(dr.score), weight: w.f.number(dr.weight, 2), share: w.pct(dr.contribution) }), w)}`);
+      out.push(`- ${labelled(driverName(dr, w), dr.score === null ? t('driverNoData') : t('driverLine', { score: w.score(dr.score), weight: w.f.number(dr.weight, 2), share: w.pct(shareOf(d.tier.drivers, dr.id)) }), w)}`);
     for (const n of d.tier.notes) out.push(`  ${t('note', { note: noteIn(n, w) })}`);
     out.push('');
   }
@@ -147,7 +147,7 @@ export function bulletinHtml(d: BulletinData, language: Language = DEFAULT_LANGU
   if (d.tier) {
     parts.push(`<h2 style="font-size:16px">${e(t('driversHeading'))}</h2><table style="border-collapse:collapse"><tr><th ${td}>${e(t('table.driver'))}</th><th ${td}>${e(t('table.score'))}</th><th ${td}>${e(t('table.weight'))}</th><th ${td}>${e(t('table.share'))}</th></tr>`);
     for (const dr of d.tier.drivers)
-      parts.push(`<tr><td ${td}>${e(driverName(dr, w))}</td><td ${td}>${dr.score === null ? e(t('noData')) : w.score(dr.score)}</td><td ${td}>${w.f.number(dr.weight, 2)}</td><td ${td}>${e(w.pct(dr.contribution))}</td></tr>`);
+      parts.push(`<tr><td ${td}>${e(driverName(dr, w))}</td><td ${td}>${dr.score === null ? e(t('noData')) : w.score(dr.score)}</td><td ${td}>${w.f.number(dr.weight, 2)}</td><td ${td}>${e(w.pct(shareOf(d.tier.drivers, dr.id)))}</td></tr>`);
     parts.push('</table>');
     if (d.tier.notes.length) parts.push(`<ul style="font-size:13px;color:#555">${d.tier.notes.map((n) => `<li>${e(noteIn(n, w))}</li>`).join('')}</ul>`);
   }
@@ -221,7 +221,7 @@ export function bulletinPdf(d: BulletinData, language: Language = DEFAULT_LANGUA
         const below = doc.y;
         doc.rect(left + 160, y + 1, 200, 9).stroke('#999999');
         if (dr.score !== null) doc.rect(left + 160, y + 1, 200 * Math.min(1, dr.score), 9).fill('#94508a');
-        doc.fillColor('#1d2026').text(p(dr.score === null ? t('noData') : t('driverPdfLine', { score: w.score(dr.score), share: w.pct(dr.contribution) })), left + 370, y, { width: width - 370 });
+        doc.fillColor('#1d2026').text(p(dr.score === null ? t('noData') : t('driverPdfLine', { score: w.score(dr.score), share: w.pct(shareOf(d.tier.drivers, dr.id)) })), left + 370, y, { width: width - 370 });
         doc.y = Math.max(doc.y, below, y + 14);
       }
     }

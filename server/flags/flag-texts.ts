@@ -1,6 +1,6 @@
-import { ACTIONS, type ActionDto, type ActionId, type FlagReason } from '../../shared/api/flags.schema';
-import { LANGUAGES } from '../../shared/api/auth.schema';
-import { tierRank, type DriverResult, type Tier } from '../../shared/tier';
+import { ACTIONS, type ActionDto, type ActionId, type AdvisoryMessage, type FlagReason, type MessageCode, type MessageParams } from '../../shared/api/flags.schema';
+import { renderMessageWith } from '../../shared/flags/advisory-message';
+import { tierRank, type Tier } from '../../shared/tier';
 import { DEFAULT_LANGUAGE, formatFor, textsFor, type Language } from '../i18n';
 
 /**
@@ -16,61 +16,23 @@ export function suggestedActions(reason: FlagReason, tier: Tier | null): ActionD
   return actionsOf(['source-reduction', 'larval-survey']);
 }
 
-/** The drivers that weigh most, in words: "Case signal (41% of the score) and Climate suitability (30%)". */
-export function topDrivers(drivers: Pick<DriverResult, 'id' | 'contribution'>[], n = 2, language: Language = DEFAULT_LANGUAGE): string {
-  const t = textsFor(language, 'flags');
-  const c = textsFor(language, 'common');
+/**
+ * A message stored as code and numbers, in one language (the server's side of shared/flags/advisory-message.ts;
+ * the client words the same keys with its own texts).
+ */
+export function renderMessage(code: MessageCode, params: MessageParams, language: Language = DEFAULT_LANGUAGE): string {
   const f = formatFor(language);
-  const used = [...drivers].filter((d) => d.contribution > 0).sort((a, b) => b.contribution - a.contribution).slice(0, n);
-  const total = drivers.reduce((a, d) => a + d.contribution, 0) || 1;
-  return used
-    .map((d, i) => t(i === 0 ? 'driverFirst' : 'driverOther', { driver: c(`drivers.${d.id}`), share: f.percent(d.contribution / total) }))
-    .join(t('and'));
-}
-
-const WHY_KEY: Record<FlagReason, string> = { 'tier-rise': 'why.tierRise', 'channel-above': 'why.channelAbove', 'case-alarm': 'why.caseAlarm', manual: 'why.manual' };
-
-export interface SuggestionInput {
-  districtName: string;
-  reason: FlagReason;
-  tier: Tier | null;
-  previousTier: Tier | null;
-  drivers: Pick<DriverResult, 'id' | 'contribution'>[];
-  note?: string | null;
-  /** The language to write in; English by default (the season run writes its flags in it). */
-  language?: Language;
-}
-
-/** The advisory Broodcast proposes for a flag; the supervisor may edit it before approving. */
-export function suggestedMessage(input: SuggestionInput): string {
-  const language = input.language ?? DEFAULT_LANGUAGE;
   const t = textsFor(language, 'flags');
-  const c = textsFor(language, 'common');
-  const tierWords = input.tier
-    ? input.previousTier && input.previousTier !== input.tier
-      ? t('tierUp', { tier: c(`tiers.${input.tier}`), previous: c(`tiers.${input.previousTier}`) })
-      : c(`tiers.${input.tier}`)
-    : null;
-  const district = input.districtName;
-  let why: string;
-  if (input.reason === 'tier-rise') why = tierWords ? t('why.tierRise', { district, tier: tierWords }) : t('why.tierRiseNext', { district });
-  else if (input.reason === 'manual') why = input.note ? t('why.manualNote', { district, note: input.note }) : t('why.manual', { district });
-  else why = t(WHY_KEY[input.reason], { district });
-  const lines = [why];
-  if (input.reason !== 'tier-rise' && tierWords) lines.push(t('tierIs', { tier: tierWords }));
-  const top = topDrivers(input.drivers, 2, language);
-  if (top) lines.push(t('weighsMost', { drivers: top }));
-  lines.push(t('act'), t('estimate'));
-  return lines.join(' ');
+  return renderMessageWith({ t: (key, vars) => t(key, vars), percent: (x) => f.percent(x), date: (iso) => f.date(iso) }, { code, params });
 }
+
+/** The English wording kept for the record (flags.suggested_message, advisories.message, the audit trail). */
+export const englishMessage = (m: AdvisoryMessage): string => renderMessage(m.code, m.params, 'en');
 
 /**
- * The advisory's message for one reader. A message the supervisor approved as Broodcast suggested it
- * (in any of the languages) is written again in the reader's language from the flag's own facts; a
- * message a person wrote or edited is sent exactly as approved.
+ * An advisory's message for one reader: worded from its code in the reader's language; an advisory issued
+ * before messages were composed has only its stored text (`composed` null), shown as stored.
  */
-export function messageFor(language: Language, approved: string, flag: Omit<SuggestionInput, 'language'> | null): string {
-  if (!flag) return approved;
-  const generated = LANGUAGES.some((l) => suggestedMessage({ ...flag, language: l }) === approved);
-  return generated ? suggestedMessage({ ...flag, language }) : approved;
+export function messageFor(language: Language, stored: string, composed: AdvisoryMessage | null): string {
+  return composed ? renderMessage(composed.code, composed.params, language) : stored;
 }

@@ -1,5 +1,5 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
-import type { ActionDto, FlagReason, FlagStatus } from '../../shared/api/flags.schema';
+import type { ActionDto, FlagReason, FlagStatus, MessageCode, MessageParams } from '../../shared/api/flags.schema';
 import type { DriverResult } from '../../shared/tier';
 import { DistrictEntity } from '../districts/district.entity';
 import { UserEntity } from '../users/user.entity';
@@ -15,8 +15,9 @@ import { UserEntity } from '../users/user.entity';
 @Index('flags_open_key', ['districtId', 'reason'], { unique: true, where: "status = 'open'" })
 @Check('flags_reason_check', "reason IN ('tier-rise', 'channel-above', 'case-alarm', 'manual')")
 @Check('flags_source_check', "source IN ('season-run', 'manual')")
-@Check('flags_status_check', "status IN ('open', 'approved', 'rejected')")
-@Check('flags_decision_check', "(status = 'open') = (decided_at IS NULL)")
+@Check('flags_status_check', "status IN ('open', 'lapsed', 'approved', 'rejected')")
+@Check('flags_decision_check', "(status IN ('open', 'lapsed')) = (decided_at IS NULL)")
+@Check('flags_message_code_check', "message_code IS NULL OR message_code IN ('diapause', 'zero-suitability', 'no-signal', 'case-signal-only', 'case-led', 'weather-led', 'larval-led', 'mixed', 'custom')")
 export class FlagEntity {
   @PrimaryGeneratedColumn('uuid')
   id: string;
@@ -57,15 +58,27 @@ export class FlagEntity {
   @Column({ type: 'jsonb' })
   drivers: DriverResult[];
 
+  /** The suggested message in English, as written when the flag was raised (kept for the record and the audit). */
   @Column({ name: 'suggested_message', type: 'text' })
   suggestedMessage: string;
+
+  /** The suggested message as a code and the numbers it is worded from (shared/flags/advisory-message.ts); null on flags raised before. */
+  @Column({ name: 'message_code', type: 'text', nullable: true })
+  messageCode: MessageCode | null;
+
+  @Column({ name: 'message_params', type: 'jsonb', nullable: true })
+  messageParams: MessageParams | null;
 
   @Column({ type: 'jsonb' })
   actions: ActionDto[];
 
-  /** What the person who raised it by hand saw. */
+  /** What the person who raised it by hand saw: an internal note, never public. */
   @Column({ type: 'text', nullable: true })
   note: string | null;
+
+  /** The public message the person who raised it by hand wrote (null: composed from the numbers). */
+  @Column({ name: 'public_message', type: 'text', nullable: true })
+  publicMessage: string | null;
 
   @Column({ name: 'raised_by', type: 'uuid', nullable: true })
   raisedBy: string | null;

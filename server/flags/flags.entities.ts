@@ -5,10 +5,12 @@ import { SubscriptionEntity } from '../bulletins/subscription.entity';
 import { OutboxAttemptEntity } from '../outbox/outbox-attempt.entity';
 import { OutboxMessageEntity } from '../outbox/outbox-message.entity';
 import { FlagEntity } from './flag.entity';
+import { FlagSettingsEntity } from './flag-settings.entity';
 
 /** Flags, sign-off, advisories, subscriptions, bulletins and the mail outbox (issue 7). */
 export const flagsEntities: Function[] = [
   FlagEntity,
+  FlagSettingsEntity,
   AdvisoryEntity,
   SubscriptionEntity,
   BulletinEntity,

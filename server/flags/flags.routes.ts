@@ -1,14 +1,16 @@
-import { advisoriesQuery, approveFlagBody, flagsQuery, raiseFlagBody, rejectFlagBody } from '../../shared/api/flags.schema';
+import { advisoriesQuery, approveFlagBody, flagSettingsBody, flagsQuery, raiseFlagBody, rejectFlagBody } from '../../shared/api/flags.schema';
 import { idParams } from '../../shared/api/common.schema';
 import { AdvisoriesService } from '../advisories/advisories.service';
 import type { AppContext } from '../app-context';
 import { defineRoute, type RouteDef } from '../http/route';
+import { FlagSettingsService } from './flag-settings.service';
 import { FlagsService } from './flags.service';
 
 /** Flags (raise by hand, the sign-off queue, approve / reject) and the advisories they became. */
 export function flagsRoutes(ctx: AppContext): RouteDef[] {
   const flags = new FlagsService(ctx);
   const advisories = new AdvisoriesService(ctx);
+  const settings = new FlagSettingsService(ctx);
   return [
     defineRoute({
       method: 'get', path: '/flags', access: ['admin', 'officer', 'epidemiologist', 'supervisor'], query: flagsQuery,
@@ -29,6 +31,14 @@ export function flagsRoutes(ctx: AppContext): RouteDef[] {
     defineRoute({
       method: 'post', path: '/flags/:id/reject', access: ['supervisor'], params: idParams, body: rejectFlagBody,
       handler: ({ principal, params, body }) => flags.reject(principal, params.id, body),
+    }),
+    defineRoute({
+      method: 'get', path: '/flag-settings', access: ['admin'],
+      handler: () => settings.get(),
+    }),
+    defineRoute({
+      method: 'put', path: '/flag-settings', access: ['admin'], body: flagSettingsBody,
+      handler: ({ principal, body }) => settings.update(principal, body),
     }),
     defineRoute({
       method: 'get', path: '/advisories', access: 'signed-in', query: advisoriesQuery,

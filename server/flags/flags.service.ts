@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
-import type { ApproveFlagBody, FlagDetailResponse, FlagDto, FlagReason, RaiseFlagBody, RejectFlagBody } from '../../shared/api/flags.schema';
+import type { AdvisoryMessage, ApproveFlagBody, FlagDetailResponse, FlagDto, FlagReason, FlagStatus, RaiseFlagBody, RejectFlagBody } from '../../shared/api/flags.schema';
+import { composeMessage, customMessage } from '../../shared/flags/advisory-message';
 import { TIERS, tierRank, type DriverResult, type Tier, type TierResult } from '../../shared/tier';
 import { advisoryMail } from '../advisories/advisory.mails';
 import { AdvisoryEntity } from '../advisories/advisory.entity';
@@ -10,9 +11,9 @@ import { recipientsOf, subscriberLinks } from '../bulletins/subscriptions.servic
 import { languageHeaders } from '../bulletins/bulletin-texts';
 import { badRequest, conflict, forbidden, notFound } from '../http/errors';
 import { enqueueMail } from '../outbox/outbox.repository';
-import { actionsOf, messageFor, suggestedActions, suggestedMessage } from './flag-texts';
+import { actionsOf, englishMessage, renderMessage, suggestedActions } from './flag-texts';
 import { FlagEntity } from './flag.entity';
-import { FLAG_SELECT, presentFlag, type FlagRecord } from './flags.presenter';
+import { FLAG_SELECT, LAPSE_WEEKS_SQL, lapsedSql, presentFlag, type FlagRecord } from './flags.presenter';
 
 const asTier = (t: string | null | undefined): Tier | null => (t && (TIERS as readonly string[]).includes(t) ? (t as Tier) : null);
 const casesDetail = (drivers: DriverResult[] | null | undefined) => drivers?.find((d) => d.id === 'cases')?.detail ?? null;
@@ -32,6 +33,7 @@ export interface SeasonFlagInput {
 
 /** Insert a flag unless one is open for the district and reason (the partial unique index decides); audited. */
 async function insertFlag(manager: EntityManager, row: Partial<FlagEntity>, actorId: string | null): Promise<string | null> {
+  await storeLapsed(manager, row.districtId!, [row.reason!]);
   const result = await manager.createQueryBuilder().insert().into(FlagEntity).values(row).orIgnore().returning(['id']).execute();
   const id: string | undefined = result.raw[0]?.id;
   if (!id) return null;
@@ -41,6 +43,25 @@ async function insertFlag(manager: EntityManager, row: Partial<FlagEntity>, acto
     reason: row.note ?? null,
   });
   return id;
+}
+
+/**
+ * Open flags of a district and reason that have lapsed on read are stored as lapsed (audited), so that a
+ * newer flag can take their place in the queue (the partial unique index holds one open flag per reason).
+ */
+async function storeLapsed(manager: EntityManager, districtId: string, reasons: FlagReason[]): Promise<void> {
+  // An UPDATE … RETURNING answers [rows, affected count] through TypeORM's query().
+  const [lapsed]: [{ id: string; version: number }[], number] = await manager.query(
+    `UPDATE flags f SET status = 'lapsed', version = version + 1
+      WHERE f.district_id = $1 AND f.reason = ANY($2) AND f.status = 'open' AND ${lapsedSql('f')}
+      RETURNING f.id, f.version`,
+    [districtId, reasons],
+  );
+  for (const l of lapsed)
+    await recordAudit(manager, {
+      actorId: null, action: 'flag.lapsed', entity: 'flag', entityId: l.id,
+      before: { status: 'open', version: l.version - 1 }, after: { status: 'lapsed', version: l.version },
+    });
 }
 
 /**
@@ -63,6 +84,7 @@ export async function raiseSeasonFlags(manager: EntityManager, input: SeasonFlag
   if (reasons.length === 0) return [];
 
   const [district] = await manager.query(`SELECT name FROM districts WHERE id = $1`, [input.districtId]);
+  await storeLapsed(manager, input.districtId, reasons);
   const already: { reason: string }[] = await manager.query(
     `SELECT reason FROM flags WHERE district_id = $1 AND reason = ANY($2)
         AND (status = 'open' OR (source = 'season-run' AND epi_year = $3 AND epi_week = $4))`,
@@ -70,33 +92,42 @@ export async function raiseSeasonFlags(manager: EntityManager, input: SeasonFlag
   );
   const ids: string[] = [];
   for (const reason of reasons.filter((r) => !already.some((a) => a.reason === r))) {
+    const message = composeMessage({
+      district: district?.name ?? '', reason, tier: now, previousTier: before, epiYear: input.epiYear, epiWeek: input.epiWeek, drivers: tier.drivers,
+    });
     const id = await insertFlag(manager, {
       districtId: input.districtId, reason, source: 'season-run', status: 'open', tier: now, previousTier: before,
       epiYear: input.epiYear, epiWeek: input.epiWeek, runId: input.runId, drivers: tier.drivers,
-      suggestedMessage: suggestedMessage({ districtName: district?.name ?? 'the district', reason, tier: now, previousTier: before, drivers: tier.drivers }),
-      actions: suggestedActions(reason, now), note: null, raisedBy: null,
+      suggestedMessage: englishMessage(message), messageCode: message.code, messageParams: message.params,
+      actions: suggestedActions(reason, now), note: null, publicMessage: null, raisedBy: null,
     }, null);
     if (id) ids.push(id);
   }
   return ids;
 }
 
-/** Flags raised by hand, the sign-off queue and its decisions. */
+
+/** Flags raised by hand, the sign-off queue (open, lapsed) and its decisions. */
 export class FlagsService {
   constructor(private readonly ctx: AppContext) {}
 
-  /** Open flags come highest tier first, then newest; decided ones newest first. */
-  async list(query: { status: 'open' | 'approved' | 'rejected' | 'all'; districtId?: string }): Promise<{ flags: FlagDto[] }> {
+  /**
+   * The queue: open flags, highest tier first, then newest. An open flag older than the flag settings
+   * allow is listed as `lapsed` (lapse on read), no longer as open. Decided ones newest first.
+   */
+  async list(query: { status: FlagStatus | 'all'; districtId?: string }): Promise<{ flags: FlagDto[]; lapseWeeks: number }> {
     const rows: FlagRecord[] = await this.ctx.ds.query(
-      `${FLAG_SELECT}
-        WHERE ($1 = 'all' OR f.status = $1) AND ($2::uuid IS NULL OR f.district_id = $2)
-        ORDER BY (f.status = 'open') DESC,
-                 CASE WHEN f.status = 'open' THEN array_position(ARRAY['baseline', 'raised', 'high', 'critical'], f.tier) END DESC NULLS LAST,
-                 f.created_at DESC
+      `WITH q AS (${FLAG_SELECT})
+       SELECT * FROM q
+        WHERE ($1 = 'all' OR (CASE WHEN q.lapsed THEN 'lapsed' ELSE q.status END) = $1) AND ($2::uuid IS NULL OR q.district_id = $2)
+        ORDER BY (q.status = 'open' AND NOT q.lapsed) DESC,
+                 CASE WHEN q.status = 'open' AND NOT q.lapsed THEN array_position(ARRAY['baseline', 'raised', 'high', 'critical'], q.tier) END DESC NULLS LAST,
+                 q.created_at DESC
         LIMIT 500`,
       [query.status, query.districtId ?? null],
     );
-    return { flags: rows.map(presentFlag) };
+    const [{ weeks }] = await this.ctx.ds.query(`SELECT ${LAPSE_WEEKS_SQL} AS weeks`);
+    return { flags: rows.map(presentFlag), lapseWeeks: weeks };
   }
 
   async get(id: string, manager: EntityManager = this.ctx.ds.manager): Promise<FlagDto> {
@@ -124,35 +155,53 @@ export class FlagsService {
     };
   }
 
-  /** A health officer (any district) or an epidemiologist (assigned districts) raises a flag by hand. */
+  /**
+   * A health officer (any district) or an epidemiologist (assigned districts) raises a flag by hand. The
+   * note is internal (for the supervisor); the public message is theirs when given, else composed from
+   * the district's newest tier and drivers. The note is never part of the public message.
+   */
   async raise(p: Principal, body: RaiseFlagBody): Promise<FlagDto> {
     assertAssigned(p, body.districtId);
     return this.ctx.ds.transaction(async (manager) => {
       const [district] = await manager.query(`SELECT id, name FROM districts WHERE id = $1`, [body.districtId]);
       if (!district) throw badRequest('unknown_district', 'The district does not exist.', [{ path: 'districtId', message: 'is not a district' }]);
       const [latest] = await manager.query(
-        `SELECT tier, drivers, epi_year, epi_week FROM district_tiers WHERE district_id = $1 ORDER BY epi_year DESC, epi_week DESC LIMIT 1`,
+        `SELECT tier, drivers, epi_year, epi_week, run_id FROM district_tiers WHERE district_id = $1 ORDER BY epi_year DESC, epi_week DESC LIMIT 1`,
         [body.districtId],
       );
       const tier = asTier(latest?.tier);
       const drivers: DriverResult[] = latest?.drivers ?? [];
+      const facts = { district: district.name, reason: 'manual' as const, tier, previousTier: null, epiYear: latest?.epi_year ?? null, epiWeek: latest?.epi_week ?? null };
+      const message: AdvisoryMessage = body.message ? customMessage(body.message, facts) : composeMessage({ ...facts, drivers });
       const id = await insertFlag(manager, {
         districtId: body.districtId, reason: 'manual', source: 'manual', status: 'open', tier, previousTier: null,
-        epiYear: latest?.epi_year ?? null, epiWeek: latest?.epi_week ?? null, runId: null, drivers,
-        suggestedMessage: body.message ?? suggestedMessage({ districtName: district.name, reason: 'manual', tier, previousTier: null, drivers, note: body.note }),
+        epiYear: facts.epiYear, epiWeek: facts.epiWeek, runId: latest?.run_id ?? null, drivers,
+        suggestedMessage: englishMessage(message), messageCode: message.code, messageParams: message.params,
         actions: body.actions ? actionsOf(body.actions) : suggestedActions('manual', tier),
-        note: body.note, raisedBy: p.userId,
+        note: body.note, publicMessage: body.message ?? null, raisedBy: p.userId,
       }, p.userId);
       if (!id) throw conflict('flag_open', 'A flag raised by hand for this district is already waiting for sign-off.');
       return this.get(id, manager);
     });
   }
 
-  /** Approve (optionally with an edited message): the flag becomes an advisory mailed to the district's subscribers. */
+  /**
+   * Approve (optionally with an edited message): the flag becomes an advisory mailed to the district's
+   * subscribers, each in their language. A superseded flag's advisory speaks of the district's tier now
+   * and states the flag's date; a lapsed flag cannot be approved (409 `flag_lapsed`).
+   */
   async approve(p: Principal, id: string, body: ApproveFlagBody): Promise<FlagDto> {
     return this.ctx.ds.transaction(async (manager) => {
       const current = await this.decidable(manager, p, id, body.version);
-      const message = body.message ?? current.suggestedMessage;
+      if (current.status === 'lapsed')
+        throw conflict('flag_lapsed', 'This flag waited longer than the flag settings allow and has lapsed: raise a new one if it still applies.', { lapsesAt: current.lapsesAt });
+      const proposal = current.proposal;
+      const edited = body.message !== undefined && body.message !== renderMessage(proposal.code, proposal.params, 'en');
+      const composed: AdvisoryMessage = edited
+        ? customMessage(body.message!, { ...proposal.params, shares: [] })
+        : proposal;
+      const message = englishMessage(composed);
+      const tier = current.superseded && current.current ? current.current.tier : current.tier;
       const [updated] = await manager.query(
         `WITH u AS (UPDATE flags SET status = 'approved', decided_by = $2, decided_at = now(), final_message = $3, version = version + 1
                      WHERE id = $1 AND status = 'open' AND version = $4 RETURNING id) SELECT id FROM u`,
@@ -160,44 +209,48 @@ export class FlagsService {
       );
       if (!updated) await this.lost(manager, id);
       const advisory = await manager.save(AdvisoryEntity, manager.create(AdvisoryEntity, {
-        flagId: id, districtId: current.districtId, tier: current.tier, message, actions: current.actions, issuedBy: p.userId,
+        flagId: id, districtId: current.districtId, tier, message, messageCode: composed.code, messageParams: composed.params,
+        actions: current.actions, issuedBy: p.userId,
         issuedAt: new Date(), expiresAt: new Date(Date.now() + this.ctx.config.ADVISORY_DAYS * 86_400_000),
       }));
       const recipients = await recipientsOf(manager, current.districtId, 'advisory');
       const queued = await enqueueMail(manager, this.ctx.config, recipients.map((r) => {
         const links = subscriberLinks(this.ctx.config, r.userId, current.districtId);
-        // In the recipient's language; a message approved as Broodcast suggested it is written again in that language.
+        // In the recipient's language, worded from the message's code and numbers (a person's words stay theirs).
         const mail = advisoryMail({
-          districtName: current.districtName, districtCode: current.districtCode, tier: current.tier, message: messageFor(r.language, message, current),
+          districtName: current.districtName, districtCode: current.districtCode, tier, message: renderMessage(composed.code, composed.params, r.language),
           actions: current.actions, issuedBy: p.displayName, unsubscribeUrl: links.unsubscribeUrl, preferencesUrl: links.preferencesUrl, language: r.language,
         });
         return { kind: 'advisory' as const, to: r.email, userId: r.userId, ...mail, headers: { ...links.headers, ...languageHeaders(r.language) }, advisoryId: advisory.id };
       }));
       await recordAudit(manager, {
         actorId: p.userId, action: 'flag.approved', entity: 'flag', entityId: id,
-        before: { status: 'open', message: current.suggestedMessage, version: current.version },
-        after: { status: 'approved', message, edited: message !== current.suggestedMessage, version: current.version + 1 },
+        before: { status: 'open', message: current.suggestedMessage, messageCode: current.message.code, tier: current.tier, version: current.version },
+        after: {
+          status: 'approved', message, messageCode: composed.code, edited, tier, superseded: current.superseded, version: current.version + 1,
+        },
       });
       await recordAudit(manager, {
         actorId: p.userId, action: 'advisory.issued', entity: 'advisory', entityId: advisory.id,
-        after: { flagId: id, districtId: current.districtId, recipients: queued, expiresAt: advisory.expiresAt.toISOString() },
+        after: { flagId: id, districtId: current.districtId, tier, recipients: queued, expiresAt: advisory.expiresAt.toISOString() },
       });
       return this.get(id, manager);
     });
   }
 
+  /** Reject with a reason; a lapsed flag may be rejected too (it then leaves the lapsed list). */
   async reject(p: Principal, id: string, body: RejectFlagBody): Promise<FlagDto> {
     return this.ctx.ds.transaction(async (manager) => {
       const current = await this.decidable(manager, p, id, body.version);
       const [updated] = await manager.query(
         `WITH u AS (UPDATE flags SET status = 'rejected', decided_by = $2, decided_at = now(), decision_reason = $3, version = version + 1
-                     WHERE id = $1 AND status = 'open' AND version = $4 RETURNING id) SELECT id FROM u`,
+                     WHERE id = $1 AND status IN ('open', 'lapsed') AND version = $4 RETURNING id) SELECT id FROM u`,
         [id, p.userId, body.reason, current.version],
       );
       if (!updated) await this.lost(manager, id);
       await recordAudit(manager, {
         actorId: p.userId, action: 'flag.rejected', entity: 'flag', entityId: id,
-        before: { status: 'open', version: current.version }, after: { status: 'rejected', version: current.version + 1 }, reason: body.reason,
+        before: { status: current.status, version: current.version }, after: { status: 'rejected', version: current.version + 1 }, reason: body.reason,
       });
       return this.get(id, manager);
     });
@@ -207,7 +260,7 @@ export class FlagsService {
   private async decidable(manager: EntityManager, p: Principal, id: string, version?: number): Promise<FlagDto> {
     const flag = await this.get(id, manager);
     if (flag.raisedBy?.id === p.userId) throw forbidden('You raised this flag: another supervisor signs it off.');
-    if (flag.status !== 'open') throw this.decided(flag);
+    if (flag.status !== 'open' && flag.status !== 'lapsed') throw this.decided(flag);
     if (version !== undefined && version !== flag.version)
       throw conflict('flag_changed', 'The flag changed since you opened it. Reload it and decide again.');
     return flag;
@@ -220,6 +273,8 @@ export class FlagsService {
 
   private decided(flag: FlagDto) {
     const who = flag.decidedBy ? ` by ${flag.decidedBy.displayName}` : '';
-    return conflict('flag_decided', `This flag was already ${flag.status === 'open' ? 'changed' : flag.status}${who}. Reload to see the decision.`);
+    return conflict('flag_decided', `This flag was already ${flag.status === 'open' ? 'changed' : flag.status}${who}. Reload to see the decision.`, {
+      status: flag.status, decidedBy: flag.decidedBy?.displayName ?? null,
+    });
   }
 }

@@ -36,7 +36,7 @@ export const badRequest = (code: string, message: string, fields?: { path: strin
 export const unauthorized = (message = 'Sign in to continue.') => new HttpError(401, 'unauthorized', message);
 export const forbidden = (message = 'Your role may not do this.') => new HttpError(403, 'forbidden', message);
 export const notFound = (what = 'That') => new HttpError(404, 'not_found', `${what} was not found.`);
-export const conflict = (code: string, message: string) => new HttpError(409, code, message);
+export const conflict = (code: string, message: string, params?: ErrorParams) => new HttpError(409, code, message, undefined, params);
 export const serviceUnavailable = (code: string, message: string) => new HttpError(503, code, message);
 /** A request understood but refused as a whole for what it holds (a weather file that cannot be loaded). */
 export const unprocessable = (code: string, message: string, params?: ErrorParams) => new HttpError(422, code, message, undefined, params);

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { TIERS } from '../tier/tier-settings';
+import { DRIVERS, TIERS } from '../tier/tier-settings';
 import { driverDto } from './board.schema';
 import { uniqueArray, uuid } from './common.schema';
 
@@ -13,9 +13,21 @@ export const FLAG_REASON_LABELS: Record<FlagReason, string> = {
   manual: 'Raised by hand',
 };
 
-export const FLAG_STATUSES = ['open', 'approved', 'rejected'] as const;
+/**
+ * `lapsed`: an open flag older than the flag settings allow (computed on read; stored once another flag
+ * of its district and reason is raised). It has left the sign-off queue and may no longer be approved.
+ */
+export const FLAG_STATUSES = ['open', 'lapsed', 'approved', 'rejected'] as const;
 export type FlagStatus = (typeof FLAG_STATUSES)[number];
-export const FLAG_STATUS_LABELS: Record<FlagStatus, string> = { open: 'Waiting for sign-off', approved: 'Approved', rejected: 'Rejected' };
+export const FLAG_STATUS_LABELS: Record<FlagStatus, string> = { open: 'Waiting for sign-off', lapsed: 'Lapsed', approved: 'Approved', rejected: 'Rejected' };
+
+/**
+ * The wording an advisory message is composed with, chosen from the numbers (shared/flags/advisory-message.ts):
+ * the vector in diapause, zero climate suitability, no signal at all, the case signal alone, or the group
+ * of drivers that carries most of the score; `custom` is a message a person wrote.
+ */
+export const MESSAGE_CODES = ['diapause', 'zero-suitability', 'no-signal', 'case-signal-only', 'case-led', 'weather-led', 'larval-led', 'mixed', 'custom'] as const;
+export type MessageCode = (typeof MESSAGE_CODES)[number];
 
 /**
  * The actions a flag may suggest, in Broodcast's own words. Each is general public-health practice for
@@ -51,6 +63,35 @@ export type ActionDto = z.infer<typeof actionDto>;
 const person = z.object({ id: uuid, displayName: z.string() }).nullable();
 const tier = z.enum(TIERS);
 
+/** The numbers a message is worded from; stored with the flag and the advisory (JSON), never sentences. */
+export const messageParams = z.object({
+  district: z.string(),
+  reason: z.enum(FLAG_REASONS),
+  tier: tier.nullable(),
+  previousTier: tier.nullable(),
+  /** The week of the tier the message speaks of. */
+  epiYear: z.number().int().nullable(),
+  epiWeek: z.number().int().nullable(),
+  /** The drivers that weigh most, with their share of the score (shared/tier/driver-shares.ts). */
+  shares: z.array(z.object({ id: z.enum(DRIVERS), share: z.number() })),
+  /** The flag's own date, week and tier, when the message speaks of a newer tier (a superseded flag). */
+  flag: z.object({ raisedOn: z.string(), epiYear: z.number().int().nullable(), epiWeek: z.number().int().nullable(), tier: tier.nullable() }).optional(),
+  /** A custom message's words. */
+  text: z.string().optional(),
+});
+export type MessageParams = z.infer<typeof messageParams>;
+export const advisoryMessage = z.object({ code: z.enum(MESSAGE_CODES), params: messageParams });
+export type AdvisoryMessage = z.infer<typeof advisoryMessage>;
+
+/** The district's tier now (its newest season run), shown beside the tier that raised a flag. */
+export const currentTierDto = z.object({
+  tier: tier,
+  epiYear: z.number().int(),
+  epiWeek: z.number().int(),
+  computedAt: z.string(),
+  drivers: z.array(driverDto),
+});
+
 export const flagDto = z.object({
   id: uuid,
   districtId: uuid,
@@ -64,16 +105,32 @@ export const flagDto = z.object({
   epiYear: z.number().int().nullable(),
   epiWeek: z.number().int().nullable(),
   drivers: z.array(driverDto),
+  /** The suggested message as stored, in English (the sign-off screen words `message` in the reader's language). */
   suggestedMessage: z.string(),
+  /** The suggested message as a code and its numbers. */
+  message: advisoryMessage,
+  /** What approving it unedited would send now: for a superseded flag, worded from the current tier, with the flag's date. */
+  proposal: advisoryMessage,
   actions: z.array(actionDto),
   caution: z.string(),
+  /** A hand-raised flag's internal note: what the person saw. Never public (not in the message, the advisory or a mail). */
   note: z.string().nullable(),
+  /** A hand-raised flag's public message, as its author wrote it (null: Broodcast composed one from the numbers). */
+  publicMessage: z.string().nullable(),
+  /** The district's tier now; null when it has none. */
+  current: currentTierDto.nullable(),
+  /** A newer season run has computed the district's tier since the flag was raised (approving it speaks of the current tier). */
+  superseded: z.boolean(),
+  /** When an open flag leaves the queue as lapsed (flag settings). */
+  lapsesAt: z.string().nullable(),
   raisedBy: person,
   createdAt: z.string(),
   decidedBy: person,
   decidedAt: z.string().nullable(),
   decisionReason: z.string().nullable(),
   finalMessage: z.string().nullable(),
+  /** The approved message as code and numbers (its advisory's), to word it in the reader's language. */
+  finalComposed: advisoryMessage.nullable(),
   advisoryId: uuid.nullable(),
   version: z.number().int(),
 });
@@ -89,7 +146,7 @@ export const flagHistoryEntry = z.object({
 });
 export type FlagHistoryEntry = z.infer<typeof flagHistoryEntry>;
 
-export const flagsResponse = z.object({ flags: z.array(flagDto) });
+export const flagsResponse = z.object({ flags: z.array(flagDto), lapseWeeks: z.number().int() });
 export const flagDetailResponse = z.object({ flag: flagDto, history: z.array(flagHistoryEntry) });
 export type FlagDetailResponse = z.infer<typeof flagDetailResponse>;
 
@@ -103,9 +160,9 @@ const version = z.number().int().min(1).optional();
 
 export const raiseFlagBody = z.strictObject({
   districtId: uuid,
-  /** Why the flag is raised: what the person saw. */
+  /** Why the flag is raised: what the person saw. An internal note for the supervisor; never sent to the public. */
   note: z.string().trim().min(3, { message: 'must say why (3 characters or more)' }).max(1000),
-  /** The message proposed for the advisory; Broodcast writes one from the tier and drivers when left out. */
+  /** The public message proposed for the advisory; Broodcast composes one from the tier and drivers when left out. */
   message: message.optional(),
   actions: uniqueArray(z.enum(ACTION_IDS), { max: ACTION_IDS.length }).min(1, { message: 'choose at least one action' }).optional(),
 });
@@ -132,7 +189,10 @@ export const advisoryDto = z.object({
   districtCode: z.string(),
   districtName: z.string(),
   tier: tier.nullable(),
+  /** The message in English (or as a person wrote it); `composed` words it in the reader's language. */
   message: z.string(),
+  /** The message as a code and its numbers; null for advisories issued before messages were composed. */
+  composed: advisoryMessage.nullable(),
   actions: z.array(actionDto),
   caution: z.string(),
   issuedBy: person,
@@ -144,3 +204,17 @@ export const advisoryDto = z.object({
 export type AdvisoryDto = z.infer<typeof advisoryDto>;
 export const advisoriesResponse = z.object({ advisories: z.array(advisoryDto) });
 export const advisoriesQuery = z.strictObject({ districtId: uuid.optional() });
+
+/** How long an open flag waits for sign-off before it lapses (admin; every change audited with its reason). */
+export const flagSettingsDto = z.object({
+  lapseWeeks: z.number().int(),
+  updatedAt: z.string().nullable(),
+  updatedBy: person,
+});
+export type FlagSettingsDto = z.infer<typeof flagSettingsDto>;
+export const DEFAULT_LAPSE_WEEKS = 2;
+export const flagSettingsBody = z.strictObject({
+  lapseWeeks: z.number().int({ message: 'must be a whole number of weeks' }).min(1, { message: 'must be 1 or more' }).max(26, { message: 'must be 26 or less' }),
+  reason: z.string().trim().min(3, { message: 'must say why (3 characters or more)' }).max(500),
+});
+export type FlagSettingsBody = z.infer<typeof flagSettingsBody>;

@@ -1,2 +1,3 @@
 export * from './tier-settings';
 export * from './tier';
+export * from './driver-shares';

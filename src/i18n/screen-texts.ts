@@ -14,7 +14,7 @@ export const SCREEN_TEXTS = {
   'features/auth/password-reset-confirm.page': ['auth'],
   'features/auth/invite-accept.page': ['auth'],
   'features/subscriptions/unsubscribe.page': ['auth', 'subscriptions'],
-  'features/ladder/ladder.page': ['cautions', 'districts', 'help', 'ladder', 'region-map'],
+  'features/ladder/ladder.page': ['cautions', 'districts', 'flags', 'help', 'ladder', 'region-map'],
   'features/users/users-admin.page': ['users'],
   'features/districts/districts-admin.page': ['districts', 'profiles'],
   'features/profiles/profiles.page': ['profiles'],

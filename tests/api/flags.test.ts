@@ -5,7 +5,8 @@ import { createTestApp, type TestApp } from '../support/test-app';
 import { countRows, makeDistrict, makeUser, signedInAgent } from '../support/factories';
 import { makeCaseHistory, makeSeasonDistrict } from '../support/season-factories';
 import { makeFlag, rawSource, waitForMails } from '../support/flags-factories';
-import { suggestedMessage } from '../../server/flags/flag-texts';
+import { englishMessage } from '../../server/flags/flag-texts';
+import { composeMessage } from '../../shared/flags/advisory-message';
 
 let t: TestApp;
 const AS_OF = '2026-08-20';
@@ -66,7 +67,9 @@ describe('raising a flag by hand', () => {
     expect(ok.body).toMatchObject({ status: 'open', reason: 'manual', source: 'manual', note: 'Clinic reports many fevers', version: 1 });
     expect(ok.body.actions.map((a: { id: string }) => a.id)).toEqual(['case-finding']);
     expect(ok.body.caution).toMatch(/trained staff/);
-    expect(ok.body.suggestedMessage).toMatch(/Clinic reports many fevers/);
+    // The note is internal: the public message is composed from the numbers without it (issue 16).
+    expect(ok.body.suggestedMessage).not.toMatch(/Clinic reports many fevers/);
+    expect(ok.body.publicMessage).toBeNull();
     const again = await epi.post('/api/flags').send({ districtId: mine.id, note: 'Still many fevers' });
     expect(again.status).toBe(409);
     expect(again.body.error.code).toBe('flag_open');
@@ -185,9 +188,10 @@ describe('advisories in the reader\'s language', () => {
     const flag = await makeFlag(t.ds, { districtId: d.id, reason: 'channel-above', tier: 'high' });
     const drivers = [{ id: 'cases' as const, contribution: 0.4 }, { id: 'climate' as const, contribution: 0.2 }];
     // As the season run writes it: Broodcast's own suggestion, approved unedited.
-    const suggestion = suggestedMessage({ districtName: d.name, reason: 'channel-above', tier: 'high', previousTier: null, drivers });
-    await t.ds.query(`UPDATE flags SET suggested_message = $2, drivers = $3 WHERE id = $1`, [
-      flag.id, suggestion, JSON.stringify(drivers.map((x) => ({ ...x, label: x.id, score: 0.5, weight: 0.3, detail: {} }))),
+    const composed = composeMessage({ district: d.name, reason: 'channel-above', tier: 'high', previousTier: null, epiYear: 2026, epiWeek: 33, drivers });
+    const suggestion = englishMessage(composed);
+    await t.ds.query(`UPDATE flags SET suggested_message = $2, drivers = $3, message_code = $4, message_params = $5 WHERE id = $1`, [
+      flag.id, suggestion, JSON.stringify(drivers.map((x) => ({ ...x, label: x.id, score: 0.5, weight: 0.3, detail: {} }))), composed.code, JSON.stringify(composed.params),
     ]);
     const res = await (await supervisor()).post(`/api/flags/${flag.id}/approve`).send({ version: 1 });
     expect(res.status).toBe(200);

@@ -1,4 +1,6 @@
+import { randomUUID } from 'node:crypto';
 import type { DataSource } from 'typeorm';
+import type { DriverResult } from '../../shared/tier';
 import type { FlagReason } from '../../shared/api/flags.schema';
 import { FlagEntity } from '../../server/flags/flag.entity';
 import { actionsOf } from '../../server/flags/flag-texts';
@@ -6,7 +8,10 @@ import { actionsOf } from '../../server/flags/flag-texts';
 /** An open flag written straight into the table (the season run and the API raise them for real elsewhere). */
 export async function makeFlag(
   ds: DataSource,
-  opts: { districtId: string; reason?: FlagReason; tier?: string | null; raisedBy?: string | null; createdAt?: Date },
+  opts: {
+    districtId: string; reason?: FlagReason; tier?: string | null; raisedBy?: string | null; createdAt?: Date;
+    epiYear?: number; epiWeek?: number; runId?: string | null; drivers?: DriverResult[]; note?: string | null;
+  },
 ) {
   const repo = ds.getRepository(FlagEntity);
   return repo.save(repo.create({
@@ -16,16 +21,44 @@ export async function makeFlag(
     status: 'open',
     tier: opts.tier === undefined ? 'high' : opts.tier,
     previousTier: null,
-    epiYear: 2026,
-    epiWeek: 33,
-    runId: null,
-    drivers: [],
+    epiYear: opts.epiYear ?? 2026,
+    epiWeek: opts.epiWeek ?? 33,
+    runId: opts.runId ?? null,
+    drivers: opts.drivers ?? [],
     suggestedMessage: 'Conditions favour mosquitoes in this test district; please act on the steps below.',
     actions: actionsOf(['source-reduction', 'case-finding']),
-    note: 'made by a test',
+    note: opts.note === undefined ? 'made by a test' : opts.note,
     raisedBy: opts.raisedBy ?? null,
     ...(opts.createdAt ? { createdAt: opts.createdAt } : {}),
   }));
+}
+
+/** Drivers as the season run stores them, from contributions (score = contribution ÷ weight share, for the record only). */
+export function makeDrivers(contributions: Partial<Record<DriverResult['id'], number>>, details: Partial<Record<DriverResult['id'], DriverResult['detail']>> = {}): DriverResult[] {
+  const ids = ['climate', 'vectorClock', 'larval', 'cases'] as const;
+  return ids.map((id) => ({
+    id, label: id, weight: 0.25,
+    score: contributions[id] === undefined ? null : Math.min(1, contributions[id]! * 4),
+    contribution: contributions[id] ?? 0,
+    detail: details[id] ?? {},
+  }));
+}
+
+/** A district's tier for one week, as a season run writes it (district_tiers), with its run id. */
+export async function makeTier(
+  ds: DataSource,
+  opts: { districtId: string; epiYear?: number; epiWeek: number; tier: string; drivers: DriverResult[]; runId?: string; computedAt?: Date },
+): Promise<{ runId: string }> {
+  const runId = opts.runId ?? randomUUID();
+  const score = opts.drivers.reduce((a, d) => a + d.contribution, 0);
+  await ds.query(
+    `INSERT INTO district_tiers (district_id, epi_year, epi_week, run_id, computed_at, as_of, score, tier, tier_low, tier_high, confidence, drivers, notes)
+     VALUES ($1, $2, $3, $4, $5, '2026-10-01', $6, $7, $7, $7, 'ok', $8, '[]')
+     ON CONFLICT (district_id, epi_year, epi_week) DO UPDATE SET run_id = EXCLUDED.run_id, computed_at = EXCLUDED.computed_at, score = EXCLUDED.score,
+       tier = EXCLUDED.tier, tier_low = EXCLUDED.tier, tier_high = EXCLUDED.tier, drivers = EXCLUDED.drivers`,
+    [opts.districtId, opts.epiYear ?? 2026, opts.epiWeek, runId, opts.computedAt ?? new Date(), score, opts.tier, JSON.stringify(opts.drivers)],
+  );
+  return { runId };
 }
 
 const mailWeb = () => `http://127.0.0.1:${process.env.TEST_MAIL_WEB_PORT ?? '1081'}`;

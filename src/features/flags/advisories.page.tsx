@@ -6,6 +6,7 @@ import { TierBadge } from '../ladder/components/tier-badge';
 import { CautionsPanel } from '../cautions/cautions-panel';
 import { useAdvisories } from './api/advisories.api';
 import { useFlagFormat } from './flag-format';
+import { useRenderMessage } from './message';
 import { errorText } from '../../lib/error-text';
 
 /** Every advisory sent (a community worker: their district's), newest first, with the current ones marked. */
@@ -14,6 +15,7 @@ export function AdvisoriesPage() {
   const { t } = f;
   const me = useSession();
   const advisories = useAdvisories();
+  const render = useRenderMessage();
   return (
     <section aria-labelledby="page-title" className="min-w-0">
       <PageHeading lead={t('advisories.lead')}>{t('advisories.title')}</PageHeading>
@@ -57,7 +59,8 @@ export function AdvisoriesPage() {
                   </>
                 ) : null}
               </p>
-              <p>{a.message}</p>
+              {/* Worded in the interface language from its code and numbers; an old advisory a person wrote, as written. */}
+              <p data-testid="advisory-message">{a.composed ? render(a.composed) : a.message}</p>
               <ul className="list-disc space-y-1 pl-5 text-sm">
                 {a.actions.map((x) => {
                   const action = f.action(x);

@@ -5,12 +5,12 @@ import { useFormat } from '../../i18n/format';
 
 const isKnownAction = (id: string): id is (typeof ACTION_IDS)[number] => (ACTION_IDS as readonly string[]).includes(id);
 const isKnownDriver = (id: string): id is (typeof DRIVERS)[number] => (DRIVERS as readonly string[]).includes(id);
-const HISTORY_ACTIONS = ['flag.raised', 'flag.approved', 'flag.rejected', 'advisory.issued'];
+const HISTORY_ACTIONS = ['flag.raised', 'flag.approved', 'flag.rejected', 'flag.lapsed', 'advisory.issued'];
 
 /**
  * The words of the flag screens in the interface language. Reasons, statuses, history steps, drivers and
- * the suggested actions arrive as stable codes and are translated here; the advisory message itself is
- * the server's text (the suggested wording, or the supervisor's edit) and is shown as it is.
+ * the suggested actions arrive as stable codes and are translated here; advisory messages arrive as a code
+ * and numbers and are worded by useRenderMessage (message.ts); only a person's own words are shown as written.
  */
 export function useFlagFormat() {
   const { t } = useTranslation('flags');

@@ -4,6 +4,7 @@ import type { LadderRow } from '../../../shared/api/board.schema';
 import { useSession } from '../../app/session';
 import { CautionsPanel } from '../cautions/cautions-panel';
 import { useAdvisories } from '../flags/api/advisories.api';
+import { useRenderMessage } from '../flags/message';
 import { TierBadge } from './components/tier-badge';
 
 /**
@@ -14,6 +15,7 @@ export function WorkerHome({ rows }: { rows: readonly LadderRow[] }) {
   const { t } = useTranslation('ladder');
   const me = useSession();
   const advisories = useAdvisories();
+  const render = useRenderMessage();
   const mine = me.districts.map((d) => ({ district: d, row: rows.find((r) => r.districtId === d.id) ?? null }));
   const current = (advisories.data ?? []).filter((a) => a.current);
   return (
@@ -51,7 +53,8 @@ export function WorkerHome({ rows }: { rows: readonly LadderRow[] }) {
                 <p className="flex flex-wrap items-center gap-2 font-bold">
                   {a.districtName} {a.tier ? <TierBadge tier={a.tier} /> : null}
                 </p>
-                <p className="text-sm">{a.message}</p>
+                {/* In the worker's language from its code and numbers; an old hand-written one as written. */}
+                <p className="text-sm">{a.composed ? render(a.composed) : a.message}</p>
                 <p className="text-sm italic">{t('worker.caution')}</p>
               </li>
             ))}

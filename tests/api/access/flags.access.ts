@@ -7,6 +7,8 @@ export const flagsAccess: AccessTable = {
   'GET /flags/:id': ['admin', 'officer', 'epidemiologist', 'supervisor'],
   'POST /flags/:id/approve': ['supervisor'],
   'POST /flags/:id/reject': ['supervisor'],
+  'GET /flag-settings': ['admin'],
+  'PUT /flag-settings': ['admin'],
   'GET /advisories': ALL_SIGNED_IN,
   'GET /bulletins/preview': ['supervisor'],
   'GET /bulletins/preview/html': ['supervisor'],

@@ -9,12 +9,14 @@ export const flagsKeys = {
 };
 export const advisoriesKey = ['advisories'] as const;
 
-/** GET /api/flags?status= — the sign-off queue (open: highest tier, then newest) or decided flags. */
+/**
+ * GET /api/flags?status= — the sign-off queue (open: highest tier, then newest), the lapsed list (open
+ * flags older than the flag settings' lapse, `lapseWeeks`) or decided flags.
+ */
 export const flagsQueryOptions = (status: FlagStatus | 'all' = 'open') =>
   queryOptions({
     queryKey: flagsKeys.list(status),
     queryFn: ({ signal }) => api.get(`/api/flags?status=${status}`, flagsResponse, signal),
-    select: (r) => r.flags,
   });
 export const useFlags = (status: FlagStatus | 'all' = 'open') => useQuery(flagsQueryOptions(status));
 
