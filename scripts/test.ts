@@ -42,7 +42,7 @@ try {
     if (files.length === 0 || files.some((f) => f.startsWith('tests/browser'))) await buildClient();
     else console.log('› no browser test named: the client build is skipped');
     // The whole suite (no file named, as CI runs it) first passes the type check, lint and layer rules.
-    const railsOk = files.length === 0 ? await runGuardRails() : true;
+    const railsOk = files.length === 0 ? await runGuardRails(templateUrl) : true;
     if (!railsOk) throw new Error('a guard rail failed (above); no test was run');
     console.log(`› test set-up took ${((Date.now() - t0) / 1000).toFixed(1)} s`);
     exitCode = await new Promise<number>((resolve) => {

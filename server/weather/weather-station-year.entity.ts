@@ -1,4 +1,4 @@
-import { Column, Entity, JoinColumn, ManyToOne, PrimaryColumn } from 'typeorm';
+import { Check, Column, Entity, JoinColumn, ManyToOne, PrimaryColumn } from 'typeorm';
 import { WeatherStationEntity } from './weather-station.entity';
 
 /**
@@ -7,6 +7,14 @@ import { WeatherStationEntity } from './weather-station.entity';
  * upload replaces, never duplicates (server/weather/station-years.repository.ts). The view
  * weather_observations shows the same values one row per station and day, for reading.
  */
+// Every array holds one element per day of the year (migration 1796207332107-WeatherStationYears).
+@Check(
+  'weather_station_years_days_check',
+  `cardinality("tmin") = make_date("year" + 1, 1, 1) - make_date("year", 1, 1)
+   AND cardinality("tmax") = cardinality("tmin") AND cardinality("rh") = cardinality("tmin")
+   AND cardinality("rain") = cardinality("tmin") AND cardinality("flags") = cardinality("tmin")
+   AND cardinality("upload_ix") = cardinality("tmin")`,
+)
 @Entity({ name: 'weather_station_years' })
 export class WeatherStationYearEntity {
   @PrimaryColumn({ name: 'station_id', type: 'uuid' })
