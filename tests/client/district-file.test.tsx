@@ -1,7 +1,7 @@
 import { describe, expect, it, vi } from 'vitest';
 import { districtFileResponse } from '../../shared/api/board.schema';
 import { CAUTIONS } from '../../src/features/cautions/cautions-panel';
-import { generationDays } from '../../src/features/district-file/charts/vector-clock.charts';
+import { generationDays, generationNamesFor, genStep } from '../../src/features/district-file/charts/vector-clock.charts';
 import { demoDistrictFile } from './support/board-fixtures';
 import { fakeApi, json, officerMe } from './support/fake-api';
 import { click, selectOption, waitFor, type Rendered, renderRoutes } from './support/render';
@@ -165,6 +165,16 @@ describe('the District file', () => {
     expect(rows[0][1]).toBe('9.5');
     expect(rows[rows.length - 1][1]).toBe('not completed');
     expect(c.textContent).toMatch(/Extrinsic incubation period\s*not completed/);
+  });
+
+  it('when a season has many generations, then only every n-th is named so the names fit the chart’s width', () => {
+    // Issue 21: "gen 1 … gen 34" piled up. 34 generations on a 1280 px screen: every 5th (6 names); on a phone: every 20th.
+    expect(generationNamesFor(1152 - 96)).toBe(8);
+    expect(generationNamesFor(360 - 96)).toBe(3);
+    expect(genStep(34, generationNamesFor(1056))).toBe(5);
+    expect(genStep(34, generationNamesFor(264))).toBe(20);
+    expect(Math.floor(34 / genStep(34, 8))).toBeLessThanOrEqual(8);
+    expect(genStep(6, 8)).toBe(1);
   });
 
   it('when the generations pass a whole number, then that day is a generation mark', () => {
