@@ -182,7 +182,9 @@ function DistrictFileView({
                 {/* The assignment says which profiles the district has; a season without weather has them but no heat line. */}
                 {(data.profiles ?? []).length === 0 && data.vectorClock.length === 0
                   ? t('about.noProfile')
-                  : t('about.profiles', { profiles: ((data.profiles ?? []).length ? data.profiles : data.vectorClock).map((v) => profileLabel({ t }, v)).join(t('listSeparator')) })}
+                  : t('about.profiles', {
+                      profiles: ((data.profiles ?? []).length ? data.profiles.map((p) => profileLabel({ t }, p)) : data.vectorClock.map((v) => profileLabel({ t }, v))).join(t('listSeparator')),
+                    })}
                 {(data.profiles ?? []).length > 0 && data.vectorClock.length === 0 ? ` ${t('about.noClockThisSeason', { season: seasonYear })}` : null}
               </li>
               <li>
