@@ -22,6 +22,22 @@ export function passwordResetMail(name: string, link: string, ttlHours: number, 
   return linkMail(language, t('reset.subject'), t('greeting', { name: oneLine(name) }), [t('reset.asked'), t('reset.validity', { count: ttlHours })], link, t('reset.link'));
 }
 
+/** The invitation's one-time link; `lang` opens the landing page in the invite's language. */
+export function inviteLink(appUrl: string, token: string, language: Language): string {
+  const url = new URL('/invite/accept', appUrl);
+  url.searchParams.set('token', token);
+  url.searchParams.set('lang', language);
+  return url.toString();
+}
+
+/** The password-reset link; `lang` opens the page in the account's language. */
+export function resetLink(appUrl: string, token: string, language: Language): string {
+  const url = new URL('/reset-password', appUrl);
+  url.searchParams.set('token', token);
+  url.searchParams.set('lang', language);
+  return url.toString();
+}
+
 /** The invitation, in the language the admin chose for the invitee (English when none). */
 export function inviteMail(name: string, role: Role, link: string, ttlHours: number, language: Language = DEFAULT_LANGUAGE) {
   const t = textsFor(language, 'auth');

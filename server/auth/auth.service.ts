@@ -12,7 +12,7 @@ import { consumeToken, newToken } from './tokens.repository';
 import { recordResetRequest } from './reset-requests.repository';
 import { DEFAULT_LANGUAGE } from '../i18n';
 import type { TokenPurpose } from './one-time-token.entity';
-import { passwordResetMail } from './auth.mails';
+import { passwordResetMail, resetLink } from './auth.mails';
 import { sessionCookieName } from './session.middleware';
 
 const JWT_ISSUER = 'broodcast';
@@ -97,7 +97,7 @@ export class AuthService {
     const user = await this.users.findByEmail(email);
     const account = user && user.active && user.passwordHash ? user : null;
     const { token, tokenHash } = newToken();
-    const link = new URL(`/reset-password?token=${token}`, this.ctx.config.APP_URL).toString();
+    const link = resetLink(this.ctx.config.APP_URL, token, account?.language ?? DEFAULT_LANGUAGE);
     const mail = passwordResetMail(account?.displayName ?? email, link, RESET_TTL_HOURS, account?.language ?? DEFAULT_LANGUAGE);
     const written = await this.ctx.ds.transaction((manager) =>
       recordResetRequest(manager, this.ctx.config, { userId: account?.id ?? null, to: account?.email ?? email, tokenHash, ttlHours: RESET_TTL_HOURS, mail }),

@@ -1,11 +1,13 @@
 import type { PreferencesBody, PreferencesDto, UserInviteBody, UserUpdateBody } from '../../shared/api/users.schema';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
-import { inviteMail } from '../auth/auth.mails';
+import { inviteLink, inviteMail } from '../auth/auth.mails';
 import type { Principal } from '../auth/principal';
 import { SessionsRepository } from '../auth/sessions.repository';
 import { issueToken } from '../auth/tokens.repository';
 import { badRequest, conflict, notFound } from '../http/errors';
+import { DEFAULT_LANGUAGE } from '../i18n';
+import { enqueueMail } from '../outbox/outbox.repository';
 import { preferencesOf, presentUser } from './user.presenter';
 import { UserEntity } from './user.entity';
 import { UsersRepository } from './users.repository';
@@ -25,9 +27,15 @@ export class UsersService {
     return { users: (await this.users.listWithDistricts()).map(presentUser) };
   }
 
-  /** Create the account without a password and mail a one-time link to choose one. */
+  /**
+   * Create the account without a password and put the one-time link to choose one in the outbox, in the
+   * same transaction: the invitation exists if and only if its mail is queued, and a mail server that is
+   * down loses nothing (the outbox worker sends and retries). The link carries the invitee's language
+   * (`&lang=`), so the landing page opens in the language of the mail.
+   */
   async invite(actor: Principal, body: UserInviteBody) {
-    const { user, token } = await this.ctx.ds.transaction(async (manager) => {
+    const language = body.language ?? DEFAULT_LANGUAGE;
+    const user = await this.ctx.ds.transaction(async (manager) => {
       if (await manager.existsBy(UserEntity, { email: body.email }))
         throw conflict('email_taken', 'A user with this e-mail already exists.');
       await this.checkDistricts(manager, body.districtIds);
@@ -37,7 +45,7 @@ export class UsersService {
         role: body.role,
         passwordHash: null,
         active: true,
-        language: body.language ?? 'en',
+        language,
       }));
       await this.users.setDistricts(manager, user.id, body.districtIds);
       const token = await issueToken(manager, user.id, 'invite', INVITE_TTL_HOURS);
@@ -45,14 +53,12 @@ export class UsersService {
         actorId: actor.userId, action: 'user.invited', entity: 'user', entityId: user.id,
         after: { email: user.email, role: user.role, districtIds: body.districtIds, language: user.language },
       });
-      return { user: await this.users.findWithDistricts(user.id, manager), token };
+      const link = inviteLink(this.ctx.config.APP_URL, token, language);
+      await enqueueMail(manager, this.ctx.config, [
+        { kind: 'invite', to: body.email, userId: user.id, ...inviteMail(body.displayName, body.role, link, INVITE_TTL_HOURS, language) },
+      ]);
+      return this.users.findWithDistricts(user.id, manager);
     });
-    const link = new URL(`/invite/accept?token=${token}`, this.ctx.config.APP_URL).toString();
-    try {
-      await this.ctx.mailer.send({ to: body.email, ...inviteMail(body.displayName, body.role, link, INVITE_TTL_HOURS, body.language ?? 'en') });
-    } catch (err) {
-      this.ctx.logger.warn({ err: (err as Error).message }, 'invite mail could not be sent');
-    }
     return presentUser(user!);
   }
 

@@ -1,6 +1,7 @@
 import { Navigate, NavLink, Outlet, useLocation, useNavigate } from 'react-router-dom';
 import { useTranslation } from 'react-i18next';
 import type { Role } from '../../shared/roles';
+import { OfflineBanner } from '../components/offline-banner';
 import { useRoleLabel } from '../lib/labels';
 import { isUnauthorized } from '../lib/api-client';
 import { useMe } from '../features/auth/api/me.api';
@@ -28,6 +29,7 @@ export function AppLayout() {
           {t('layout.skipLink')}
         </a>
         <AppHeader displayName={me.data.displayName} role={me.data.role} />
+        <OfflineBanner />
         <main id="main" tabIndex={-1} className="mx-auto w-full max-w-6xl px-4 py-6 sm:px-6 sm:py-8">
           <PreferencesProvider me={me.data}>
             <Outlet />

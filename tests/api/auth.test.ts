@@ -135,8 +135,13 @@ describe('password reset and invitations', () => {
     const res = await agent.post('/api/users').send({ email, displayName: 'New Worker', role: 'worker', districtIds: [district.id] });
     expect(res.status).toBe(201);
     expect(res.body).toMatchObject({ email, role: 'worker', invitePending: true, districts: [{ id: district.id }] });
+    // The invitation goes through the outbox (written with the account), not from inside the request.
+    const [queued] = await t.ds.query(`SELECT kind, status FROM outbox_messages WHERE to_address = $1`, [email]);
+    expect(queued).toEqual({ kind: 'invite', status: 'pending' });
+    await new OutboxWorker(t.ctx).drain();
     const mail = await waitForMail(email);
     expect(mail.subject).toBe('Broodcast: your invitation');
+    expect(mail.text).toMatch(/\/invite\/accept\?token=[A-Za-z0-9_-]+&lang=en/);
     const accept = await request(t.app).post('/api/auth/invite/accept').send({ token: linkToken(mail), password: 'my-field-password' });
     expect(accept.status).toBe(204);
     const worker = await signedInAgent(t.app, email, 'my-field-password');

@@ -142,6 +142,30 @@ describe('every page at 1280 × 800 and the charts in the interface language', (
     await page.context().close();
   });
 
+  it('when the printable District file is opened in French and printed, then its tier history fits the page and its title is French', async () => {
+    // Issue 21: the printable page showed "Select ?", cut off its tier-history table and kept an English title.
+    const page = await signIn('officer@halvern.example', 'fr');
+    const file = await firstDistrictPath(page);
+    await page.goto(`${server.baseUrl}${file}/print`);
+    await page.locator('.print-page').waitFor();
+    await settle(page);
+    expect(await page.title()).toMatch(/ · .*imprim.* · Broodcast$/i);
+    expect(await page.locator('.key-numbers').innerText()).not.toContain('?');
+    // On screen at 1280 px, then as printed on A4 (210 mm less 12 mm margins each side ≈ 700 CSS px wide).
+    for (const [media, width] of [['screen', 1280], ['print', 700]] as const) {
+      await page.setViewportSize({ width, height: 900 });
+      await page.emulateMedia({ media });
+      const cut = await page.locator('.print-page table').evaluateAll((tables) =>
+        tables
+          .filter((t) => t.getBoundingClientRect().width > 0)
+          .map((t) => ({ name: (t as HTMLTableElement).caption?.textContent ?? '', over: t.getBoundingClientRect().right - t.closest('.print-page')!.getBoundingClientRect().right }))
+          .filter((x) => x.over > 1),
+      );
+      expect(cut, media).toEqual([]);
+    }
+    await page.context().close();
+  });
+
   it('when the pages were used, then none threw an error', () => {
     expect(problems).toEqual([]);
   });

@@ -105,6 +105,19 @@ describe('the community worker on a phone', () => {
     await page.locator('main h1').waitFor();
     await page.locator('main').getByText('Saltmere').first().waitFor();
     expect(await scrollWidth()).toBeLessThanOrEqual(360);
+    // Issue 21: the first screen leads with the worker's own district and its advisories, inside the first
+    // 740 px; the cautions are one tap away (closed); the Ladder's columns fit the phone without a sideways scroll.
+    const home = page.getByTestId('worker-home');
+    const yourDistrict = home.getByRole('heading', { level: 2, name: /^Your district: Saltmere/ });
+    await yourDistrict.waitFor();
+    const advisoriesHeading = page.locator('#home-advisories');
+    for (const el of [yourDistrict, advisoriesHeading]) {
+      const box = (await el.boundingBox())!;
+      expect(box.y + box.height).toBeLessThanOrEqual(740);
+    }
+    expect(await home.locator('details').evaluate((d) => (d as HTMLDetailsElement).open)).toBe(false);
+    const ladder = page.locator('.ladder-scroll');
+    expect(await ladder.evaluate((el) => el.scrollWidth - el.clientWidth)).toBeLessThanOrEqual(1);
 
     await page.locator('nav[aria-label="Main"]').getByRole('link', { name: 'Advisories' }).click();
     await page.getByRole('heading', { level: 1, name: 'Advisories' }).waitFor();
@@ -132,6 +145,8 @@ describe('the community worker on a phone', () => {
     expect(response?.fromServiceWorker()).toBe(true);
     await page.getByLabel('Locality').waitFor();
     expect(await page.evaluate(() => navigator.onLine)).toBe(false);
+    // A banner under the menu says the phone is offline.
+    await page.getByTestId('offline-banner').waitFor();
     expect(await scrollWidth()).toBeLessThanOrEqual(360);
 
     await page.getByLabel('Locality').fill(locality);

@@ -106,6 +106,10 @@ describe('screenshots of the Ladder and a District file for the docs', () => {
     const page = await signedInPage(size);
     await openLadder(page);
     expect(await page.locator('.ladder-table tbody tr[data-district]').count()).toBe(12);
+    // Issue 21: the columns the Ladder opens with fit the width (a phone: rank, district, tier, since last week).
+    const overflow = await page.locator('.ladder-scroll').evaluate((el) => ({ over: el.scrollWidth - el.clientWidth, rows: [...el.querySelectorAll('tbody tr[data-district]')].map((r) => r.getBoundingClientRect().height) }));
+    expect(overflow.over).toBeLessThanOrEqual(1);
+    for (const h of overflow.rows) expect(h).toBeLessThanOrEqual(61);
     await shoot(page, 'ladder', size);
     await page.context().close();
   });

@@ -1,7 +1,7 @@
 import { describe, expect, it, vi } from 'vitest';
 import { districtFileResponse } from '../../shared/api/board.schema';
 import { CAUTIONS } from '../../src/features/cautions/cautions-panel';
-import { generationDays } from '../../src/features/district-file/charts/vector-clock.charts';
+import { generationDays, generationNamesFor, genStep } from '../../src/features/district-file/charts/vector-clock.charts';
 import { demoDistrictFile } from './support/board-fixtures';
 import { fakeApi, json, officerMe } from './support/fake-api';
 import { click, selectOption, waitFor, type Rendered, renderRoutes } from './support/render';
@@ -116,6 +116,32 @@ describe('the District file', () => {
     await waitFor(() => expect(c.textContent).toContain('Tier for week 22 of 2024'));
   });
 
+  it('when a season has no weather (no heat line) and another is compared, then the profile is still named and the page says why no line is drawn', async () => {
+    // Issue 21: "Compare heat with 2023" drew nothing and said nothing; an earlier season claimed "no profile".
+    const fetch = fakeApi({});
+    fetch.mockImplementation(async (input: string | URL | Request) => {
+      const u = new URL(String(input), 'http://localhost');
+      if (u.pathname === '/api/me') return json(200, officerMe);
+      if (u.pathname === `/api/districts/${file.district.id}/file`) {
+        const year = Number(u.searchParams.get('season') ?? 2025);
+        const f = demoDistrictFile(year);
+        return json(200, year === 2025 ? f : { ...f, vectorClock: [] });
+      }
+      return json(404, { error: { code: 'not_found', message: 'not found' } });
+    });
+    view = await renderRoutes(`${path}?compare=2023`);
+    const c = view.container;
+    await waitFor(() => expect(c.querySelector('[data-testid="compare-note"]')?.textContent).toBe(
+      'No dashed line for 2023: no weather is stored for that season in this district, so there is no heat accumulation to compare.'), 5000);
+
+    view.unmount();
+    view = await renderRoutes(`${path}?season=2024`);
+    const c2 = view.container;
+    await waitFor(() => expect(c2.textContent).toContain('No heat accumulation for 2024: no weather is stored for that season.'), 5000);
+    expect(c2.textContent).not.toContain('No vector–pathogen profile is assigned');
+    expect(c2.textContent).toContain('Profiles: Aedes aegypti with dengue virus.');
+  });
+
   it('when the EIP is not completed on the last days (too cool for the pathogen), then the vector clock and the key numbers say so in words, not as a number of days', async () => {
     const cool = demoDistrictFile();
     const vc: { eipDays: (number | null)[]; survivalThroughEip: (number | null)[] } = cool.vectorClock[0];
@@ -139,6 +165,16 @@ describe('the District file', () => {
     expect(rows[0][1]).toBe('9.5');
     expect(rows[rows.length - 1][1]).toBe('not completed');
     expect(c.textContent).toMatch(/Extrinsic incubation period\s*not completed/);
+  });
+
+  it('when a season has many generations, then only every n-th is named so the names fit the chart’s width', () => {
+    // Issue 21: "gen 1 … gen 34" piled up. 34 generations on a 1280 px screen: every 5th (6 names); on a phone: every 20th.
+    expect(generationNamesFor(1152 - 96)).toBe(8);
+    expect(generationNamesFor(360 - 96)).toBe(3);
+    expect(genStep(34, generationNamesFor(1056))).toBe(5);
+    expect(genStep(34, generationNamesFor(264))).toBe(20);
+    expect(Math.floor(34 / genStep(34, 8))).toBeLessThanOrEqual(8);
+    expect(genStep(6, 8)).toBe(1);
   });
 
   it('when the generations pass a whole number, then that day is a generation mark', () => {

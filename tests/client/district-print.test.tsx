@@ -1,4 +1,6 @@
+import { act } from 'react';
 import { afterEach, describe, expect, it, vi } from 'vitest';
+import { i18n, setLanguage } from '../../src/i18n';
 import { CAUTIONS } from '../../src/features/cautions/cautions-panel';
 import { demoDistrictFile } from './support/board-fixtures';
 import { fakeApi, json, officerMe } from './support/fake-api';
@@ -13,9 +15,9 @@ afterEach(() => {
 
 const file = demoDistrictFile();
 
-async function open(url: string) {
+async function open(url: string, me: typeof officerMe = officerMe) {
   fakeApi({
-    'GET /api/me': () => json(200, officerMe),
+    'GET /api/me': () => json(200, me),
     [`GET /api/districts/${file.district.id}/file`]: () => json(200, file),
   });
   const opened = await renderRoutes(url);
@@ -48,8 +50,25 @@ describe('the printable District file', () => {
 
     for (const line of CAUTIONS) expect(c.textContent).toContain(line);
     expect(c.querySelectorAll('button.help-button')).toHaveLength(0);
+    // Issue 21: with no "?" buttons, the key numbers' lead does not tell the reader to select one; the tab is named.
+    expect(c.querySelector('.key-numbers')?.textContent).not.toContain('Select');
+    expect(document.title).toBe('Saltmarsh Coast · Printable District file · Broodcast');
     // No ECharts on this page.
     expect(c.querySelector('[data-testid="echart-stub"]')).toBeNull();
+  });
+
+  it('when the interface is in French, then the page title and the tier-history table are in French', async () => {
+    try {
+      const { c } = await open(`/districts/${file.district.id}/print`, { ...officerMe, preferences: { ...officerMe.preferences, language: 'fr' } });
+      await waitFor(() => expect(c.querySelector('.print-page')).not.toBeNull(), 5000);
+      await waitFor(() => expect(i18n.language).toBe('fr'));
+      expect(document.title).toBe(`Saltmarsh Coast · ${i18n.t('district-file:print.title')} · Broodcast`);
+      expect(document.title).not.toContain('Printable');
+      expect(c.textContent).toContain(i18n.t('district-file:tierHistory.tableCaption'));
+    } finally {
+      view?.unmount();
+      await act(() => setLanguage('en'));
+    }
   });
 
   it('when Print is pressed, then the browser’s print dialog is asked for', async () => {

@@ -94,4 +94,15 @@ describe('season runs', () => {
     await waitFor(() => expect(queryClient.getQueryState(['districts', 'x', 'file', null])?.isInvalidated).toBe(true));
     expect(queryClient.getQueryState(['board'])?.isInvalidated).toBe(true);
   });
+
+  it('when runs were started by a person and by Broodcast itself (at start-up), then only the first reads "by hand"', async () => {
+    // Issue 21: the runs made at start-up were labelled "by hand".
+    const byHand = seasonRun({ id: '00000000-0000-4000-8000-000000000071', status: 'succeeded', districtsDone: 12, finishedAt: '2025-06-02T08:05:00.000Z', byPerson: true });
+    const atStart = seasonRun({ id: '00000000-0000-4000-8000-000000000072', status: 'succeeded', districtsDone: 12, finishedAt: '2025-06-01T02:05:00.000Z', byPerson: false });
+    const { c } = await open({ 'GET /api/season-runs': () => json(200, { runs: [byHand, atStart] }) });
+    await waitFor(() => expect(c.querySelectorAll('tbody tr').length).toBeGreaterThanOrEqual(2));
+    const rows = [...c.querySelectorAll('tbody tr')].map((r) => r.textContent ?? '');
+    expect(rows.filter((r) => r.includes('by hand'))).toHaveLength(1);
+    expect(rows.filter((r) => r.includes('started by Broodcast'))).toHaveLength(1);
+  });
 });

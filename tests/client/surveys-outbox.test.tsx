@@ -1,8 +1,8 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { queryClient } from '../../src/app/query-client';
 import { OUTBOX_KEY, SurveyOutbox } from '../../src/features/surveys/offline-queue';
-import { demoDistricts, fakeApi, json } from './support/fake-api';
-import { click, getButton, getByLabel, typeInto, waitFor, type Rendered, renderRoutes } from './support/render';
+import { demoDistricts, fakeApi, json, officerMe } from './support/fake-api';
+import { click, getButton, getByLabel, selectOption, typeInto, waitFor, type Rendered, renderRoutes } from './support/render';
 
 const districtId = demoDistricts[0].id;
 const survey = (id: string) => ({
@@ -130,5 +130,22 @@ describe('the survey form', () => {
     await waitFor(() => expect(view!.container.textContent).toMatch(/Positive houses exceed houses inspected/));
     expect(localStorage.getItem(OUTBOX_KEY)).toBeNull();
     expect(fetchMock.mock.calls.some(([, init]) => (init as RequestInit | undefined)?.method === 'POST')).toBe(false);
+  });
+
+  it('when an officer chooses another district in the survey form, then the recent surveys beside it are that district’s', async () => {
+    // Issue 21: the recent list ignored the chosen district.
+    const [a, b] = demoDistricts;
+    const fetchMock = fakeApi({
+      'GET /api/me': () => json(200, officerMe),
+      'GET /api/districts': () => json(200, { districts: demoDistricts }),
+      [`GET /api/districts/${a.id}/surveys`]: () => json(200, { district: { id: a.id, code: a.code, name: a.name }, surveys: [], weeks: [] }),
+      [`GET /api/districts/${b.id}/surveys`]: () => json(200, { district: { id: b.id, code: b.code, name: b.name }, surveys: [], weeks: [] }),
+    });
+    view = await renderRoutes('/surveys');
+    const c = view.container;
+    await waitFor(() => expect(c.querySelector('#recent-title')?.textContent).toContain(a.name), 3000);
+    await selectOption(getByLabel<HTMLSelectElement>(c, 'District'), b.id);
+    await waitFor(() => expect(c.querySelector('#recent-title')?.textContent).toContain(b.name));
+    expect(fetchMock.mock.calls.some(([url]) => String(url).includes(`/api/districts/${b.id}/surveys`))).toBe(true);
   });
 });

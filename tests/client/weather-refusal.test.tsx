@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import { QueryClient, QueryClientProvider, useQuery } from '@tanstack/react-query';
 import type { UploadDto } from '../../shared/api/weather.schema';
 import { i18n } from '../../src/i18n';
 import { UploadResult } from '../../src/features/weather/components/upload-result';
@@ -40,4 +40,27 @@ describe('a refused weather upload on the Intake screen', () => {
       });
     });
   }
+});
+
+describe('Recent intakes after an upload', () => {
+  it('when an upload is shown and its checks end, then the list of recent intakes is fetched again (at once and with the counts)', async () => {
+    // Issue 21: "Recent intakes" did not refresh after an upload.
+    const processing: UploadDto = { ...refused, id: '00000000-0000-4000-8000-000000000915', status: 'processing', message: null, reasonCode: null, reasonParams: null, finishedAt: null };
+    const done: UploadDto = { ...processing, status: 'done', rowsProcessed: 10, rowsAccepted: 10, finishedAt: '2026-03-10T10:00:01.000Z' };
+    const client = new QueryClient();
+    let listFetches = 0;
+    client.setQueryDefaults(['weather', 'uploads'], { queryFn: async () => (listFetches++, { uploads: [] }) });
+    fakeApi({ [`GET /api/weather/uploads/${processing.id}`]: () => json(200, done) });
+    const Watcher = () => {
+      useQuery({ queryKey: ['weather', 'uploads'] });
+      return null;
+    };
+    await render(
+      <QueryClientProvider client={client}>
+        <Watcher />
+        <UploadResult initial={processing} />
+      </QueryClientProvider>,
+    );
+    await waitFor(() => expect(listFetches).toBeGreaterThanOrEqual(2));
+  });
 });

@@ -69,6 +69,7 @@ export function DistrictFilePage() {
       loadingSeason={file.isPlaceholderData}
       compared={compared.data && compare !== null ? compared.data : null}
       compare={compare}
+      compareFailed={compared.isError ? errorText(compared.error) : null}
       onChoose={choose}
     />
   );
@@ -79,12 +80,14 @@ function DistrictFileView({
   loadingSeason,
   compared,
   compare,
+  compareFailed,
   onChoose,
 }: {
   data: DistrictFileResponse;
   loadingSeason: boolean;
   compared: DistrictFileResponse | null;
   compare: number | null;
+  compareFailed: string | null;
   onChoose: (key: 'season' | 'compare', value: string) => void;
 }) {
   const id = useId();
@@ -158,6 +161,7 @@ function DistrictFileView({
             </div>
             {loadingSeason ? <p className="text-sm text-ink-muted">{t('loadingSeason')}</p> : null}
           </form>
+          <CompareNote data={data} compare={compare} compared={compared} failed={compareFailed} />
 
           {current ? (
             <CurrentTier current={current} previous={previous} />
@@ -175,9 +179,13 @@ function DistrictFileView({
               <li>{t('about.weather', { source: weatherSourceText(w, data.weather.source) })}</li>
               <li>{filledDays === 0 ? t('about.noneFilled') : t('about.filled', { count: filledDays, days: w.count(filledDays) })}</li>
               <li>
-                {data.vectorClock.length === 0
+                {/* The assignment says which profiles the district has; a season without weather has them but no heat line. */}
+                {(data.profiles ?? []).length === 0 && data.vectorClock.length === 0
                   ? t('about.noProfile')
-                  : t('about.profiles', { profiles: data.vectorClock.map((v) => profileLabel({ t }, v)).join(t('listSeparator')) })}
+                  : t('about.profiles', {
+                      profiles: ((data.profiles ?? []).length ? data.profiles.map((p) => profileLabel({ t }, p)) : data.vectorClock.map((v) => profileLabel({ t }, v))).join(t('listSeparator')),
+                    })}
+                {(data.profiles ?? []).length > 0 && data.vectorClock.length === 0 ? ` ${t('about.noClockThisSeason', { season: seasonYear })}` : null}
               </li>
               <li>
                 {data.larval.length === 0
@@ -255,6 +263,24 @@ function DistrictLinks({ districtId }: { districtId: string }) {
       <Link to={`/districts/${districtId}/cases`} className="link">
         {t('links.cases')}
       </Link>
+    </p>
+  );
+}
+
+/**
+ * What "Compare heat with" did: nothing to say while no season is chosen or while it loads; otherwise the
+ * reason a dashed line is missing (no weather stored that season, or the season could not be read).
+ */
+function CompareNote({ data, compare, compared, failed }: { data: DistrictFileResponse; compare: number | null; compared: DistrictFileResponse | null; failed: string | null }) {
+  const { t } = useTranslation('district-file');
+  if (compare === null || compare >= data.seasonYear) return null;
+  if (failed) return <FormMessage kind="error">{t('compare.failed', { year: compare, reason: failed })}</FormMessage>;
+  if (!compared) return <p className="text-sm text-ink-muted">{t('compare.loading', { year: compare })}</p>;
+  if (data.vectorClock.length === 0) return <p className="text-sm text-ink-muted" data-testid="compare-note">{t('compare.nothingThisSeason', { season: data.seasonYear })}</p>;
+  const drawn = data.vectorClock.some((vc) => compared.vectorClock.some((c) => c.profileId === vc.profileId && c.cumulativeDegreeDays.some((x) => x !== null)));
+  return drawn ? null : (
+    <p className="text-sm text-ink-muted" data-testid="compare-note">
+      {t('compare.noneThatSeason', { year: compare })}
     </p>
   );
 }

@@ -1,5 +1,8 @@
-import type { ReactNode } from 'react';
+import { useEffect, type ReactNode } from 'react';
 import { useTranslation } from 'react-i18next';
+import { useSearchParams } from 'react-router-dom';
+import { isLanguage } from '../../../../shared/languages';
+import { setLanguage } from '../../../i18n';
 import { LanguagePicker } from '../../../components/language-picker';
 import { useDocumentTitle } from '../../../lib/document-title';
 
@@ -7,6 +10,7 @@ import { useDocumentTitle } from '../../../lib/document-title';
 export function AuthShell({ title, children }: { title: string; children: ReactNode }) {
   const { t } = useTranslation('auth');
   useDocumentTitle(title);
+  useLinkLanguage();
   return (
     <div className="min-h-dvh bg-paper px-4 py-10 sm:py-16">
       <main id="main" className="mx-auto w-full max-w-md">
@@ -26,4 +30,16 @@ export function AuthShell({ title, children }: { title: string; children: ReactN
       </main>
     </div>
   );
+}
+
+/**
+ * A mailed link (invitation, password reset) names the language its mail was written in (`?lang=fr`):
+ * the page opens in that language, whatever this device chose before. The picker still changes it.
+ */
+function useLinkLanguage() {
+  const [params] = useSearchParams();
+  const lang = params.get('lang');
+  useEffect(() => {
+    if (isLanguage(lang)) void setLanguage(lang);
+  }, [lang]);
 }

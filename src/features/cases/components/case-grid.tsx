@@ -12,6 +12,7 @@ import { useVoidCount } from '../api/void-count.api';
 import { VoidAction } from '../../../components/void-dialog';
 import { useCaseFormat } from '../case-format';
 import { RevisionHistory } from './revision-history';
+import './case-grid.css';
 
 type Selected = { row: GridRow; index: number; pending?: number };
 

@@ -1,24 +1,59 @@
 import { Fragment, useState } from 'react';
 import type { SignalsResponse } from '../../../../shared/api/cases.schema';
 import { FormMessage } from '../../../components/form';
+import { isApiError } from '../../../lib/api-client';
 import { formErrorText } from '../../../lib/form-errors';
 import { useCloseWeek } from '../api/close-week.api';
+import { useReopenWeek } from '../api/reopen-week.api';
 import { useCaseFormat } from '../case-format';
 import { RevisionHistory } from './revision-history';
 
 /** The season week by week: count, incidence, channel, zone, C1–C3, CUSUM, growth; history and closing on demand. */
 export function SignalsTable({ data, today }: { data: SignalsResponse; today: string }) {
-  const { t, formatNumber, formatDate } = useCaseFormat();
+  const { t, formatNumber, formatDate, weekLabel } = useCaseFormat();
   const flag = (s: { statistic: number | null; alarm: boolean | null }) =>
     s.statistic === null ? '—' : `${formatNumber(s.statistic, 2)}${s.alarm ? ` · ${t('signals.alarm')}` : ''}`;
   const [open, setOpen] = useState<string | null>(null);
   const close = useCloseWeek();
-  const [message, setMessage] = useState<string | null>(null);
+  const reopen = useReopenWeek();
+  const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
+  /** Closing a week asks first; reopening asks for a reason (the same steps as on the Case ledger grid). */
+  const [confirming, setConfirming] = useState<{ week: number; kind: 'close' | 'reopen' } | null>(null);
+  const [reopenReason, setReopenReason] = useState('');
+  const label = (week: number) => weekLabel({ year: data.year, week });
+  const closeWeek = (week: number) => {
+    setMessage(null);
+    close.mutate(
+      { districtId: data.district.id, week: { year: data.year, week } },
+      {
+        onSuccess: () => {
+          setConfirming(null);
+          setMessage({ kind: 'success', text: t('grid.isClosed', { week: label(week), district: data.district.name }) });
+        },
+        onError: (e) => setMessage({ kind: 'error', text: formErrorText(e) }),
+      },
+    );
+  };
+  const reopenWeek = (week: number) => {
+    setMessage(null);
+    reopen.mutate(
+      { districtId: data.district.id, week: { year: data.year, week, reason: reopenReason } },
+      {
+        onSuccess: (r) => {
+          setConfirming(null);
+          setReopenReason('');
+          setMessage({ kind: 'success', text: r.reopened ? t('grid.isReopened', { week: label(week), district: data.district.name }) : t('grid.wasOpen') });
+        },
+        onError: (e) =>
+          setMessage({ kind: 'error', text: isApiError(e) && e.fields.some((f) => f.path.endsWith('reason')) ? t('grid.giveReopenReason') : formErrorText(e) }),
+      },
+    );
+  };
   const rows = [...data.weeks].reverse();
   const columns = 11;
   return (
     <div className="space-y-2">
-      {message ? <FormMessage kind="error">{message}</FormMessage> : null}
+      {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
       <div className="table-wrap" tabIndex={0} role="region" aria-label={t('signals.caption', { disease: data.disease.name, district: data.district.name, year: data.year })}>
         <table className="data-table" data-testid="signals-table">
           <caption className="table-caption">
@@ -83,21 +118,82 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
                           <button
                             type="button"
                             className="btn btn-secondary btn-small"
-                            disabled={close.isPending}
+                            aria-expanded={confirming?.week === w.week && confirming.kind === 'close'}
                             onClick={() => {
                               setMessage(null);
-                              close.mutate(
-                                { districtId: data.district.id, week: { year: data.year, week: w.week } },
-                                { onError: (e) => setMessage(formErrorText(e)) },
-                              );
+                              setConfirming({ week: w.week, kind: 'close' });
                             }}
                           >
                             {t('signals.closeWeek')}
                           </button>
                         ) : null}
+                        {data.canClose && w.closed ? (
+                          <button
+                            type="button"
+                            className="btn btn-secondary btn-small"
+                            aria-expanded={confirming?.week === w.week && confirming.kind === 'reopen'}
+                            onClick={() => {
+                              setMessage(null);
+                              setConfirming({ week: w.week, kind: 'reopen' });
+                            }}
+                          >
+                            {t('signals.reopenWeek')}
+                          </button>
+                        ) : null}
                       </span>
                     </td>
                   </tr>
+                  {confirming?.week === w.week && confirming.kind === 'close' ? (
+                    <tr className="row-detail">
+                      <td colSpan={columns}>
+                        <div role="group" aria-labelledby={`close-confirm-${w.week}`} className="notice notice-info space-y-2">
+                          <p id={`close-confirm-${w.week}`} className="text-sm">
+                            {t('grid.confirmClose', { week: label(w.week), district: data.district.name })}
+                          </p>
+                          <div className="flex flex-wrap gap-2">
+                            <button type="button" className="btn btn-primary btn-small" disabled={close.isPending} onClick={() => closeWeek(w.week)}>
+                              {t('grid.confirmCloseButton')}
+                            </button>
+                            <button type="button" className="btn btn-secondary btn-small" onClick={() => setConfirming(null)}>
+                              {t('grid.cancel')}
+                            </button>
+                          </div>
+                        </div>
+                      </td>
+                    </tr>
+                  ) : null}
+                  {confirming?.week === w.week && confirming.kind === 'reopen' ? (
+                    <tr className="row-detail">
+                      <td colSpan={columns}>
+                        <form
+                          className="notice notice-info space-y-2"
+                          aria-labelledby={`reopen-title-${w.week}`}
+                          onSubmit={(e) => {
+                            e.preventDefault();
+                            reopenWeek(w.week);
+                          }}
+                        >
+                          <p id={`reopen-title-${w.week}`} className="text-sm">
+                            {t('grid.reopenExplain', { week: label(w.week), district: data.district.name })}
+                          </p>
+                          <div className="field">
+                            <label htmlFor={`reopen-reason-${w.week}`} className="field-label">
+                              {t('grid.reopenReason')}
+                            </label>
+                            <input id={`reopen-reason-${w.week}`} className="input" value={reopenReason} onChange={(e) => setReopenReason(e.currentTarget.value)} required minLength={3} />
+                          </div>
+                          <div className="flex flex-wrap gap-2">
+                            <button type="submit" className="btn btn-primary btn-small" disabled={reopen.isPending}>
+                              {t('grid.confirmReopenButton')}
+                            </button>
+                            <button type="button" className="btn btn-secondary btn-small" onClick={() => setConfirming(null)}>
+                              {t('grid.cancel')}
+                            </button>
+                          </div>
+                        </form>
+                      </td>
+                    </tr>
+                  ) : null}
                   {open && open === w.countId ? (
                     <tr className="row-detail">
                       <td colSpan={columns}>

@@ -37,11 +37,14 @@ export function generationDays(vc: Pick<VectorClock, 'dates' | 'generations'>): 
   return out;
 }
 
-/** Which generations get a name on the heat chart: 1, 2, 5, 10 … so that no more than about eight are named. */
-export function genStep(count: number): number {
-  for (const step of [1, 2, 5, 10, 20, 50]) if (count / step <= 8) return step;
+/** Which generations get a name on the heat chart: 1, 2, 5, 10 … so that no more than `maxNames` are named. */
+export function genStep(count: number, maxNames = 8): number {
+  for (const step of [1, 2, 5, 10, 20, 50]) if (count / step <= maxNames) return step;
   return 100;
 }
+
+/** How many generation names fit side by side: about one per 80 px of chart, 3 to 8 (a phone gets 4). */
+export const generationNamesFor = (width: number) => Math.max(3, Math.min(8, Math.floor(width / 80)));
 
 /** Moves an earlier season's days onto this season's calendar, so the two lines share one time axis. */
 const shiftToYear = (dates: readonly string[], year: number) => dates.map((d) => `${year}${d.slice(4)}`).filter((d) => !d.endsWith('-02-29'));
@@ -53,6 +56,9 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
   const dd = (x: number | null | undefined) => (x === null || x === undefined ? null : u.toTemperatureDelta(x));
   const ddUnit = u.degreeDaySymbol;
   const gens = generationDays(vc);
+  // The chart spans about the window's width less the page's margins; names beyond what fits are left out.
+  const maxNames = generationNamesFor(typeof window === 'undefined' ? 1024 : Math.min(window.innerWidth, 1152) - 96);
+  const step = gens.length <= maxNames ? 1 : genStep(gens.length, maxNames);
   const last = lastIndexWithValue(vc.cumulativeDegreeDays);
   const comparedSeries = compared
     ? (() => {
@@ -101,8 +107,8 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
               silent: true,
               lineStyle: { color: PLUM, type: 'dotted', width: 1 },
               label: { ...FONT, color: PLUM, fontSize: 10, formatter: (p: any) => t('district-file:degreeDays.genMark', { generation: p.data?.generation ?? '' }) },
-              // Every generation keeps its line; only every n-th is named, so at most ~8 names share the width.
-              data: gens.map((g) => ({ xAxis: g.date, generation: g.generation, label: { show: g.generation % genStep(gens.length) === 0 || gens.length <= 8 } }) as any),
+              // Every generation keeps its line; only every n-th is named, so the names never pile up (3–8 by width).
+              data: gens.map((g) => ({ xAxis: g.date, generation: g.generation, label: { show: g.generation % step === 0 } }) as any),
             },
           },
           ...(comparedSeries

@@ -118,7 +118,8 @@ export function KeyNumbers({ data, help = true, headingLevel = 'h2' }: { data: D
       <Heading id="key-numbers-title" className="section-title">
         {t('district-file:key.title')}
       </Heading>
-      <p className="mt-1 text-sm text-ink-muted">{t('district-file:key.lead')}</p>
+      {/* Without the "?" buttons (the printable page), the lead does not point at them. */}
+      <p className="mt-1 text-sm text-ink-muted">{t(help ? 'district-file:key.lead' : 'district-file:key.leadNoHelp')}</p>
       <div className="key-number-groups">
         {groups.map((g) => (
           <div key={g.id} className="key-number-group">

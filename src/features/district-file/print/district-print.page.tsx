@@ -17,6 +17,7 @@ import '../district-file.css';
 import { PrintCasesChart, PrintDegreeDaysChart } from './print-charts';
 import './district-print.css';
 import { errorText } from '../../../lib/error-text';
+import { useDocumentTitle } from '../../../lib/document-title';
 
 const seasonParam = (v: string | null) => (v && /^\d{4}$/.test(v) ? Number(v) : null);
 
@@ -31,6 +32,8 @@ export function DistrictPrintPage() {
   const { id = '' } = useParams();
   const [search] = useSearchParams();
   const file = useDistrictFile(id, seasonParam(search.get('season')));
+  // The tab (and a PDF saved from the print dialog) is named after the district, in the interface language.
+  useDocumentTitle(file.data ? `${file.data.district.name} · ${t('print.title')}` : t('print.title'));
   if (file.isPending) return <p className="text-ink-muted">{t('loading')}</p>;
   if (file.isError)
     return (

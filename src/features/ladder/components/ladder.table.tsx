@@ -216,6 +216,11 @@ function SortHeader({ header }: { header: Header<LadderFeatures, LadderRow, unkn
 
 const ariaSort = (s: false | 'asc' | 'desc') => (s === 'asc' ? 'ascending' : s === 'desc' ? 'descending' : 'none');
 
+/** Below this width (40rem, a phone) only rank, district, tier and the change since last week show at first. */
+const PHONE_QUERY = '(max-width: 40rem)';
+const PHONE_HIDDEN_COLUMNS = { leadingDriver: false, cases: false, channelZone: false, latestWeather: false };
+const isNarrowScreen = () => typeof window !== 'undefined' && window.matchMedia?.(PHONE_QUERY).matches === true;
+
 /**
  * The Ladder as a table: sortable by every column, one text filter, a column chooser, CSV of what is shown,
  * and a windowed body so thousands of districts scroll smoothly.
@@ -234,6 +239,8 @@ export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]
     globalFilterFn: 'matchesRowText',
     getColumnCanGlobalFilter: (c) => c.id === 'district',
     state: { globalFilter },
+    // On a phone the Ladder opens with the columns that fit its width; the others are one tap away in "Columns".
+    initialState: { columnVisibility: isNarrowScreen() ? PHONE_HIDDEN_COLUMNS : {} },
     onGlobalFilterChange: setGlobalFilter,
     enableSortingRemoval: true,
   });
