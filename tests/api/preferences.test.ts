@@ -61,6 +61,7 @@ describe('mail in the recipient\'s language', () => {
     const email = `invitado-${Date.now()}@test.example`;
     const res = await admin.post('/api/users').send({ email, displayName: 'Rosa Campo', role: 'worker', language: 'es' });
     expect(res.status).toBe(201);
+    await new OutboxWorker(t.ctx).drain(); // the invitation goes through the outbox
     const mail = await waitForMail(email);
     expect(mail.subject).toBe('Broodcast: su invitación');
     expect(mail.text).toContain('Hola, Rosa Campo:');

@@ -110,7 +110,7 @@ describe("the health officer's week", () => {
     await w.go('Advisories');
     await page.getByRole('link', { name: 'Raise a flag' }).click();
     await page.getByRole('heading', { level: 1, name: 'Raise a flag' }).waitFor();
-    await page.getByLabel('District').selectOption({ label: 'Lowmill (HV-06)' });
+    await page.getByLabel('District', { exact: true }).selectOption({ label: 'Lowmill (HV-06)' });
     await page.getByLabel('What did you see?').fill('A cluster of fevers reported by the Lowmill market clinic this week.');
     await w.shot('raise-flag');
     await page.getByRole('button', { name: 'Raise the flag' }).click();

@@ -9,7 +9,7 @@ const id = (n: number) => `00000000-0000-4000-8000-${String(n).padStart(12, '0')
 const workerMe = { ...adminMe, id: id(102), email: 'worker@halvern.example', displayName: 'Wen Worker', role: 'worker', districts: [{ id: id(2), code: 'HV-02', name: 'Orrin Valley' }] };
 const advisory = {
   id: id(700), flagId: id(701), districtId: id(2), districtCode: 'HV-02', districtName: 'Orrin Valley', tier: 'high',
-  message: 'Empty standing water around homes this week.', actions: [], caution: 'Broodcast estimates.',
+  message: 'Empty standing water around homes this week.', composed: null, actions: [], caution: 'Broodcast estimates.',
   issuedBy: null, issuedAt: '2025-06-02T08:00:00.000Z', expiresAt: '2025-06-09T08:00:00.000Z', current: true, recipients: 3,
 };
 
