@@ -13,6 +13,7 @@ import {
   pairAtLead,
   persistenceModel,
   rocAuc,
+  skillReport,
   type ScoredPair,
   type ScoredWeek,
 } from '../../shared/skill';
@@ -219,5 +220,38 @@ describe('bootstrap confidence interval resampling whole seasons', () => {
       const ci = bootstrapBySeason(pairAtLead(alike, 1), hit2, { seed, replicates: 50 });
       expect(ci).toEqual({ estimate: 1, lower: 1, upper: 1, replicates: 50 });
     }
+  });
+});
+
+describe('skill report: the tier beside the null models on the same weeks', () => {
+  // Quartile channel, leave-one-season-out. Only week 1 of C is an event: others 1, 1, Q3 = 1, count 5.
+  // Week 1 of A: others 1, 5, Q3 = 1 + 0.75·4 = 4, count 1 → no event. Hand-computed (derived).
+  const input = {
+    district: 'north-fen',
+    seasons: [
+      { season: 'A', counts: [1, 1, 1, 1] },
+      { season: 'B', counts: [1, 1, 1, 1] },
+      { season: 'C', counts: [1, 5, 1, 1] },
+    ],
+    tierRanks: new Map<string, number[]>([
+      ['A', [0, 2, 0, 0]],
+      ['B', [0, 0, 0, 0]],
+      ['C', [2, 3, 0, 0]],
+    ]),
+  };
+  const report = skillReport([input], { leads: [1], level: 2, event: { method: 'quartile' }, replicates: 50 });
+  const lead1 = report.overall[0]!;
+
+  it('when the tier ≥ 2 warns one week ahead, then a=1 (C0), b=2 (A1, C1), c=0, d=6 — hand-computed (derived)', () => {
+    expect(lead1.pairs).toBe(9);
+    expect(lead1.tier.table).toEqual({ hits: 1, falseAlarms: 2, misses: 0, correctNegatives: 6 });
+    expect(lead1.tier.hitRate).toBe(1);
+    expect(lead1.tier.falseAlarmRatio).toBeCloseTo(2 / 3, 12);
+  });
+
+  it('when persistence is scored on the same weeks, then it misses the onset and raises one false alarm — hand-computed (derived)', () => {
+    expect(lead1.persistence.table).toEqual({ hits: 0, falseAlarms: 1, misses: 1, correctNegatives: 7 });
+    expect(report.districts[0]!.leads[0]!.tier.table).toEqual(lead1.tier.table);
+    expect(report.leadTimes).toEqual([1]);
   });
 });
