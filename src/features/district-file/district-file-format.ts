@@ -90,3 +90,10 @@ export function lastOpenIndex(cases: { weeks: number[]; counts: (number | null)[
   for (let i = cases.counts.length - 1; i >= 0; i--) if (cases.counts[i] !== null && isOpenWeekAt(cases, i)) return i;
   return -1;
 }
+
+/**
+ * Whether low, central and high estimates read the same to two decimals: they are then shown as one value
+ * (a "low 0.27 – high 0.27" range says nothing and reads as a mistake).
+ */
+export const sameToTwoDecimals = (w: Pick<LadderWords, 'f'>, ...xs: (number | null | undefined)[]) =>
+  xs.every((x) => x !== null && x !== undefined) && new Set(xs.map((x) => w.f.number(x, 2, true))).size === 1;

@@ -1,4 +1,4 @@
-import { lastCompleteIndex, lastOpenIndex, profileLabel } from '../district-file-format';
+import { lastCompleteIndex, lastOpenIndex, profileLabel, sameToTwoDecimals } from '../district-file-format';
 import type { ReactNode } from 'react';
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { useUnits } from '../../../lib/units';
@@ -48,7 +48,10 @@ export function KeyNumbers({ data, help = true, headingLevel = 'h2' }: { data: D
         key: 'rvc',
         label: t('district-file:key.rvc'),
         value: f.number(vc.rvc[r], 2, true),
-        note: t('district-file:key.lowHigh', { low: f.number(vc.rvcLow[r], 2, true), high: f.number(vc.rvcHigh[r], 2, true) }),
+        // Low, central and high equal to two decimals: one value, no range.
+        note: sameToTwoDecimals(w, vc.rvcLow[r], vc.rvc[r], vc.rvcHigh[r])
+          ? undefined
+          : t('district-file:key.lowHigh', { low: f.number(vc.rvcLow[r], 2, true), high: f.number(vc.rvcHigh[r], 2, true) }),
         help: 'rvc',
       });
     }
