@@ -110,6 +110,8 @@ export function KeyNumbers({ data, help = true, headingLevel = 'h2' }: { data: D
       key: 'larval',
       label: t('district-file:key.larval', { week: w.week(larval.epiYear, larval.epiWeek) }),
       value: t('district-file:key.larvalValues', { house: f.number(larval.house, 1), container: f.number(larval.container, 1), breteau: f.number(larval.breteau, 1) }),
+      // Why these differ from the larval driver of the tier table: one week here, 28 days pooled there.
+      note: t('district-file:key.larvalNote'),
       help: 'larvalIndices',
     });
   }
