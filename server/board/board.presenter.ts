@@ -21,6 +21,8 @@ export function presentBoard(records: BoardRowRecord[]): BoardResponse {
       changedDriver: r.changed_driver as LadderRow['changedDriver'],
       confidence: (r.tier ? r.confidence : 'insufficient') as LadderRow['confidence'],
       casesThisWeek: r.cases_this_week,
+      casesWeek: r.cases_epi_year !== null && r.cases_epi_week !== null ? { year: r.cases_epi_year, week: r.cases_epi_week } : null,
+      casesDiseases: r.cases_diseases ?? [],
       channelZone: r.channel_zone as LadderRow['channelZone'],
       latestWeather: r.latest_weather,
       profileId: r.profile_id,

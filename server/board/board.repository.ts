@@ -17,6 +17,9 @@ export interface BoardRowRecord {
   leading_driver: string | null;
   changed_driver: string | null;
   cases_this_week: number | null;
+  cases_epi_year: number | null;
+  cases_epi_week: number | null;
+  cases_diseases: { code: string; name: string }[] | null;
   channel_zone: string | null;
   latest_weather: string | null;
   profile_id: string | null;
@@ -42,7 +45,10 @@ export class BoardRepository {
       `WITH latest AS (SELECT epi_year, epi_week FROM district_tiers ORDER BY epi_year DESC, epi_week DESC LIMIT 1)
        SELECT d.id AS district_id, d.code, d.name, d.is_demo, t.epi_year, t.epi_week, to_char(t.as_of, 'YYYY-MM-DD') AS as_of,
               t.computed_at, t.tier, t.tier_low, t.tier_high, t.score, t.confidence, t.leading_driver, t.changed_driver,
-              t.cases_this_week, t.channel_zone, to_char(t.latest_weather, 'YYYY-MM-DD') AS latest_weather, t.profile_id,
+              t.cases_this_week, t.cases_epi_year, t.cases_epi_week,
+              (SELECT json_agg(json_build_object('code', x.code, 'name', x.name) ORDER BY x.name) FROM diseases x
+                WHERE x.id = ANY(t.cases_disease_ids)) AS cases_diseases,
+              t.channel_zone, to_char(t.latest_weather, 'YYYY-MM-DD') AS latest_weather, t.profile_id,
               p.tier AS prev_tier, p.score AS prev_score
          FROM districts d
          LEFT JOIN latest ON true

@@ -3,6 +3,7 @@ import { computeSeasonColumns, findProfile, formatIsoDate, getProfile, parseIsoD
 import { SeasonRepository } from '../season/season.repository';
 import { aggregateLarvalIndices } from '../../shared/signals';
 import { buildSignals, CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
+import { currentWeek, firstOpenWeek, todayIn } from '../cases/case-weeks';
 import type { AppContext } from '../app-context';
 import { assertDistrictVisible, type Principal } from '../auth/principal';
 import { notFound } from '../http/errors';
@@ -33,7 +34,7 @@ export class DistrictFileService {
     const from = `${seasonYear}-01-01`;
     const to = `${seasonYear}-12-31`;
 
-    const [weatherRows, sourceRows, clockRows, caseRows, surveyRows, tierRows, excludedRows, assignmentRows] = await Promise.all([
+    const [weatherRows, sourceRows, clockRows, caseRows, surveyRows, tierRows, excludedRows, assignmentRows, closureRows] = await Promise.all([
       q(`SELECT to_char(date, 'YYYY-MM-DD') AS date, tmin, tmax, rh, rain, filled FROM district_weather_days
           WHERE district_id = $1 AND date BETWEEN $2 AND $3 ORDER BY date`, [districtId, from, to]),
       q(`SELECT s.method, s.distance_km, s.weight, st.code FROM district_weather_sources s JOIN weather_stations st ON st.id = s.station_id
@@ -57,6 +58,7 @@ export class DistrictFileService {
            FROM district_tiers WHERE district_id = $1 AND epi_year = $2 ORDER BY epi_week`, [districtId, seasonYear]),
       q(`SELECT disease_id, excluded_years FROM case_channel_settings WHERE district_id = $1`, [districtId]),
       new ProfilesRepository(this.ctx.ds).districtAssignment(districtId),
+      q(`SELECT epi_week FROM case_week_closures WHERE district_id = $1 AND epi_year = $2`, [districtId, seasonYear]) as Promise<{ epi_week: number }[]>,
     ]);
 
     const source = sourceRows.length === 0
@@ -87,11 +89,19 @@ export class DistrictFileService {
     const system = this.ctx.config.EPI_WEEK_SYSTEM;
     const lastWeek = weeksInYear(seasonYear, system);
     const weeks = Array.from({ length: lastWeek }, (_, i) => i + 1);
+    // Weeks still open for reporting (deadline not passed, not closed): their counts are partial, and the
+    // charts, the print page and the bulletin draw them as incomplete and give them no zone.
+    const today = todayIn(this.ctx.config.TIMEZONE);
+    const now = currentWeek(system, today);
+    const openFrom = seasonYear > now.year ? 1 : seasonYear < now.year - 1 ? null : firstOpenWeek(
+      seasonYear, seasonYear === now.year ? now.week : lastWeek, system, this.ctx.config.CASE_REPORT_DEADLINE_DAYS, today,
+      new Set(closureRows.map((r) => r.epi_week)),
+    );
     // The channel exactly as the district cases page draws it (the case ledger's signals).
     const cases = [...diseases.entries()].map(([diseaseId, d]) => {
       const signals = buildSignals({
         year: seasonYear, lastWeek, weeksInTargetYear: lastWeek, counts: d.counts, excludedYears: excluded.get(diseaseId) ?? [],
-        method: this.ctx.config.CHANNEL_METHOD, cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H }, population: null,
+        method: this.ctx.config.CHANNEL_METHOD, cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H }, population: null, openFrom,
       });
       const band = (f: 'lower' | 'centre' | 'upper') => signals.weeks.map((w) => (w.channel ? round(w.channel[f]) : null));
       const channel = { lower: band('lower'), centre: band('centre'), upper: band('upper'), method: this.ctx.config.CHANNEL_METHOD };
@@ -99,7 +109,7 @@ export class DistrictFileService {
         .filter((y) => y < seasonYear)
         .sort((a, b) => b - a)
         .map((year) => ({ year, counts: weeks.map((w) => d.counts.get(year)![w - 1] ?? null) }));
-      return { diseaseId, diseaseName: d.name, weeks, counts: weeks.map((w) => d.counts.get(seasonYear)?.[w - 1] ?? null), channel, priorSeasons };
+      return { diseaseId, diseaseName: d.name, weeks, counts: weeks.map((w) => d.counts.get(seasonYear)?.[w - 1] ?? null), channel, priorSeasons, openFrom };
     });
 
     const larvalByWeek = new Map<string, typeof surveyRows>();

@@ -20,6 +20,8 @@ export interface CaseWeek {
   lower: number | null;
   centre: number | null;
   upper: number | null;
+  /** Reporting for this week is still open (deadline not passed, not closed): the count is partial and gets no zone. */
+  open: boolean;
 }
 
 /** Everything one district's bulletin says, read from stored results (nothing is recomputed). */
@@ -79,6 +81,7 @@ export class BulletinDataReader {
         diseaseName: c.diseaseName,
         weeks: c.weeks.filter((w) => w <= week).map((w, i) => ({
           week: w, count: c.counts[i], lower: c.channel.lower[i], centre: c.channel.centre[i], upper: c.channel.upper[i],
+          open: c.openFrom !== null && w >= c.openFrom,
         })),
       }))
       // The disease with the most cases in the bulletin's week first.

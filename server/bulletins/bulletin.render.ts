@@ -61,8 +61,9 @@ function noteIn(note: string, w: Words): string {
 }
 
 const recentWeeks = (weeks: CaseWeek[], n = 6) => weeks.slice(Math.max(0, weeks.length - n));
+/** An open week (reporting not over) is never called above, within or below the channel: its count is partial. */
 const zoneWord = (wk: CaseWeek, w: Words) =>
-  wk.count === null || wk.upper === null ? '' : w.t(`zone.${wk.count > wk.upper ? 'above' : wk.lower !== null && wk.count < wk.lower ? 'below' : 'within'}`);
+  wk.open ? (wk.count === null ? '' : w.t('zone.open')) : wk.count === null || wk.upper === null ? '' : w.t(`zone.${wk.count > wk.upper ? 'above' : wk.lower !== null && wk.count < wk.lower ? 'below' : 'within'}`);
 /** `count` picks the plural form (a missing count reads as several); `cases` is the formatted number. */
 const caseVars = (wk: CaseWeek, w: Words) => ({ week: wk.week, count: wk.count ?? 2, cases: w.num(wk.count), lower: w.num(wk.lower, 1), upper: w.num(wk.upper, 1) });
 const labelled = (label: string, text: string, w: Words) => w.c('labelled', { label, text });

@@ -7,6 +7,7 @@ import {
   type ReopenWeekBody,
   type diseaseCreateBody,
   type caseCountBody,
+  type countQuery,
   type districtCasesQuery,
   type gridQuery,
 } from '../../shared/api/cases.schema';
@@ -24,7 +25,7 @@ import { CaseCountEntity } from './case-count.entity';
 import { CaseLedgerRepository } from './case-ledger.repository';
 import { completenessOf, presentCount, presentDisease, presentRevision } from './case-ledger.presenter';
 import { buildSignals, CHANNEL_LOOKBACK_YEARS } from './case-signals';
-import { currentWeek, deadlineOf, isDue, todayIn, weekKey, weekRef, weeksEndingWith } from './case-weeks';
+import { currentWeek, deadlineOf, firstOpenWeek, isDue, isOpenWeek, todayIn, weekKey, weekRef, weeksEndingWith } from './case-weeks';
 import { CaseWeekClosureEntity } from './case-week-closure.entity';
 import { DiseaseEntity } from './disease.entity';
 import { isUniqueViolation } from '../platform/database-errors';
@@ -272,6 +273,20 @@ export class CaseLedgerService {
     return { outcome: result.outcome, count: presentCount(result.count), closed: result.closed };
   }
 
+  /**
+   * The stored count of one district, disease and week (voided ones included, marked), so the entry form
+   * starts a correction from every recorded field — total, confirmed, probable, age bands — and changes
+   * only what the person changes.
+   */
+  async storedCount(p: Principal, districtId: string, query: z.infer<typeof countQuery>) {
+    assertDistrictVisible(p, districtId);
+    await this.districtOr404(districtId);
+    const count = await this.repo.findCount(
+      { districtId, diseaseId: query.diseaseId, epiYear: query.year, epiWeek: query.week }, this.ctx.ds.manager,
+    );
+    return { count: count ? presentCount(count) : null };
+  }
+
   // ---- revisions ----
 
   async revisions(actor: Principal, countId: string) {
@@ -400,7 +415,9 @@ export class CaseLedgerService {
         cells: weeks.map((w) => {
           const key = `${d.id}:${weekKey(w.year, w.week)}`;
           const c = countAt.get(key);
-          return { year: w.year, week: w.week, count: c ? presentCount(c) : null, closed: closedAt.has(key) };
+          const closed = closedAt.has(key);
+          const open = isOpenWeek(w.year, w.week, this.system, this.ctx.config.CASE_REPORT_DEADLINE_DAYS, today, closed);
+          return { year: w.year, week: w.week, count: c ? presentCount(c) : null, closed, open };
         }),
       })),
     };
@@ -441,11 +458,12 @@ export class CaseLedgerService {
       [...populations].reverse().find((x) => x.year < year)?.population ??
       populations.find((x) => x.year > year)?.population ??
       null;
+    const closed = new Set(closures.map((c) => c.epiWeek));
+    const openFrom = firstOpenWeek(year, lastWeek, this.system, this.ctx.config.CASE_REPORT_DEADLINE_DAYS, today, closed);
     const result = buildSignals({
       year, lastWeek, weeksInTargetYear: n, counts: byYear, excludedYears, method: this.ctx.config.CHANNEL_METHOD,
-      cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H }, population,
+      cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H }, population, openFrom,
     });
-    const closed = new Set(closures.map((c) => c.epiWeek));
     const seasonWeeks = Array.from({ length: lastWeek }, (_, i) => ({ year, week: i + 1 }));
     const completeness = (await this.completeness([district.id], seasonWeeks, today)).get(district.id)!;
     const priorYears = [...byYear.keys()].filter((y) => y < year).sort((a, b) => b - a).slice(0, 7).sort((a, b) => a - b);
@@ -463,6 +481,8 @@ export class CaseLedgerService {
       excludedYears,
       population,
       fittedGrowth: result.fittedGrowth,
+      lastCompleteWeek: result.lastCompleteWeek || null,
+      deadlineDays: this.ctx.config.CASE_REPORT_DEADLINE_DAYS,
       completeness,
       notes,
       canEnter: p.role === 'epidemiologist' && assigned,
@@ -477,6 +497,7 @@ export class CaseLedgerService {
           voided: row?.voidedAt != null,
           late: row?.late ?? false,
           closed: closed.has(w.week),
+          deadline: deadlineOf(year, w.week, this.system, this.ctx.config.CASE_REPORT_DEADLINE_DAYS),
         };
       }),
     };

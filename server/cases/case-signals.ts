@@ -39,6 +39,13 @@ export interface SignalsInput {
   method: ChannelMethod;
   cusum: { k: number; h: number };
   population: number | null;
+  /**
+   * The first open week of the target season (its reporting deadline has not passed and it is not
+   * closed): from it on, weeks are shown with their partial counts but enter no statistic — no C1–C3,
+   * CUSUM, channel zone or growth, and the fitted doubling time ends at the last complete week.
+   * Null or absent: every week up to `lastWeek` is complete.
+   */
+  openFrom?: number | null;
 }
 
 export interface WeekSignal {
@@ -53,12 +60,16 @@ export interface WeekSignal {
   c3: { statistic: number | null; alarm: boolean | null };
   cusum: { statistic: number | null; alarm: boolean | null };
   growth: { ratio: number | null; percent: number | null; doublingWeeks: number | null };
+  /** Reporting is still open for this week: its count is partial and every statistic of it is null. */
+  open: boolean;
 }
 
 export interface SignalsResult {
   seasonsUsed: number[];
   weeks: WeekSignal[];
   fittedGrowth: { weeks: number; ratio: number; doublingWeeks: number | null } | null;
+  /** The newest complete week of the target season (0 when none is). */
+  lastCompleteWeek: number;
   notes: string[];
 }
 
@@ -85,9 +96,14 @@ export function buildSignals(input: SignalsInput): SignalsResult {
 
   const current = input.counts.get(input.year) ?? [];
   const weeks = Array.from({ length: input.lastWeek }, (_, i) => i + 1);
+  // Open weeks (reporting not over) are left out of every series statistic: a partial count read as
+  // complete looks like a fall ("week on week −100 %") or hides a rise.
+  const openFrom = input.openFrom ?? null;
+  const lastCompleteWeek = openFrom === null ? input.lastWeek : Math.max(0, Math.min(input.lastWeek, openFrom - 1));
+  const completeWeeks = weeks.slice(0, lastCompleteWeek);
   // Missing weeks count as zero in the series statistics; the completeness figure says how many are missing.
   const thisSeason = weeks.map((w) => current[w - 1] ?? null);
-  const filled = thisSeason.map((v) => v ?? 0);
+  const filled = thisSeason.slice(0, lastCompleteWeek).map((v) => v ?? 0);
 
   // C1–C3 need up to 11 weeks of lead-in: the previous season's weeks go in front of this one's.
   const previous = input.counts.get(input.year - 1) ?? [];
@@ -116,7 +132,7 @@ export function buildSignals(input: SignalsInput): SignalsResult {
   const growth = growthSeries(filled);
 
   let fittedGrowth: SignalsResult['fittedGrowth'] = null;
-  const reported = thisSeason.map((v, i) => ({ v, i })).filter((x) => x.v !== null);
+  const reported = thisSeason.slice(0, lastCompleteWeek).filter((v) => v !== null);
   const window = filled.slice(-FIT_WEEKS);
   if (reported.length >= FIT_WEEKS && window.every((v) => v > 0)) {
     const fit = logLinearGrowth(window);
@@ -126,10 +142,20 @@ export function buildSignals(input: SignalsInput): SignalsResult {
   return {
     seasonsUsed,
     fittedGrowth,
+    lastCompleteWeek,
     notes,
     weeks: weeks.map((w, i) => {
       const cases = thisSeason[i];
       const band = bands[i];
+      if (i >= completeWeeks.length) {
+        // An open week: its partial count and the channel band are shown; no statistic reads it.
+        const none = { statistic: null, alarm: null };
+        return {
+          week: w, cases, incidence: cases === null || input.population === null ? null : incidencePer100k(cases, input.population),
+          channel: band, seasons: histories[i].length, zone: null, c1: none, c2: none, c3: none, cusum: none,
+          growth: { ratio: null, percent: null, doublingWeeks: null }, open: true,
+        };
+      }
       return {
         week: w,
         cases,
@@ -142,6 +168,7 @@ export function buildSignals(input: SignalsInput): SignalsResult {
         c3: { statistic: tests[2].statistic[i], alarm: tests[2].alarm[i] },
         cusum: { statistic: cs.statistic[i], alarm: cs.alarm[i] },
         growth: growth[i],
+        open: false,
       };
     }),
   };

@@ -44,3 +44,29 @@ export function deadlineOf(year: number, week: number, system: EpiWeekSystem, de
 /** Whether a week's reports are due (its deadline has passed), so it counts in the completeness figure. */
 export const isDue = (year: number, week: number, system: EpiWeekSystem, deadlineDays: number, today: string) =>
   deadlineOf(year, week, system, deadlineDays) < today;
+
+/**
+ * Whether a week is still open: its reporting deadline (the week's last day plus
+ * CASE_REPORT_DEADLINE_DAYS) has not passed on `today` and nobody closed it. An open week's count is
+ * partial: it is drawn and labelled as incomplete and enters no signal (C1–C3, the channel zone,
+ * growth, the tier, a bulletin's "above the channel"). docs/case-ledger.md, "Open weeks".
+ */
+export const isOpenWeek = (year: number, week: number, system: EpiWeekSystem, deadlineDays: number, today: string, closed: boolean) =>
+  !closed && !isDue(year, week, system, deadlineDays, today);
+
+/**
+ * The first open week of a week-year up to `lastWeek` (weeks from it on are open), or null when every
+ * week up to `lastWeek` is complete. Open weeks are the newest ones: a week's deadline passes before the
+ * next one's; a week closed early completes it and every week before it for this purpose (closing says the
+ * reporting of that week is done, which a person does in order).
+ */
+export function firstOpenWeek(
+  year: number, lastWeek: number, system: EpiWeekSystem, deadlineDays: number, today: string, closedWeeks: ReadonlySet<number>,
+): number | null {
+  let first: number | null = null;
+  for (let w = lastWeek; w >= 1; w--) {
+    if (!isOpenWeek(year, w, system, deadlineDays, today, closedWeeks.has(w))) break;
+    first = w;
+  }
+  return first;
+}

@@ -5,6 +5,7 @@ import {
   caseUploadFields,
   channelSettingsBody,
   closeWeekBody, reopenWeekBody,
+  countQuery,
   diseaseCreateBody,
   districtCasesQuery,
   gridQuery,
@@ -63,6 +64,10 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
     defineRoute({
       method: 'get', path: '/districts/:id/cases', access: 'signed-in', params: idParams, query: districtCasesQuery,
       handler: ({ principal, params, query }) => ledger.signals(principal, params.id, query),
+    }),
+    defineRoute({
+      method: 'get', path: '/districts/:id/cases/count', access: 'signed-in', params: idParams, query: countQuery,
+      handler: ({ principal, params, query }) => ledger.storedCount(principal, params.id, query),
     }),
     defineRoute({
       method: 'put', path: '/districts/:id/cases', access: ['epidemiologist'], params: idParams, body: caseCountBody,

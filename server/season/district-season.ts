@@ -8,6 +8,7 @@ import {
 } from '../../shared/model';
 import { aggregateLarvalIndices } from '../../shared/signals';
 import { buildSignals } from '../cases/case-signals';
+import { firstOpenWeek, isOpenWeek } from '../cases/case-weeks';
 import { DataProblem } from '../http/problem-reason';
 import { computeTier, type TierInputs, type TierResult, type TierSettings } from '../../shared/tier';
 import type { CaseRow, DistrictForRun, SurveyRow, VectorClockSeries, WeatherColumns } from './season.repository';
@@ -22,6 +23,10 @@ export interface DistrictSeasonInput {
   priorWeather: Map<number, WeatherColumns>;
   cases: CaseRow[];
   excludedYears: Map<string, number[]>;
+  /** The district's closed weeks ("year:week"); with `deadlineDays` they tell open weeks from complete ones. */
+  closedWeeks?: ReadonlySet<string>;
+  /** CASE_REPORT_DEADLINE_DAYS (default 3). */
+  deadlineDays?: number;
   surveys: SurveyRow[];
   settings: TierSettings;
   epiSystem: EpiWeekSystem;
@@ -36,7 +41,10 @@ export interface DistrictSeasonResult {
   tierLow: TierResult;
   tierHigh: TierResult;
   profileId: string | null;
+  /** Cases of the newest complete week (`casesWeek`), summed over the diseases reported in it (`casesDiseaseIds`). */
   casesThisWeek: number | null;
+  casesWeek: { year: number; week: number } | null;
+  casesDiseaseIds: string[] | null;
   channelZone: 'below' | 'within' | 'above' | null;
   latestWeather: string | null;
   /** Codes with parameters; the Season runs screen words them (`warning.<code>`). */
@@ -87,30 +95,38 @@ function countsByDisease(cases: CaseRow[]): Map<string, Map<number, (number | nu
 }
 
 /**
- * The case driver's inputs: the newest reported week up to the as-of week, and for each disease its
+ * The case driver's inputs: the newest reported complete week up to the as-of week (an open week —
+ * reporting deadline not passed, not closed — holds a partial count and is never read as complete), and for each disease its
  * channel zone, C2 alarm and growth from the case ledger's own signals (server/cases/case-signals.ts),
  * so the tier reads the same figures as the district cases page. The disease with the strongest signal wins.
  */
 function caseInputs(input: DistrictSeasonInput) {
   const now = epiWeek(input.asOf, input.epiSystem);
+  const deadlineDays = input.deadlineDays ?? 3;
+  const closed = input.closedWeeks ?? new Set<string>();
+  const open = (year: number, week: number) => isOpenWeek(year, week, input.epiSystem, deadlineDays, input.asOf, closed.has(`${year}:${week}`));
   let latest: { year: number; week: number } | null = null;
   for (const r of input.cases) {
     const beforeNow = r.epiYear < now.year || (r.epiYear === now.year && r.epiWeek <= now.week);
-    if (beforeNow && (!latest || r.epiYear > latest.year || (r.epiYear === latest.year && r.epiWeek > latest.week)))
+    if (beforeNow && !open(r.epiYear, r.epiWeek) && (!latest || r.epiYear > latest.year || (r.epiYear === latest.year && r.epiWeek > latest.week)))
       latest = { year: r.epiYear, week: r.epiWeek };
   }
-  if (!latest) return { zone: null, aberrationAlarm: null, growthRatio: null, cases: null, ageWeeks: null };
+  if (!latest) return { zone: null, aberrationAlarm: null, growthRatio: null, cases: null, ageWeeks: null, week: null, diseaseIds: null };
+  const closedThisYear = new Set([...closed].filter((k) => k.startsWith(`${latest!.year}:`)).map((k) => Number(k.split(':')[1])));
+  const openFrom = firstOpenWeek(latest.year, latest.week, input.epiSystem, deadlineDays, input.asOf, closedThisYear);
   const ageWeeks = latest.year === now.year ? now.week - latest.week : now.week + weeksInYear(latest.year, input.epiSystem) - latest.week;
   let best: { rank: number; zone: 'below' | 'within' | 'above' | null; alarm: boolean | null; growth: number | null } | null = null;
   let total = 0;
+  const diseaseIds: string[] = [];
   for (const [diseaseId, counts] of countsByDisease(input.cases)) {
     const x = counts.get(latest.year)?.[latest.week - 1];
     if (x === undefined || x === null) continue;
     total += x;
+    diseaseIds.push(diseaseId);
     const week = buildSignals({
       year: latest.year, lastWeek: latest.week, weeksInTargetYear: weeksInYear(latest.year, input.epiSystem), counts,
       excludedYears: input.excludedYears.get(`${input.district.id}:${diseaseId}`) ?? [], method: input.channelMethod,
-      cusum: input.cusum, population: null,
+      cusum: input.cusum, population: null, openFrom,
     }).weeks[latest.week - 1];
     const { zone } = week;
     const alarm = week.c2.alarm;
@@ -123,8 +139,26 @@ function caseInputs(input: DistrictSeasonInput) {
     aberrationAlarm: best?.alarm ?? null,
     growthRatio: best?.growth ?? null,
     cases: total,
-    ageWeeks: latest.year === now.year && latest.week === now.week ? 0 : ageWeeks,
+    // Weeks still open are not yet due: the count's age is measured from the newest week that could be complete.
+    ageWeeks: Math.max(0, (latest.year === now.year && latest.week === now.week ? 0 : ageWeeks) - openWeeksBefore(now, open, input.epiSystem)),
+    week: latest,
+    diseaseIds: diseaseIds.sort(),
   };
+}
+
+/** How many weeks, counting back from `now`, are still open (at most 12). */
+function openWeeksBefore(now: { year: number; week: number }, open: (year: number, week: number) => boolean, system: EpiWeekSystem) {
+  let { year, week } = now;
+  let n = 0;
+  while (n < 12 && open(year, week)) {
+    n++;
+    week -= 1;
+    if (week === 0) {
+      year -= 1;
+      week = weeksInYear(year, system);
+    }
+  }
+  return n;
 }
 
 export function computeDistrictSeason(input: DistrictSeasonInput): DistrictSeasonResult {
@@ -203,6 +237,8 @@ export function computeDistrictSeason(input: DistrictSeasonInput): DistrictSeaso
     tierHigh: computeTier(build('high'), input.settings),
     profileId: primary?.profileId ?? null,
     casesThisWeek: cases.cases,
+    casesWeek: cases.week,
+    casesDiseaseIds: cases.diseaseIds,
     channelZone: cases.zone,
     latestWeather,
     warnings,

@@ -59,6 +59,17 @@ export class DistrictTierEntity {
   @Column({ name: 'cases_this_week', type: 'integer', nullable: true })
   casesThisWeek: number | null;
 
+  /** The week `casesThisWeek` counts: the newest complete week (reporting over) at the run's as-of date. */
+  @Column({ name: 'cases_epi_year', type: 'integer', nullable: true })
+  casesEpiYear: number | null;
+
+  @Column({ name: 'cases_epi_week', type: 'integer', nullable: true })
+  casesEpiWeek: number | null;
+
+  /** The diseases whose counts make up `casesThisWeek` (those reported in that week). */
+  @Column({ name: 'cases_disease_ids', type: 'uuid', array: true, nullable: true })
+  casesDiseaseIds: string[] | null;
+
   @Column({ name: 'channel_zone', type: 'text', nullable: true })
   channelZone: string | null;
 

@@ -148,13 +148,14 @@ export class SeasonRunService {
       for (let i = 0; i < todo.length && !stop; i += BATCH) {
         const batch = todo.slice(i, i + BATCH);
         const ids = batch.map((d) => d.id);
-        const [weather, prior, cases, excluded, surveys, previous] = await Promise.all([
+        const [weather, prior, cases, excluded, surveys, previous, closed] = await Promise.all([
           this.repo.weather(ids, seasonStart, asOf),
           this.repo.weather(ids, `${seasonYear - PRIOR_SEASONS}-01-01`, `${seasonYear - 1}-12-31`),
           this.repo.cases(ids, caseFromYear),
           this.repo.excludedYears(ids),
           this.repo.surveys(ids, isoMinusDays(asOf, 28), asOf),
           this.repo.previousTiers(ids, week.year, week.week),
+          this.repo.closedWeeks(ids, seasonYear - 1),
         ]);
         const casesOf = groupBy(cases, (c) => c.districtId);
         const surveysOf = groupBy(surveys, (s) => s.districtId);
@@ -172,6 +173,7 @@ export class SeasonRunService {
             const result = computeDistrictSeason({
               district, asOf, seasonYear, weather: weather.get(district.id)!, priorWeather: weatherByYear(prior.get(district.id)!),
               cases: casesOf.get(district.id) ?? [], excludedYears: excluded,
+              closedWeeks: closed.get(district.id) ?? new Set(), deadlineDays: this.ctx.config.CASE_REPORT_DEADLINE_DAYS,
               surveys: surveysOf.get(district.id) ?? [], settings,
               epiSystem: this.ctx.config.EPI_WEEK_SYSTEM, channelMethod: this.ctx.config.CHANNEL_METHOD,
               cusum: { k: this.ctx.config.CUSUM_K, h: this.ctx.config.CUSUM_H },
@@ -278,6 +280,7 @@ export class SeasonRunService {
         drivers: result.tier.drivers, notes: result.tier.notes, leadingDriver: result.tier.leadingDriver,
         changedDriver: changedDriver(result.tier.drivers, (before?.drivers as never) ?? null),
         profileId: result.profileId, casesThisWeek: result.casesThisWeek, channelZone: result.channelZone,
+        casesEpiYear: result.casesWeek?.year ?? null, casesEpiWeek: result.casesWeek?.week ?? null, casesDiseaseIds: result.casesDiseaseIds,
         latestWeather: result.latestWeather,
       })), ['districtId', 'epiYear', 'epiWeek']);
       for (const { district, result, before } of results) {

@@ -102,13 +102,15 @@ export class SeasonRepository {
                       FROM district_weather_days WHERE date BETWEEN $1 AND $2 GROUP BY district_id),
               c AS (SELECT district_id, bit_xor(hash_record_extended((disease_id, epi_year, epi_week, cases), 0)) || ':' || count(*) h
                       FROM case_counts WHERE epi_year >= $3 AND voided_at IS NULL GROUP BY district_id),
+              k AS (SELECT district_id, bit_xor(hash_record_extended((epi_year, epi_week), 0)) || ':' || count(*) h
+                      FROM case_week_closures WHERE epi_year >= $3 GROUP BY district_id),
               s AS (SELECT district_id, bit_xor(hash_record_extended((id, houses_inspected, houses_positive, containers_inspected, containers_positive, pupae), 0)) || ':' || count(*) h
                       FROM larval_surveys WHERE survey_date BETWEEN ($1::date - 28) AND $2 AND voided_at IS NULL GROUP BY district_id),
               p AS (SELECT district_id, string_agg(concat_ws(':', profile_id, biofix), ',' ORDER BY profile_id) h
                       FROM district_profiles GROUP BY district_id)
-         SELECT d.id, md5(concat_ws('|', d.centroid_lat, w.h, c.h, s.h, p.h)) AS fp
+         SELECT d.id, md5(concat_ws('|', d.centroid_lat, w.h, c.h, k.h, s.h, p.h)) AS fp
            FROM districts d
-           LEFT JOIN w ON w.district_id = d.id LEFT JOIN c ON c.district_id = d.id
+           LEFT JOIN w ON w.district_id = d.id LEFT JOIN c ON c.district_id = d.id LEFT JOIN k ON k.district_id = d.id
            LEFT JOIN s ON s.district_id = d.id LEFT JOIN p ON p.district_id = d.id`,
         [from, to, fromYear],
       );
@@ -188,6 +190,20 @@ export class SeasonRepository {
          FROM case_counts WHERE district_id = ANY($1) AND epi_year >= $2 AND voided_at IS NULL ORDER BY epi_year, epi_week`,
       [districtIds, fromYear],
     );
+  }
+
+  /** Closed weeks by district ("year:week" keys): a closed week is complete even before its deadline. */
+  async closedWeeks(districtIds: string[], fromYear: number): Promise<Map<string, Set<string>>> {
+    const rows: { district_id: string; epi_year: number; epi_week: number }[] = await this.ds.query(
+      `SELECT district_id, epi_year, epi_week FROM case_week_closures WHERE district_id = ANY($1) AND epi_year >= $2`,
+      [districtIds, fromYear],
+    );
+    const out = new Map<string, Set<string>>();
+    for (const r of rows) {
+      if (!out.has(r.district_id)) out.set(r.district_id, new Set());
+      out.get(r.district_id)!.add(`${r.epi_year}:${r.epi_week}`);
+    }
+    return out;
   }
 
   async excludedYears(districtIds: string[]): Promise<Map<string, number[]>> {

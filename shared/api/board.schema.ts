@@ -35,7 +35,12 @@ export const ladderRow = z.object({
   leadingDriver: driverId.nullable(),
   changedDriver: driverId.nullable(),
   confidence,
+  /** Cases of the newest complete week (`casesWeek`: its reporting is over), summed over `casesDiseases`. */
   casesThisWeek: z.number().int().nullable(),
+  /** The week `casesThisWeek` counts; null when no complete week has a count (or the tier predates this field). */
+  casesWeek: z.object({ year: z.number().int(), week: z.number().int() }).nullable(),
+  /** The diseases counted in `casesThisWeek`. */
+  casesDiseases: z.array(z.object({ code: z.string(), name: z.string() })),
   channelZone: zone.nullable(),
   latestWeather: z.string().nullable(),
   profileId: z.string().nullable(),
@@ -101,6 +106,11 @@ export const districtFileResponse = z.object({
       counts: nullableNumbers,
       channel: z.object({ lower: nullableNumbers, centre: nullableNumbers, upper: nullableNumbers, method: z.string() }),
       priorSeasons: z.array(z.object({ year: z.number().int(), counts: nullableNumbers })),
+      /**
+       * The first week still open for reporting (its deadline has not passed and it is not closed); from it
+       * on counts are partial: drawn as incomplete, given no channel zone. Null when every week is complete.
+       */
+      openFrom: z.number().int().nullable().default(null),
     }),
   ),
   larval: z.array(

@@ -152,6 +152,13 @@ export const gridQuery = z.strictObject({
   scope: z.enum(['mine', 'all']).default('mine'),
 });
 
+/** One stored weekly count (GET /districts/:id/cases/count): what the entry form loads before a correction. */
+export const countQuery = z.strictObject({
+  diseaseId: uuid,
+  year: coerceInt(epiYear),
+  week: coerceInt(epiWeekNumber),
+});
+
 export const districtCasesQuery = z.strictObject({
   diseaseId: uuid,
   year: coerceInt(epiYear).optional(),
@@ -195,6 +202,10 @@ export const caseCountDto = z.object({
 });
 export type CaseCountDto = z.infer<typeof caseCountDto>;
 
+/** The stored count of one district, disease and week, or null when none was entered. */
+export const countResponse = z.object({ count: caseCountDto.nullable() });
+export type CountResponse = z.infer<typeof countResponse>;
+
 export const caseCountResult = z.object({
   outcome: z.enum(['created', 'corrected', 'unchanged']),
   count: caseCountDto,
@@ -206,6 +217,8 @@ export const gridCell = z.object({
   week: z.number(),
   count: caseCountDto.nullable(),
   closed: z.boolean(),
+  /** Reporting is still open (the deadline has not passed and the week is not closed): the count may be partial. */
+  open: z.boolean(),
 });
 export const gridRow = z.object({
   district: districtRef,
@@ -280,6 +293,13 @@ export const signalWeek = z.object({
   voided: z.boolean().optional(),
   late: z.boolean(),
   closed: z.boolean(),
+  /**
+   * Reporting is still open (its deadline, `deadline`, has not passed and nobody closed it): `cases` is
+   * partial, and zone, C1–C3, CUSUM and growth are null — an open week enters no signal.
+   */
+  open: z.boolean(),
+  /** The last day the week's counts are on time (the week's last day plus the deadline in days). */
+  deadline: z.string(),
   incidence: z.number().nullable(),
   channel: channelBandSchema.nullable(),
   seasons: z.number(),
@@ -304,6 +324,10 @@ export const signalsResponse = z.object({
   population: z.number().nullable(),
   weeks: z.array(signalWeek),
   fittedGrowth: z.object({ weeks: z.number(), ratio: z.number(), doublingWeeks: z.number().nullable() }).nullable(),
+  /** The newest complete week of the season (null when none is yet): the headline reads this week. */
+  lastCompleteWeek: z.number().nullable(),
+  /** CASE_REPORT_DEADLINE_DAYS: days after a week's end until its reporting closes. */
+  deadlineDays: z.number(),
   completeness: z.object({ expected: z.number(), received: z.number(), onTime: z.number(), share: z.number().nullable() }),
   notes: z.array(z.string()),
   canEnter: z.boolean(),

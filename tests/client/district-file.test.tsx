@@ -177,6 +177,29 @@ describe('the District file', () => {
     expect(genStep(6, 8)).toBe(1);
   });
 
+  it('when the low, central and high vectorial capacity agree to two decimals, then one value is shown, not a "low 0.27 – high 0.27" range', async () => {
+    const flat = demoDistrictFile();
+    const vc = flat.vectorClock[0] as { rvc: (number | null)[]; rvcLow: (number | null)[]; rvcHigh: (number | null)[] };
+    vc.rvc = vc.rvc.map(() => 0.271);
+    vc.rvcLow = vc.rvcLow.map(() => 0.2705);
+    vc.rvcHigh = vc.rvcHigh.map(() => 0.2714);
+    const fetch = fakeApi({});
+    fetch.mockImplementation(async (input: string | URL | Request) => {
+      const u = new URL(String(input), 'http://localhost');
+      if (u.pathname === '/api/me') return json(200, officerMe);
+      if (u.pathname === `/api/districts/${file.district.id}/file`) return json(200, flat);
+      return json(404, { error: { code: 'not_found', message: 'not found' } });
+    });
+    view = await renderRoutes(path);
+    const c = view.container;
+    await waitFor(() => expect(c.querySelector('h1')?.textContent).toBe('Saltmarsh Coast'), 5000);
+    expect(c.textContent).toContain('0.27');
+    expect(c.textContent).not.toMatch(/low 0\.27\s*–\s*high 0\.27/);
+    const summaries = [...c.querySelectorAll('[role="img"]')].map((e) => e.getAttribute('aria-label')).join(' ');
+    expect(summaries).not.toMatch(/low estimate of 0\.27 and a high of 0\.27/);
+    expect(summaries).toContain('the low and high estimates give the same value');
+  });
+
   it('when the generations pass a whole number, then that day is a generation mark', () => {
     expect(generationDays({ dates: ['d1', 'd2', 'd3', 'd4'], generations: [0.4, 1.1, null, 2.0] })).toEqual([
       { date: 'd2', generation: 1 },

@@ -37,7 +37,7 @@ describe('the Ladder in French', () => {
     );
     const c = view.container;
     const headers = [...c.querySelectorAll('thead th button.sort-button')].map((b) => b.firstChild?.textContent);
-    expect(headers).toEqual(['Rang', 'District', 'Niveau', 'Depuis la semaine dernière', 'Facteur principal', 'Cas de la semaine', 'Canal', 'Météo la plus récente']);
+    expect(headers).toEqual(['Rang', 'District', 'Niveau', 'Depuis la semaine dernière', 'Facteur principal', 'Cas (dernière semaine complète)', 'Canal', 'Météo la plus récente']);
     const first = c.querySelector('tr[data-district="HV-01"]')!;
     expect(first.textContent).toContain('Critique');
     expect(first.textContent).toContain('score 0,81');

@@ -49,7 +49,7 @@ describe('the Ladder table', () => {
 
   it('when a column header is clicked, then the rows sort by it and aria-sort says which way', async () => {
     const c = await renderTable(rows);
-    const cases = header(c, 'Cases this week');
+    const cases = header(c, 'Cases (last complete week)');
     expect(cases.getAttribute('aria-sort')).toBe('none');
     await click(cases.querySelector('button')!);
     expect(cases.getAttribute('aria-sort')).toBe('descending');
@@ -127,7 +127,7 @@ describe('the Ladder CSV', () => {
     expect(clicked).toHaveBeenCalled();
     const text = (await saved!.text()).replace(/^\ufeff/, '');
     const lines = text.trim().split('\r\n');
-    expect(lines[0]).toBe('Rank,District,Code,Tier,Score,Tier range,Confidence,Since last week,Leading driver,Cases this week,Channel,Freshest weather');
+    expect(lines[0]).toBe('Rank,District,Code,Tier,Score,Tier range,Confidence,Since last week,Leading driver,Cases (last complete week),Channel,Freshest weather');
     expect(lines).toHaveLength(2);
     expect(lines[1]).toContain("'=cmd|' /C calc'!A0");
     expect(lines[1]).not.toMatch(/,=cmd/);

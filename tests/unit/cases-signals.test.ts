@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { buildSignals } from '../../server/cases/case-signals';
-import { currentWeek, deadlineOf, isDue, weekRef, weeksEndingWith } from '../../server/cases/case-weeks';
+import { currentWeek, deadlineOf, firstOpenWeek, isDue, isOpenWeek, weekRef, weeksEndingWith } from '../../server/cases/case-weeks';
 import { caseCountBody, weekProblem } from '../../shared/api/cases.schema';
 import { surveyBody } from '../../shared/api/surveys.schema';
 import { buildDemoCases } from '../../sample/demo-cases';
@@ -14,6 +14,40 @@ const base = {
   population: 250_000,
   excludedYears: [] as number[],
 };
+
+describe('open weeks', () => {
+  it('when a week’s deadline has not passed and it is not closed, then it is open; the open weeks are the newest ones and closing completes a week early', () => {
+    // MMWR 2026: week 22 runs 31 May–6 June; with a 3-day deadline its counts are due by 9 June (common practice: a fixed reporting deadline).
+    expect(deadlineOf(2026, 22, 'mmwr', 3)).toBe('2026-06-09');
+    expect(isOpenWeek(2026, 22, 'mmwr', 3, '2026-06-09', false)).toBe(true);
+    expect(isOpenWeek(2026, 22, 'mmwr', 3, '2026-06-10', false)).toBe(false);
+    expect(isOpenWeek(2026, 22, 'mmwr', 3, '2026-06-08', true)).toBe(false);
+    expect(firstOpenWeek(2026, 23, 'mmwr', 3, '2026-06-08', new Set())).toBe(22);
+    expect(firstOpenWeek(2026, 23, 'mmwr', 3, '2026-06-08', new Set([22]))).toBe(23);
+    expect(firstOpenWeek(2025, 52, 'mmwr', 3, '2026-06-08', new Set())).toBeNull();
+  });
+
+  it('when the newest weeks are open, then they keep their counts but get no zone, C1–C3, CUSUM or growth, and the fit ends at the last complete week', () => {
+    const counts = new Map<number, (number | null)[]>([
+      [2023, series(52, {}, 10)],
+      [2024, series(52, {}, 12)],
+      [2025, series(52, {}, 8)],
+      [2026, series(52, { 9: 1, 10: 60 }, 10)],
+    ]);
+    const r = buildSignals({ ...base, year: 2026, lastWeek: 10, weeksInTargetYear: 52, counts, openFrom: 9 });
+    expect(r.lastCompleteWeek).toBe(8);
+    for (const w of r.weeks.slice(8)) {
+      expect(w.open).toBe(true);
+      expect(w.zone).toBeNull();
+      expect([w.c1.statistic, w.c2.statistic, w.c3.statistic, w.cusum.statistic, w.growth.ratio]).toEqual([null, null, null, null, null]);
+    }
+    expect(r.weeks[9].cases).toBe(60);
+    expect(r.weeks[7]).toMatchObject({ open: false, zone: 'within' });
+    expect(r.fittedGrowth?.ratio).toBeCloseTo(1, 9);
+    // The same season read with every week complete: week 10's 60 is above the channel.
+    expect(buildSignals({ ...base, year: 2026, lastWeek: 10, weeksInTargetYear: 52, counts }).weeks[9].zone).toBe('above');
+  });
+});
 
 describe('case signals of a season', () => {
   it('when five prior seasons hold 3, 7, 15, 1, 7 for a week, then the channel is Bortman’s geometric band of docs/signals.md', () => {

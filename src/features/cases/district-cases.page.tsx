@@ -23,7 +23,7 @@ const ChannelChart = lazy(() => import('./components/channel-chart').then((m) =>
 /** The cases part of the District file: this season against the district's endemic channel, its signals and larval surveys. */
 export function DistrictCasesPage() {
   const { t } = useTranslation('cases');
-  const { formatNumber, formatShare } = useCaseFormat();
+  const { formatNumber, formatShare, formatDate } = useCaseFormat();
   const me = useSession();
   const { id = '' } = useParams();
   const [search, setSearch] = useSearchParams();
@@ -41,7 +41,9 @@ export function DistrictCasesPage() {
 
   if (isForbidden(signals.error)) return <NotAllowedPage />;
   const data = signals.data;
-  const latest = data?.weeks.at(-1);
+  // The headline reads the newest complete week: an open week (reporting not over) holds a partial count.
+  const latest = data?.lastCompleteWeek ? data.weeks.find((w) => w.week === data.lastCompleteWeek) : undefined;
+  const openWeeks = data?.weeks.filter((w) => w.open) ?? [];
   const currentYear = settings.data?.currentWeek.year ?? new Date().getFullYear();
   const years = Array.from({ length: 7 }, (_, i) => currentYear - i);
   const set = (key: string, value: string) => {
@@ -80,7 +82,7 @@ export function DistrictCasesPage() {
             <>
               <dl className="grid grid-cols-2 gap-3 sm:grid-cols-4" data-testid="season-summary">
                 <div className="card">
-                  <dt className="text-sm text-ink-muted">{t('district.week', { week: latest?.week ?? '—' })}</dt>
+                  <dt className="text-sm text-ink-muted">{latest ? t('district.completeWeek', { week: latest.week }) : t('district.noCompleteWeek')}</dt>
                   <dd className="text-2xl font-bold tabular-nums">
                     {latest?.cases === null || latest?.cases === undefined ? t('district.noCases') : t('district.cases', { count: latest.cases })}
                   </dd>
@@ -105,6 +107,16 @@ export function DistrictCasesPage() {
                   </dd>
                 </div>
               </dl>
+              {openWeeks.length ? (
+                <p className="notice notice-info text-sm" data-testid="open-weeks">
+                  {t('district.openWeeks', {
+                    count: openWeeks.length,
+                    weeks: openWeeks.map((w) => w.week).join(', '),
+                    date: formatDate(openWeeks.at(-1)!.deadline),
+                    days: data.deadlineDays,
+                  })}
+                </p>
+              ) : null}
               <p className="text-sm text-ink-muted">
                 {t('district.channel', {
                   method: t(`district.method.${data.channelMethod}`),

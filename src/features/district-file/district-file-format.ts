@@ -74,3 +74,26 @@ export const fixed = (w: LadderWords, x: number | null, digits = 2) => w.f.numbe
 /** A vector–pathogen profile's name in the interface language (the server's English name for a profile the client does not know). */
 export const profileLabel = (w: Pick<LadderWords, 't'>, profile: { profileId: string; profileName: string }) =>
   w.t(`district-file:profileNames.${profile.profileId}`, { defaultValue: profile.profileName });
+
+/** Whether week index `i` of a disease's season is still open for reporting (a partial count, no zone). */
+export const isOpenWeekAt = (cases: { weeks: number[]; openFrom?: number | null }, i: number) =>
+  cases.openFrom !== null && cases.openFrom !== undefined && cases.weeks[i] >= cases.openFrom;
+
+/** The index of the newest complete week with a count (-1 when none): the headline figures read this week. */
+export function lastCompleteIndex(cases: { weeks: number[]; counts: (number | null)[]; openFrom?: number | null }) {
+  for (let i = cases.counts.length - 1; i >= 0; i--) if (cases.counts[i] !== null && !isOpenWeekAt(cases, i)) return i;
+  return -1;
+}
+
+/** The newest open week with a count, as its index (-1 when none). */
+export function lastOpenIndex(cases: { weeks: number[]; counts: (number | null)[]; openFrom?: number | null }) {
+  for (let i = cases.counts.length - 1; i >= 0; i--) if (cases.counts[i] !== null && isOpenWeekAt(cases, i)) return i;
+  return -1;
+}
+
+/**
+ * Whether low, central and high estimates read the same to two decimals: they are then shown as one value
+ * (a "low 0.27 – high 0.27" range says nothing and reads as a mistake).
+ */
+export const sameToTwoDecimals = (w: Pick<LadderWords, 'f'>, ...xs: (number | null | undefined)[]) =>
+  xs.every((x) => x !== null && x !== undefined) && new Set(xs.map((x) => w.f.number(x, 2, true))).size === 1;

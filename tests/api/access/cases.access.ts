@@ -9,6 +9,7 @@ export const casesAccess: AccessTable = {
   'POST /cases/uploads': ['epidemiologist'],
   'GET /cases/counts/:id/revisions': ['admin', 'supervisor', 'epidemiologist'],
   'GET /districts/:id/cases': ALL_SIGNED_IN,
+  'GET /districts/:id/cases/count': ALL_SIGNED_IN,
   'PUT /districts/:id/cases': ['epidemiologist'],
   'POST /districts/:id/weeks/close': ['epidemiologist', 'supervisor'],
   'POST /districts/:id/weeks/reopen': ['epidemiologist', 'supervisor'],

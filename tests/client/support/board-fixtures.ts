@@ -18,6 +18,8 @@ export const ladderRow = (n: number, over: Record<string, unknown> = {}) => ({
   changedDriver: null,
   confidence: 'ok',
   casesThisWeek: 0,
+  casesWeek: { year: 2025, week: 21 },
+  casesDiseases: [{ code: 'DENV', name: 'Dengue' }],
   channelZone: 'within',
   latestWeather: '2025-06-01',
   profileId: 'aedes-aegypti-dengue',

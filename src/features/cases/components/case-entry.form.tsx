@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import { useForm, type FieldError } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
@@ -7,11 +7,20 @@ import type { DistrictRef } from '../../../../shared/api/auth.schema';
 import { FormMessage, SelectField, TextField } from '../../../components/form';
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
 import { usePutCount } from '../api/put-count.api';
+import { useStoredCount } from '../api/stored-count.api';
 import { caseMessage } from '../case-format';
 
 const optionalNumber = (v: unknown) => (v === '' || v === null || v === undefined ? null : Number(v));
 
-/** One district's count for one week, with the optional confirmed / probable split. */
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+const SPLIT_FIELDS = ['cases', 'confirmed', 'probable'] as const;
+
+/**
+ * One district's count for one week, with the optional confirmed / probable split. Once district,
+ * disease, year and week name a week that already holds a count, the form loads it (total, confirmed,
+ * probable) into every field the person has not touched, so a correction changes only what the person
+ * changes; the age bands, which this form does not show, are left out of the body and so kept as stored.
+ */
 export function CaseEntryForm({ districts, diseases, settings }: { districts: DistrictRef[]; diseases: DiseaseDto[]; settings: CasesSettings }) {
   const { t } = useTranslation('cases');
   const numberError = (label: string, error: FieldError | undefined, empty: string) =>
@@ -24,6 +33,9 @@ export function CaseEntryForm({ districts, diseases, settings }: { districts: Di
     register,
     handleSubmit,
     setError,
+    watch,
+    getFieldState,
+    resetField,
     formState: { errors, isSubmitting },
   } = useForm<CaseEntryForm>({
     resolver: zodResolver(schema),
@@ -37,6 +49,21 @@ export function CaseEntryForm({ districts, diseases, settings }: { districts: Di
       reason: '',
     },
   });
+
+  const [districtId, diseaseId, year, week] = watch(['districtId', 'diseaseId', 'year', 'week']);
+  const keyValid =
+    UUID.test(districtId ?? '') && UUID.test(diseaseId ?? '') && Number.isInteger(year) && year >= 1990 && year <= 2100 &&
+    Number.isInteger(week) && week >= 1 && week <= 53;
+  const stored = useStoredCount({ districtId, diseaseId, year, week }, keyValid);
+  const record = keyValid && stored.data?.count && !stored.data.count.voided ? stored.data.count : null;
+  const recordKey = keyValid && stored.data ? `${districtId}:${diseaseId}:${year}:${week}:${record?.version ?? 0}` : null;
+  useEffect(() => {
+    if (!recordKey) return;
+    // A field the person typed in keeps what they typed; every other field shows the stored value (or empties).
+    const values = { cases: record?.cases, confirmed: record?.confirmed ?? null, probable: record?.probable ?? null };
+    for (const f of SPLIT_FIELDS) if (!getFieldState(f).isDirty) resetField(f, { defaultValue: values[f] as never });
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [recordKey]);
 
   const onSubmit = handleSubmit(async (values) => {
     setMessage(null);
@@ -58,6 +85,13 @@ export function CaseEntryForm({ districts, diseases, settings }: { districts: Di
         {t('entry.title')}
       </h2>
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
+      {record ? (
+        <p className="notice notice-info text-sm" data-testid="stored-count">
+          {record.confirmed === null && record.probable === null
+            ? t('entry.storedNoSplit', { week: record.week, year: record.year, cases: record.cases })
+            : t('entry.stored', { week: record.week, year: record.year, cases: record.cases, confirmed: record.confirmed ?? '—', probable: record.probable ?? '—' })}
+        </p>
+      ) : null}
       <div className="grid gap-3 sm:grid-cols-2">
         <SelectField label={t('entry.district')} error={textError(t('entry.district'), errors.districtId)} {...register('districtId')}>
           {districts.map((d) => (

@@ -66,11 +66,16 @@ export function CaseGrid({ grid, today }: { grid: GridResponse; today: string })
           <thead>
             <tr>
               <th scope="col">{t('grid.district')}</th>
-              {grid.weeks.map((w) => (
-                <th key={`${w.year}-${w.week}`} scope="col" title={weekSpan(w)} className="text-right">
-                  {weekLabel(w)}
-                </th>
-              ))}
+              {grid.weeks.map((w, i) => {
+                // A week whose reporting is still open in every row the grid shows: its counts may be partial.
+                const open = grid.rows.length > 0 && grid.rows.every((r) => r.cells[i]?.open);
+                return (
+                  <th key={`${w.year}-${w.week}`} scope="col" title={weekSpan(w)} className="text-right" data-open={open || undefined}>
+                    {weekLabel(w)}
+                    {open ? <span className="block text-xs font-normal text-ink-muted">{t('grid.reportingOpen')}</span> : null}
+                  </th>
+                );
+              })}
               <th scope="col">{t('grid.onTime')}</th>
             </tr>
           </thead>

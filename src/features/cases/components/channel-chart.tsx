@@ -18,6 +18,7 @@ const BAND = '#b5bde2';
 const CENTRE = '#3a4890';
 const SEASON = '#26305e';
 const PRIOR = '#8c98cf';
+const OPEN = '#dfe3f3';
 
 /**
  * This season's weekly cases (bars) against the endemic channel (shaded band from the lower to the upper
@@ -25,7 +26,7 @@ const PRIOR = '#8c98cf';
  */
 export function ChannelChart({ data }: { data: SignalsResponse }) {
   const { t, i18n } = useTranslation('cases');
-  const { number } = useFormat();
+  const { number, date } = useFormat();
   const weeksInYear = Math.max(data.weeks.length, ...data.priorSeasons.map((s) => s.weeks.length));
   const categories = Array.from({ length: weeksInYear }, (_, i) => t('chart.weekShort', { week: i + 1 }));
   const byWeek = new Map(data.weeks.map((w) => [w.week, w]));
@@ -36,7 +37,13 @@ export function ChannelChart({ data }: { data: SignalsResponse }) {
     return c ? c.upper - c.lower : null;
   });
   const centre = categories.map((_, i) => at(i)?.channel?.centre ?? null);
-  const season = categories.map((_, i) => at(i)?.cases ?? null);
+  // An open week's bar (reporting not over, a partial count) is drawn pale and hatched, and its tooltip says so.
+  const season = categories.map((_, i) => {
+    const w = at(i);
+    const value = w?.cases ?? null;
+    return w?.open && value !== null ? { value, itemStyle: { color: OPEN, borderColor: SEASON, borderType: 'dashed', decal: { symbol: 'rect', dashArrayX: [1, 0], dashArrayY: [2, 3], rotation: -Math.PI / 4, color: SEASON } } } : value;
+  });
+  const seasonValue = (i: number) => at(i)?.cases ?? null;
   const priorNames = data.priorSeasons.map((s) => (data.excludedYears.includes(s.year) ? t('chart.leftOut', { year: s.year }) : String(s.year)));
   const names = { channel: t('chart.channel'), lower: t('chart.lower'), centre: t('chart.centre'), season: t('chart.season', { year: data.year }) };
 
@@ -61,7 +68,8 @@ export function ChannelChart({ data }: { data: SignalsResponse }) {
         const fmt = (v: number | null | undefined) => (v === null || v === undefined ? '—' : number(v, v % 1 ? 1 : 0, true));
         const lines = [
           t('chart.week', { week: i + 1 }),
-          t('chart.seasonLine', { year: data.year, cases: fmt(season[i]) }),
+          t('chart.seasonLine', { year: data.year, cases: fmt(seasonValue(i)) }),
+          ...(w?.open ? [t('chart.openWeek', { date: date(w.deadline) })] : []),
           w?.channel ? t('chart.channelLine', { lower: fmt(w.channel.lower), upper: fmt(w.channel.upper), centre: fmt(w.channel.centre) }) : t('chart.noChannel'),
           ...params.filter((p) => priorNames.includes(p.seriesName)).map((p) => `${p.seriesName}: ${fmt(p.value as number | null)}`),
         ];

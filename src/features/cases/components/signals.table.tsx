@@ -50,6 +50,7 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
     );
   };
   const rows = [...data.weeks].reverse();
+  // Open weeks (reporting not over) show their partial count and no statistic (the server sends none).
   const columns = 11;
   return (
     <div className="space-y-2">
@@ -85,12 +86,15 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
                     <th scope="row" className="whitespace-nowrap text-left font-normal">
                       {t('chart.weekShort', { week: w.week })} <span className="text-xs text-ink-muted">{formatDate(w.start)}</span>
                     </th>
-                    <td className="tabular-nums">{w.cases ?? '—'}</td>
+                    <td className="tabular-nums">
+                      {w.cases ?? '—'}
+                      {w.open ? <span className="block text-xs text-ink-muted">{t('signals.partial')}</span> : null}
+                    </td>
                     <td className="tabular-nums">{formatNumber(w.incidence, 2)}</td>
                     <td className="tabular-nums whitespace-nowrap">
                       {w.channel ? `${formatNumber(w.channel.lower, 1)} – ${formatNumber(w.channel.centre, 1)} – ${formatNumber(w.channel.upper, 1)}` : '—'}
                     </td>
-                    <td>{w.zone ? t(`zone.${w.zone}`) : '—'}</td>
+                    <td>{w.open ? t('signals.notYet') : w.zone ? t(`zone.${w.zone}`) : '—'}</td>
                     <td className="tabular-nums">{flag(w.c1)}</td>
                     <td className="tabular-nums">{flag(w.c2)}</td>
                     <td className="tabular-nums">{flag(w.c3)}</td>
@@ -102,7 +106,7 @@ export function SignalsTable({ data, today }: { data: SignalsResponse; today: st
                       ) : null}
                     </td>
                     <td className="whitespace-nowrap text-sm">
-                      {[w.closed ? t('signals.closed') : t('signals.open'), w.late ? t('signals.late') : null, w.voided ? t('signals.voided') : null].filter(Boolean).join(', ')}
+                      {[w.closed ? t('signals.closed') : w.open ? t('signals.reportingOpen', { date: formatDate(w.deadline) }) : t('signals.open'), w.late ? t('signals.late') : null, w.voided ? t('signals.voided') : null].filter(Boolean).join(', ')}
                       <span className="mt-1 flex gap-1">
                         {w.countId && data.canReadHistory ? (
                           <button

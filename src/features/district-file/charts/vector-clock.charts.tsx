@@ -1,4 +1,4 @@
-import { profileLabel } from '../district-file-format';
+import { profileLabel, sameToTwoDecimals } from '../district-file-format';
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { ChartFigure } from '../../../components/chart/chart-figure';
 import { SeriesTable } from '../../../components/chart/series-table';
@@ -193,14 +193,17 @@ export function EipChart({ vc }: { vc: VectorClock }) {
 }
 
 export function RvcChart({ vc }: { vc: VectorClock }) {
-  const { t, f } = useLadderWords();
+  const words = useLadderWords();
+  const { t, f } = words;
   const last = lastIndexWithValue(vc.rvc);
   const band = vc.rvc.map((_, i) => (vc.rvcLow[i] === null || vc.rvcHigh[i] === null ? null : vc.rvcHigh[i]! - vc.rvcLow[i]!));
   const n2 = (x: number | null | undefined) => f.number(x, 2, true);
   const summary =
     last < 0
       ? t('district-file:rvc.none')
-      : t('district-file:rvc.summary', { value: n2(vc.rvc[last]), day: f.date(vc.dates[last]), low: n2(vc.rvcLow[last]), high: n2(vc.rvcHigh[last]) });
+      : sameToTwoDecimals(words, vc.rvcLow[last], vc.rvc[last], vc.rvcHigh[last])
+        ? t('district-file:rvc.summarySingle', { value: n2(vc.rvc[last]), day: f.date(vc.dates[last]) })
+        : t('district-file:rvc.summary', { value: n2(vc.rvc[last]), day: f.date(vc.dates[last]), low: n2(vc.rvcLow[last]), high: n2(vc.rvcHigh[last]) });
   const names = { low: t('district-file:rvc.series.low'), band: t('district-file:rvc.series.band'), central: t('district-file:rvc.series.central') };
   return (
     <ChartFigure
@@ -216,7 +219,8 @@ export function RvcChart({ vc }: { vc: VectorClock }) {
           formatter: (params: any) => {
             const i = Array.isArray(params) ? params[0]?.dataIndex : params?.dataIndex;
             if (i === undefined) return '';
-            return [f.date(vc.dates[i]), t('district-file:rvc.tooltipCentral', { value: n2(vc.rvc[i]) }), t('district-file:rvc.tooltipRange', { low: n2(vc.rvcLow[i]), high: n2(vc.rvcHigh[i]) })].join('<br/>');
+            const one = sameToTwoDecimals(words, vc.rvcLow[i], vc.rvc[i], vc.rvcHigh[i]);
+            return [f.date(vc.dates[i]), t('district-file:rvc.tooltipCentral', { value: n2(vc.rvc[i]) }), ...(one ? [] : [t('district-file:rvc.tooltipRange', { low: n2(vc.rvcLow[i]), high: n2(vc.rvcHigh[i]) })])].join('<br/>');
           },
         },
         xAxis: timeAxis,

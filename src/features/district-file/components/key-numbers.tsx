@@ -1,4 +1,4 @@
-import { profileLabel } from '../district-file-format';
+import { lastCompleteIndex, lastOpenIndex, profileLabel, sameToTwoDecimals } from '../district-file-format';
 import type { ReactNode } from 'react';
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { useUnits } from '../../../lib/units';
@@ -48,7 +48,10 @@ export function KeyNumbers({ data, help = true, headingLevel = 'h2' }: { data: D
         key: 'rvc',
         label: t('district-file:key.rvc'),
         value: f.number(vc.rvc[r], 2, true),
-        note: t('district-file:key.lowHigh', { low: f.number(vc.rvcLow[r], 2, true), high: f.number(vc.rvcHigh[r], 2, true) }),
+        // Low, central and high equal to two decimals: one value, no range.
+        note: sameToTwoDecimals(w, vc.rvcLow[r], vc.rvc[r], vc.rvcHigh[r])
+          ? undefined
+          : t('district-file:key.lowHigh', { low: f.number(vc.rvcLow[r], 2, true), high: f.number(vc.rvcHigh[r], 2, true) }),
         help: 'rvc',
       });
     }
@@ -64,8 +67,18 @@ export function KeyNumbers({ data, help = true, headingLevel = 'h2' }: { data: D
   }
 
   for (const c of data.cases) {
-    const i = lastIndexWithValue(c.counts);
-    if (i < 0) continue;
+    // The newest complete week: a week still open for reporting holds a partial count and gets no zone.
+    const i = lastCompleteIndex(c);
+    const o = lastOpenIndex(c);
+    if (i < 0 && o < 0) continue;
+    if (i < 0) {
+      groups.push({
+        id: `cases-${c.diseaseId}`,
+        title: c.diseaseName,
+        items: [{ key: 'cases', label: t('district-file:key.casesInWeek', { week: c.weeks[o] }), value: t('district-file:cases.partialValue', { cases: f.number(c.counts[o]) }), note: t('district-file:cases.reportingOpen'), help: 'casesThisWeek' }],
+      });
+      continue;
+    }
     const count = c.counts[i]!;
     const lower = c.channel.lower[i];
     const upper = c.channel.upper[i];
@@ -74,7 +87,10 @@ export function KeyNumbers({ data, help = true, headingLevel = 'h2' }: { data: D
       id: `cases-${c.diseaseId}`,
       title: c.diseaseName,
       items: [
-        { key: 'cases', label: t('district-file:key.casesInWeek', { week: c.weeks[i] }), value: f.number(count), help: 'casesThisWeek' },
+        {
+          key: 'cases', label: t('district-file:key.casesInWeek', { week: c.weeks[i] }), value: f.number(count), help: 'casesThisWeek',
+          note: o >= 0 ? t('district-file:cases.openWeek', { week: c.weeks[o], count: c.counts[o]!, cases: f.number(c.counts[o]) }) : undefined,
+        },
         {
           key: 'channel',
           label: t('district-file:key.channel'),
@@ -94,6 +110,8 @@ export function KeyNumbers({ data, help = true, headingLevel = 'h2' }: { data: D
       key: 'larval',
       label: t('district-file:key.larval', { week: w.week(larval.epiYear, larval.epiWeek) }),
       value: t('district-file:key.larvalValues', { house: f.number(larval.house, 1), container: f.number(larval.container, 1), breteau: f.number(larval.breteau, 1) }),
+      // Why these differ from the larval driver of the tier table: one week here, 28 days pooled there.
+      note: t('district-file:key.larvalNote'),
       help: 'larvalIndices',
     });
   }

@@ -12,7 +12,7 @@ import '../../ladder/ladder.css';
 import { useDistrictFile } from '../api/district-file.api';
 import { CurrentTier } from '../components/current-tier';
 import { KeyNumbers } from '../components/key-numbers';
-import { channelMethodText , profileLabel } from '../district-file-format';
+import { channelMethodText, isOpenWeekAt, profileLabel } from '../district-file-format';
 import '../district-file.css';
 import { PrintCasesChart, PrintDegreeDaysChart } from './print-charts';
 import './district-print.css';
@@ -115,6 +115,9 @@ export function DistrictPrintView({ data }: { data: DistrictFileResponse }) {
                 const n = c.counts[i];
                 const lo = c.channel.lower[i];
                 const hi = c.channel.upper[i];
+                // A week still open for reporting has a partial count: never a zone, said as such.
+                if (isOpenWeekAt(c, i))
+                  return [t('cases.week', { week: wk }), n === null ? f.number(n) : t('cases.partialValue', { cases: f.number(n) }), f.number(lo, 1), f.number(c.channel.centre[i], 1), f.number(hi, 1), n === null ? '' : t('cases.reportingOpen')];
                 const zone = n === null || lo === null || hi === null ? null : n > hi ? 'above' : n < lo ? 'below' : 'within';
                 return [t('cases.week', { week: wk }), f.number(n), f.number(lo, 1), f.number(c.channel.centre[i], 1), f.number(hi, 1), zone ? w.zone(zone) : ''];
               })}

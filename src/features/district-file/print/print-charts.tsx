@@ -1,4 +1,4 @@
-import { profileLabel } from '../district-file-format';
+import { isOpenWeekAt, profileLabel } from '../district-file-format';
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { useUnits } from '../../../lib/units';
 import { useLadderWords } from '../../ladder/ladder-format';
@@ -78,7 +78,12 @@ export function PrintCasesChart({ cases, seasonYear }: { cases: Cases; seasonYea
         <Axes ticks={ticks} y={y} xLabels={xLabels} unit={t('district-file:cases.axis')} />
         {band.length > 2 ? <polygon points={band.join(' ')} fill={INDIGO_PALE} stroke={GREY} strokeWidth="0.8" /> : null}
         {counts.map((c, i) =>
-          c === null ? null : <rect key={i} x={x(i) - Math.min(10, slot * 0.3)} width={Math.min(20, slot * 0.6)} y={y(c)} height={PAD.top + innerH - y(c)} fill={INK} />,
+          c === null ? null : isOpenWeekAt(cases, i) ? (
+            // An open week (reporting not over): an outlined bar, its count partial.
+            <rect key={i} x={x(i) - Math.min(10, slot * 0.3)} width={Math.min(20, slot * 0.6)} y={y(c)} height={PAD.top + innerH - y(c)} fill="none" stroke={INK} strokeWidth="1" strokeDasharray="3 2" />
+          ) : (
+            <rect key={i} x={x(i) - Math.min(10, slot * 0.3)} width={Math.min(20, slot * 0.6)} y={y(c)} height={PAD.top + innerH - y(c)} fill={INK} />
+          ),
         )}
         {centre ? <polyline points={centre} fill="none" stroke={INDIGO} strokeWidth="1.5" strokeDasharray="5 3" /> : null}
       </svg>

@@ -148,7 +148,20 @@ function ladderColumns(w: LadderWords) {
       sortUndefined: 'last',
       sortDescFirst: true,
       meta: { label: t('table.columns.cases'), csv: (r) => r.casesThisWeek, help: 'casesThisWeek' },
-      cell: (c) => <span className="tabular-nums">{w.count(c.row.original.casesThisWeek)}</span>,
+      // The count of the newest complete week (never the still-open week of the tier), naming that week and its diseases.
+      cell: (c) => {
+        const r = c.row.original;
+        return (
+          <span className="tabular-nums">
+            {w.count(r.casesThisWeek)}
+            {r.casesThisWeek !== null && r.casesWeek ? (
+              <span className="block text-xs text-ink-muted">
+                {t('table.casesWeek', { week: r.casesWeek.week, diseases: r.casesDiseases.map((d) => d.name).join(', ') })}
+              </span>
+            ) : null}
+          </span>
+        );
+      },
     }),
     column.accessor((r) => w.zone(r.channelZone), {
       id: 'channelZone',
