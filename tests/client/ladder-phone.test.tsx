@@ -32,7 +32,7 @@ describe('the Ladder on a phone', () => {
     expect(headers(c)).toHaveLength(4);
     expect(headers(c)[3]).toMatch(/^Since last week/);
     const chooser = c.querySelector('.column-chooser')!;
-    const cases = [...chooser.querySelectorAll('label')].find((l) => l.textContent === 'Cases this week')!.querySelector('input')!;
+    const cases = [...chooser.querySelectorAll('label')].find((l) => l.textContent === 'Cases (last complete week)')!.querySelector('input')!;
     expect(cases.checked).toBe(false);
     await click(cases);
     expect(headers(c)).toHaveLength(5);

@@ -62,7 +62,7 @@ export function CaseEntryForm({ districts, diseases, settings }: { districts: Di
     // A field the person typed in keeps what they typed; every other field shows the stored value (or empties).
     const values = { cases: record?.cases, confirmed: record?.confirmed ?? null, probable: record?.probable ?? null };
     for (const f of SPLIT_FIELDS) if (!getFieldState(f).isDirty) resetField(f, { defaultValue: values[f] as never });
-    // eslint-disable-next-line react-hooks/exhaustive-deps
+    // Runs once per stored version (recordKey), not on every render of `record`.
   }, [recordKey]);
 
   const onSubmit = handleSubmit(async (values) => {
