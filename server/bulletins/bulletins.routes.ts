@@ -42,7 +42,7 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
     }),
     defineRoute({
       // The signed-in person's own weekly digest as it would reach them (nothing is written).
-      method: 'get', path: '/bulletins/digest/preview', access: ['admin', 'officer', 'epidemiologist', 'supervisor', 'worker'], query: digestPreviewQuery,
+      method: 'get', path: '/bulletins/digest/preview', access: 'signed-in', query: digestPreviewQuery,
       handler: async ({ principal, query }) => {
         const { g, language, v } = await bulletins.previewDigest(principal, query.language);
         return {
@@ -52,7 +52,7 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
       },
     }),
     defineRoute({
-      method: 'get', path: '/bulletins/digest/preview/html', access: ['admin', 'officer', 'epidemiologist', 'supervisor', 'worker'], query: digestPreviewQuery,
+      method: 'get', path: '/bulletins/digest/preview/html', access: 'signed-in', query: digestPreviewQuery,
       handler: async ({ principal, query }, _req, res) => {
         const { html } = await bulletins.previewDigest(principal, query.language);
         res.setHeader('Content-Security-Policy', PREVIEW_CSP);
@@ -61,7 +61,7 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
       },
     }),
     defineRoute({
-      method: 'get', path: '/bulletins/digest/preview/pdf', access: ['admin', 'officer', 'epidemiologist', 'supervisor', 'worker'], query: digestPreviewQuery,
+      method: 'get', path: '/bulletins/digest/preview/pdf', access: 'signed-in', query: digestPreviewQuery,
       handler: async ({ principal, query }, _req, res) => {
         const { g, v } = await bulletins.previewDigest(principal, query.language);
         res.type('application/pdf').setHeader('Content-Disposition', `attachment; filename="${digestPdfName(g.region, g.epiYear, g.epiWeek)}"`);
