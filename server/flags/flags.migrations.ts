@@ -1,4 +1,5 @@
 import { FlagsAndBulletins1796166213030 } from './migrations/1796166213030-FlagsAndBulletins';
+import { BulletinDigests1796600400000 } from './migrations/1796600400000-BulletinDigests';
 
 /** Reviewed migrations of flags, advisories, subscriptions, bulletins and the outbox. */
-export const flagsMigrations: Function[] = [FlagsAndBulletins1796166213030];
+export const flagsMigrations: Function[] = [FlagsAndBulletins1796166213030, BulletinDigests1796600400000];
