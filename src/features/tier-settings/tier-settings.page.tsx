@@ -48,7 +48,7 @@ export function TierSettingsPage() {
               <legend className="font-bold">{t('weights')}</legend>
               <div className="grid gap-3 sm:grid-cols-4">
                 {DRIVERS.map((d) => (
-                  <TextField key={d} label={t(`driver.${d}`)} type="number" step="0.05" min={0} max={10} value={draft.weights[d]}
+                  <TextField key={d} label={t(`driver.${d}`)} type="number" step="any" min={0} max={10} value={draft.weights[d]}
                     onChange={(e) => setNumber('weights', d, e.target.value)} />
                 ))}
               </div>
@@ -58,7 +58,7 @@ export function TierSettingsPage() {
               <p className="field-hint">{t('cutsHint')}</p>
               <div className="grid gap-3 sm:grid-cols-3">
                 {CUTS.map((c) => (
-                  <TextField key={c} label={t(`tier.${c}`)} type="number" step="0.01" min={0.01} max={0.99} value={draft.cuts[c]}
+                  <TextField key={c} label={t(`tier.${c}`)} type="number" step="any" min={0.01} max={0.99} value={draft.cuts[c]}
                     onChange={(e) => setNumber('cuts', c, e.target.value)} />
                 ))}
               </div>
