@@ -16,6 +16,8 @@ export const configSchema = z.object({
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: port.default(1025),
   MAIL_FROM: z.string().default('Broodcast <no-reply@broodcast.invalid>'),
+  /** The region the deployment serves: named in the weekly digest and its PDF (broodcast-<region>-<year>-w<week>.pdf). */
+  REGION_NAME: z.string().trim().min(1, { message: 'must name the region' }).max(80).default('Halvern'),
   CLIENT_DIST: z.string().default('dist/client'),
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),

@@ -1,6 +1,6 @@
 import type { ActionDto } from '../../shared/api/flags.schema';
 import type { Tier } from '../../shared/tier';
-import { cautionsFor, escapeHtml, mailFooter } from '../bulletins/bulletin-texts';
+import { cautionsFor, escapeHtml, htmlStart, mailFooter } from '../bulletins/bulletin-texts';
 import { DEFAULT_LANGUAGE, textsFor, type Language } from '../i18n';
 
 /** A suggested action in the reader's language (by its id; the stored title and text are the English ones). */
@@ -48,7 +48,7 @@ export function advisoryMail(input: {
     '',
     footer.text,
   ].join('\n');
-  const html = `<!doctype html><html lang="${language}"><body style="font-family:Arial,Helvetica,sans-serif;color:#1d2026;max-width:640px">
+  const html = `${htmlStart(language, 640)}
 <h1 style="font-size:20px">${escapeHtml(heading)}</h1>
 <p>${escapeHtml(input.message)}</p>
 <h2 style="font-size:16px">${escapeHtml(c('whatToDo'))}</h2>

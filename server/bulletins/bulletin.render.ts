@@ -4,7 +4,8 @@ import { actionIn } from '../advisories/advisory.mails';
 import { messageFor } from '../flags/flag-texts';
 import { DEFAULT_LANGUAGE, formatFor, pdfText, textsFor, type Language } from '../i18n';
 import type { BulletinData, CaseWeek } from './bulletin-data';
-import { cautionsFor, escapeHtml } from './bulletin-texts';
+import { cautionsFor, escapeHtml, htmlStart } from './bulletin-texts';
+export { htmlStart } from './bulletin-texts';
 
 /**
  * The same sequential single-hue tier scale as the client's (src/features/ladder/tier-scale.ts): it keeps
@@ -14,7 +15,7 @@ const TIER_FILL: Record<Tier, string> = { baseline: '#f3e9f1', raised: '#d2a6c8'
 const TIER_INK: Record<Tier, string> = { baseline: '#1d2026', raised: '#1d2026', high: '#ffffff', critical: '#ffffff' };
 
 /** The words and number formats of one bulletin language. */
-function wordsFor(language: Language) {
+export function wordsFor(language: Language) {
   const t = textsFor(language, 'bulletin');
   const c = textsFor(language, 'common');
   const f = formatFor(language);
@@ -30,7 +31,8 @@ function wordsFor(language: Language) {
     date: (iso: string) => f.date(iso),
   };
 }
-type Words = ReturnType<typeof wordsFor>;
+export type Words = ReturnType<typeof wordsFor>;
+export type RankingRow = BulletinData['ranking'][number];
 
 export function bulletinSubject(d: BulletinData, language: Language = DEFAULT_LANGUAGE): string {
   const w = wordsFor(language);
@@ -75,9 +77,8 @@ const advisoryLine = (a: BulletinData['advisories'][number], w: Words) => {
 const weekLine = (d: BulletinData, w: Words) =>
   d.asOf ? w.t('weekAsOf', { week: d.epiWeek, year: d.epiYear, date: w.date(d.asOf) }) : w.t('week', { week: d.epiWeek, year: d.epiYear });
 
-/** The plain-text bulletin in `language` (the footer with the recipient's own links is added per recipient). */
-export function bulletinText(d: BulletinData, language: Language = DEFAULT_LANGUAGE): string {
-  const w = wordsFor(language);
+/** One district's part of a bulletin as plain text: title, tier, drivers, cases, advisories, what to do. */
+export function districtTextLines(d: BulletinData, w: Words): string[] {
   const { t, c } = w;
   const out: string[] = [
     t('textTitle', { district: d.district.name, code: d.district.code, week: d.epiWeek, year: d.epiYear }),
@@ -104,13 +105,28 @@ export function bulletinText(d: BulletinData, language: Language = DEFAULT_LANGU
   for (const a of d.advisories) out.push(`- ${advisoryLine(a, w)}`);
   out.push('', c('whatToDo'));
   for (const a of d.actions) {
-    const x = actionIn(language, a);
+    const x = actionIn(w.language, a);
     out.push(`- ${labelled(x.title, x.text, w)}`);
   }
-  out.push(`  ${c('actionCaution')}`, '', t('regionHeadingCount', { count: d.ranking.length }));
-  for (const r of d.ranking) out.push(`${String(r.rank).padStart(3)}. ${r.name} (${r.code}) — ${w.tier(r.tier)}, ${w.score(r.score)}${r.isThis ? `  ${t('thisDistrict')}` : ''}`);
-  out.push('', c('keepInMind'), ...cautionsFor(language).map((x) => `- ${x}`));
-  return out.filter((l, i, a) => !(l === '' && a[i - 1] === '')).join('\n');
+  out.push(`  ${c('actionCaution')}`);
+  return out;
+}
+
+/** The region's ranking as plain-text lines; `marker` is written after the marked rows. */
+export function rankingTextLines(ranking: RankingRow[], w: Words, marker: string): string[] {
+  return [
+    w.t('regionHeadingCount', { count: ranking.length }),
+    ...ranking.map((r) => `${String(r.rank).padStart(3)}. ${r.name} (${r.code}) — ${w.tier(r.tier)}, ${w.score(r.score)}${r.isThis ? `  ${marker}` : ''}`),
+  ];
+}
+
+export const cautionTextLines = (w: Words) => [w.c('keepInMind'), ...cautionsFor(w.language).map((x) => `- ${x}`)];
+export const joinLines = (lines: string[]) => lines.filter((l, i, a) => !(l === '' && a[i - 1] === '')).join('\n');
+
+/** The plain-text bulletin in `language` (the footer with the recipient's own links is added per recipient). */
+export function bulletinText(d: BulletinData, language: Language = DEFAULT_LANGUAGE): string {
+  const w = wordsFor(language);
+  return joinLines([...districtTextLines(d, w), '', ...rankingTextLines(d.ranking, w, w.t('thisDistrict')), '', ...cautionTextLines(w)]);
 }
 
 /** A small inline SVG: this season's weekly cases as bars over the channel band (mail programs that drop SVG still have the table). */
@@ -133,144 +149,191 @@ ${band.length > 1 ? `<polygon points="${[...top, ...bottom].join(' ')}" fill="#d
 
 const td = 'style="padding:3px 8px;border-bottom:1px solid #ddd;text-align:left"';
 
-/** The HTML bulletin in `language`, with inline styles only (mail programs drop style sheets). */
-export function bulletinHtml(d: BulletinData, language: Language = DEFAULT_LANGUAGE): string {
-  const w = wordsFor(language);
+export const e = escapeHtml;
+export const badgeHtml = (x: Tier, w: Words) =>
+  `<span style="background:${TIER_FILL[x]};color:${TIER_INK[x]};padding:1px 6px;border-radius:3px;border:1px solid #3f1239">${e(w.tier(x))}</span>`;
+
+/** One district's part of a bulletin as HTML; `top` is the heading level of its title (1 alone, 2 in a digest). */
+export function districtHtml(d: BulletinData, w: Words, top = 1): string[] {
   const { t, c } = w;
-  const e = escapeHtml;
-  const badge = (x: Tier) => `<span style="background:${TIER_FILL[x]};color:${TIER_INK[x]};padding:1px 6px;border-radius:3px;border:1px solid #3f1239">${e(w.tier(x))}</span>`;
+  const h = (n: number) => `h${Math.min(6, top + n)}`;
   const parts: string[] = [
-    `<!doctype html><html lang="${language}"><body style="font-family:Arial,Helvetica,sans-serif;color:#1d2026;max-width:680px">`,
-    `<h1 style="font-size:20px;margin-bottom:4px">${e(t('title', { district: d.district.name, code: d.district.code }))}</h1>`,
+    `<${h(0)} style="font-size:${top === 1 ? 20 : 18}px;margin-bottom:4px">${e(t('title', { district: d.district.name, code: d.district.code }))}</${h(0)}>`,
     `<p style="margin-top:0;color:#555">${e(weekLine(d, w))}${d.district.isDemo ? ` · <strong>${e(t('demoShort'))}</strong>` : ''}</p>`,
-    `<p>${d.tier ? badge(d.tier.tier) + ' ' : ''}${e(tierSentence(d, w))}</p>`,
+    `<p>${d.tier ? badgeHtml(d.tier.tier, w) + ' ' : ''}${e(tierSentence(d, w))}</p>`,
   ];
   if (d.tier) {
-    parts.push(`<h2 style="font-size:16px">${e(t('driversHeading'))}</h2><table style="border-collapse:collapse"><tr><th ${td}>${e(t('table.driver'))}</th><th ${td}>${e(t('table.score'))}</th><th ${td}>${e(t('table.weight'))}</th><th ${td}>${e(t('table.share'))}</th></tr>`);
+    parts.push(`<${h(1)} style="font-size:16px">${e(t('driversHeading'))}</${h(1)}><table style="border-collapse:collapse"><tr><th ${td}>${e(t('table.driver'))}</th><th ${td}>${e(t('table.score'))}</th><th ${td}>${e(t('table.weight'))}</th><th ${td}>${e(t('table.share'))}</th></tr>`);
     for (const dr of d.tier.drivers)
       parts.push(`<tr><td ${td}>${e(driverName(dr, w))}</td><td ${td}>${dr.score === null ? e(t('noData')) : w.score(dr.score)}</td><td ${td}>${w.f.number(dr.weight, 2)}</td><td ${td}>${e(w.pct(shareOf(d.tier.drivers, dr.id)))}</td></tr>`);
     parts.push('</table>');
     if (d.tier.notes.length) parts.push(`<ul style="font-size:13px;color:#555">${d.tier.notes.map((n) => `<li>${e(noteIn(n, w))}</li>`).join('')}</ul>`);
   }
-  parts.push(`<h2 style="font-size:16px">${e(t('casesHeading'))}</h2>`);
+  parts.push(`<${h(1)} style="font-size:16px">${e(t('casesHeading'))}</${h(1)}>`);
   if (d.cases.length === 0) parts.push(`<p>${e(t('noCases'))}</p>`);
   for (const cs of d.cases) {
-    parts.push(`<h3 style="font-size:14px">${e(cs.diseaseName)}</h3>${casesSvg(cs.weeks, w)}`);
+    parts.push(`<${h(2)} style="font-size:14px">${e(cs.diseaseName)}</${h(2)}>${casesSvg(cs.weeks, w)}`);
     parts.push(`<table style="border-collapse:collapse"><tr><th ${td}>${e(t('table.week'))}</th><th ${td}>${e(t('table.cases'))}</th><th ${td}>${e(t('table.usualRange'))}</th><th ${td}></th></tr>`);
     for (const wk of recentWeeks(cs.weeks))
       parts.push(`<tr><td ${td}>${wk.week}</td><td ${td}>${w.num(wk.count)}</td><td ${td}>${e(t('rangeCell', { lower: w.num(wk.lower, 1), upper: w.num(wk.upper, 1) }))}</td><td ${td}>${e(zoneWord(wk, w))}</td></tr>`);
     parts.push('</table>');
   }
-  parts.push(`<h2 style="font-size:16px">${e(t('advisoriesHeading'))}</h2>`);
+  parts.push(`<${h(1)} style="font-size:16px">${e(t('advisoriesHeading'))}</${h(1)}>`);
   parts.push(d.advisories.length === 0 ? `<p>${e(t('none'))}</p>` : `<ul>${d.advisories.map((a) => `<li>${e(advisoryLine(a, w))}</li>`).join('')}</ul>`);
-  const actions = d.actions.map((a) => actionIn(language, a));
-  parts.push(`<h2 style="font-size:16px">${e(c('whatToDo'))}</h2><ul>${actions.map((a) => `<li><strong>${e(a.title)}.</strong> ${e(a.text)}</li>`).join('')}</ul><p><em>${e(c('actionCaution'))}</em></p>`);
-  parts.push(`<h2 style="font-size:16px">${e(t('regionHeading'))}</h2><table style="border-collapse:collapse"><tr><th ${td}>${e(t('table.rank'))}</th><th ${td}>${e(t('table.district'))}</th><th ${td}>${e(t('table.tier'))}</th><th ${td}>${e(t('table.score'))}</th></tr>`);
-  for (const r of d.ranking)
-    parts.push(`<tr${r.isThis ? ' style="font-weight:bold"' : ''}><td ${td}>${r.rank}</td><td ${td}>${e(r.name)} (${e(r.code)})</td><td ${td}>${badge(r.tier)}</td><td ${td}>${w.score(r.score)}</td></tr>`);
+  const actions = d.actions.map((a) => actionIn(w.language, a));
+  parts.push(`<${h(1)} style="font-size:16px">${e(c('whatToDo'))}</${h(1)}><ul>${actions.map((a) => `<li><strong>${e(a.title)}.</strong> ${e(a.text)}</li>`).join('')}</ul><p><em>${e(c('actionCaution'))}</em></p>`);
+  return parts;
+}
+
+/** The region's ranking as an HTML table (marked rows in bold). */
+export function rankingHtml(ranking: RankingRow[], w: Words, heading: string, level = 2): string[] {
+  const { t } = w;
+  const parts = [`<h${level} style="font-size:16px">${e(heading)}</h${level}><table style="border-collapse:collapse"><tr><th ${td}>${e(t('table.rank'))}</th><th ${td}>${e(t('table.district'))}</th><th ${td}>${e(t('table.tier'))}</th><th ${td}>${e(t('table.score'))}</th></tr>`];
+  for (const r of ranking)
+    parts.push(`<tr${r.isThis ? ' style="font-weight:bold"' : ''}><td ${td}>${r.rank}</td><td ${td}>${e(r.name)} (${e(r.code)})</td><td ${td}>${badgeHtml(r.tier, w)}</td><td ${td}>${w.score(r.score)}</td></tr>`);
   parts.push('</table>');
-  parts.push(`<h2 style="font-size:16px">${e(c('keepInMind'))}</h2><ul>${cautionsFor(language).map((x) => `<li>${e(x)}</li>`).join('')}</ul>`);
-  parts.push('<!--footer--></body></html>');
-  return parts.join('\n');
+  return parts;
+}
+
+export const cautionsHtml = (w: Words) =>
+  `<h2 style="font-size:16px">${e(w.c('keepInMind'))}</h2><ul>${cautionsFor(w.language).map((x) => `<li>${e(x)}</li>`).join('')}</ul>`;
+
+/** The HTML bulletin in `language`, with inline styles only (mail programs drop style sheets). */
+export function bulletinHtml(d: BulletinData, language: Language = DEFAULT_LANGUAGE): string {
+  const w = wordsFor(language);
+  return [htmlStart(language), ...districtHtml(d, w), ...rankingHtml(d.ranking, w, w.t('regionHeading')), cautionsHtml(w), '<!--footer--></body></html>'].join('\n');
 }
 
 /** The per-recipient footer goes where the HTML bulletin leaves room for it. */
 export const withFooter = (html: string, footerHtml: string) => html.replace('<!--footer-->', footerHtml);
 
-/**
- * The PDF bulletin in `language` (pdfkit, built-in Helvetica, WinAnsi text: see pdfText): the same
- * content, with the cases chart and tier history drawn as vector graphics.
- */
-export function bulletinPdf(d: BulletinData, language: Language = DEFAULT_LANGUAGE): Promise<Buffer> {
+/** A PDF being written in one language, with the small helpers every part of a bulletin uses. */
+export interface PdfWriter {
+  doc: PDFKit.PDFDocument;
+  w: Words;
+  left: number;
+  width: number;
+  heading: (text: string) => void;
+  para: (text: string) => void;
+  /** Ends the document; resolves with its bytes. */
+  end: () => Promise<Buffer>;
+}
+
+/** pdfkit, built-in Helvetica, WinAnsi text (see pdfText). */
+export function pdfWriter(language: Language, title: string): PdfWriter {
   const w = wordsFor(language);
-  const { t, c } = w;
   const p = pdfText;
-  return new Promise((resolve, reject) => {
-    const doc = new PDFDocument({
-      size: 'A4', margin: 48, lang: language,
-      info: { Title: p(bulletinSubject(d, language)), Author: 'Broodcast', Subject: p(t('pdfSubject')) },
-    });
-    const chunks: Buffer[] = [];
+  const doc = new PDFDocument({ size: 'A4', margin: 48, lang: language, info: { Title: p(title), Author: 'Broodcast', Subject: p(w.t('pdfSubject')) } });
+  const chunks: Buffer[] = [];
+  const done = new Promise<Buffer>((resolve, reject) => {
     doc.on('data', (x: Buffer) => chunks.push(x));
     doc.on('end', () => resolve(Buffer.concat(chunks)));
     doc.on('error', reject);
-    const left = doc.page.margins.left;
-    const width = doc.page.width - left - doc.page.margins.right;
-    const heading = (text: string) => {
+  });
+  const left = doc.page.margins.left;
+  const width = doc.page.width - left - doc.page.margins.right;
+  return {
+    doc, w, left, width,
+    heading: (text: string) => {
       if (doc.y > doc.page.height - 140) doc.addPage();
       doc.moveDown(0.8).font('Helvetica-Bold').fontSize(13).fillColor('#1d2026').text(p(text), left);
       doc.moveDown(0.2).font('Helvetica').fontSize(10);
-    };
-    const para = (text: string) => doc.font('Helvetica').fontSize(10).fillColor('#1d2026').text(p(text), left, undefined, { width });
+    },
+    para: (text: string) => void doc.font('Helvetica').fontSize(10).fillColor('#1d2026').text(p(text), left, undefined, { width }),
+    end: () => {
+      doc.end();
+      return done;
+    },
+  };
+}
 
-    doc.font('Helvetica-Bold').fontSize(18).text(p(t('title', { district: d.district.name, code: d.district.code })));
-    doc.font('Helvetica').fontSize(10).fillColor('#555555').text(p(`${weekLine(d, w)}${d.district.isDemo ? `. ${t('demoShort')}.` : ''}`));
-    doc.moveDown(0.6);
-    if (d.tier) {
+/** One district's part of a PDF bulletin: title, tier badge, drivers, cases chart, tier history, advisories, what to do. */
+export function drawDistrictPdf(pw: PdfWriter, d: BulletinData, titleSize = 18): void {
+  const { doc, w, left, width, heading, para } = pw;
+  const { t, c } = w;
+  const p = pdfText;
+  if (doc.y > doc.page.height - 200) doc.addPage();
+  doc.font('Helvetica-Bold').fontSize(titleSize).fillColor('#1d2026').text(p(t('title', { district: d.district.name, code: d.district.code })), left);
+  doc.font('Helvetica').fontSize(10).fillColor('#555555').text(p(`${weekLine(d, w)}${d.district.isDemo ? `. ${t('demoShort')}.` : ''}`));
+  doc.moveDown(0.6);
+  if (d.tier) {
+    const y = doc.y;
+    doc.rect(left, y, 90, 20).fillAndStroke(TIER_FILL[d.tier.tier], '#3f1239');
+    doc.fillColor(TIER_INK[d.tier.tier]).font('Helvetica-Bold').fontSize(11).text(p(w.tier(d.tier.tier)), left, y + 5, { width: 90, align: 'center' });
+    doc.y = y + 28;
+  }
+  para(tierSentence(d, w));
+
+  if (d.tier) {
+    heading(t('driversHeading'));
+    for (const dr of d.tier.drivers) {
       const y = doc.y;
-      doc.rect(left, y, 90, 20).fillAndStroke(TIER_FILL[d.tier.tier], '#3f1239');
-      doc.fillColor(TIER_INK[d.tier.tier]).font('Helvetica-Bold').fontSize(11).text(p(w.tier(d.tier.tier)), left, y + 5, { width: 90, align: 'center' });
-      doc.y = y + 28;
+      doc.fillColor('#1d2026').text(p(driverName(dr, w)), left, y, { width: 150 });
+      const below = doc.y;
+      doc.rect(left + 160, y + 1, 200, 9).stroke('#999999');
+      if (dr.score !== null) doc.rect(left + 160, y + 1, 200 * Math.min(1, dr.score), 9).fill('#94508a');
+      doc.fillColor('#1d2026').text(p(dr.score === null ? t('noData') : t('driverPdfLine', { score: w.score(dr.score), share: w.pct(shareOf(d.tier.drivers, dr.id)) })), left + 370, y, { width: width - 370 });
+      doc.y = Math.max(doc.y, below, y + 14);
     }
-    para(tierSentence(d, w));
+  }
 
-    if (d.tier) {
-      heading(t('driversHeading'));
-      for (const dr of d.tier.drivers) {
-        const y = doc.y;
-        doc.fillColor('#1d2026').text(p(driverName(dr, w)), left, y, { width: 150 });
-        const below = doc.y;
-        doc.rect(left + 160, y + 1, 200, 9).stroke('#999999');
-        if (dr.score !== null) doc.rect(left + 160, y + 1, 200 * Math.min(1, dr.score), 9).fill('#94508a');
-        doc.fillColor('#1d2026').text(p(dr.score === null ? t('noData') : t('driverPdfLine', { score: w.score(dr.score), share: w.pct(shareOf(d.tier.drivers, dr.id)) })), left + 370, y, { width: width - 370 });
-        doc.y = Math.max(doc.y, below, y + 14);
-      }
+  const main = d.cases[0];
+  if (main) {
+    heading(t('casesHeadingFor', { disease: main.diseaseName }));
+    drawCasesChart(doc, main.weeks, left, doc.y, width, 150, w);
+    for (const wk of recentWeeks(main.weeks)) para(`${t('caseLinePdf', caseVars(wk, w))}${zoneWord(wk, w) ? ` (${zoneWord(wk, w)})` : ''}`);
+    for (const other of d.cases.slice(1)) {
+      const last = other.weeks[other.weeks.length - 1];
+      if (last) para(t('caseLineOther', { disease: other.diseaseName, ...caseVars(last, w) }));
     }
+  } else {
+    heading(t('casesHeading'));
+    para(t('noCases'));
+  }
 
-    const main = d.cases[0];
-    if (main) {
-      heading(t('casesHeadingFor', { disease: main.diseaseName }));
-      drawCasesChart(doc, main.weeks, left, doc.y, width, 150, w);
-      for (const wk of recentWeeks(main.weeks)) para(`${t('caseLinePdf', caseVars(wk, w))}${zoneWord(wk, w) ? ` (${zoneWord(wk, w)})` : ''}`);
-      for (const other of d.cases.slice(1)) {
-        const last = other.weeks[other.weeks.length - 1];
-        if (last) para(t('caseLineOther', { disease: other.diseaseName, ...caseVars(last, w) }));
-      }
-    } else {
-      heading(t('casesHeading'));
-      para(t('noCases'));
-    }
+  if (d.tierHistory.length > 1) {
+    heading(t('chart.tierHeading'));
+    drawTierHistory(doc, d.tierHistory, left, doc.y, width, 70, w);
+  }
 
-    if (d.tierHistory.length > 1) {
-      heading(t('chart.tierHeading'));
-      drawTierHistory(doc, d.tierHistory, left, doc.y, width, 70, w);
-    }
+  heading(t('advisoriesHeading'));
+  if (d.advisories.length === 0) para(t('none'));
+  for (const a of d.advisories) para(advisoryLine(a, w));
 
-    heading(t('advisoriesHeading'));
-    if (d.advisories.length === 0) para(t('none'));
-    for (const a of d.advisories) para(advisoryLine(a, w));
+  heading(c('whatToDo'));
+  for (const a of d.actions) {
+    const x = actionIn(w.language, a);
+    doc.font('Helvetica-Bold').text(p(`${x.title}. `), left, undefined, { continued: true, width }).font('Helvetica').text(p(x.text));
+    doc.moveDown(0.2);
+  }
+  doc.font('Helvetica-Oblique').text(p(c('actionCaution')), left, undefined, { width });
+}
 
-    heading(c('whatToDo'));
-    for (const a of d.actions) {
-      const x = actionIn(language, a);
-      doc.font('Helvetica-Bold').text(p(`${x.title}. `), left, undefined, { continued: true, width }).font('Helvetica').text(p(x.text));
-      doc.moveDown(0.2);
-    }
-    doc.font('Helvetica-Oblique').text(p(c('actionCaution')), left, undefined, { width });
+/** The region's ranking in a PDF bulletin (marked rows in bold). */
+export function drawRankingPdf(pw: PdfWriter, ranking: RankingRow[], heading: string): void {
+  const { doc, w, left, width } = pw;
+  pw.heading(heading);
+  for (const r of ranking) {
+    doc.font(r.isThis ? 'Helvetica-Bold' : 'Helvetica').fillColor('#1d2026')
+      .text(pdfText(w.t('regionLinePdf', { rank: r.rank, district: r.name, code: r.code, tier: w.tier(r.tier), score: w.score(r.score) })), left, undefined, { width });
+  }
+}
 
-    heading(t('regionHeading'));
-    for (const r of d.ranking) {
-      doc.font(r.isThis ? 'Helvetica-Bold' : 'Helvetica').fillColor('#1d2026')
-        .text(p(t('regionLinePdf', { rank: r.rank, district: r.name, code: r.code, tier: w.tier(r.tier), score: w.score(r.score) })), left, undefined, { width });
-    }
+export function drawCautionsPdf(pw: PdfWriter): void {
+  pw.heading(pw.w.c('keepInMind'));
+  for (const x of cautionsFor(pw.w.language)) {
+    pw.para(`- ${x}`);
+    pw.doc.moveDown(0.2);
+  }
+}
 
-    heading(c('keepInMind'));
-    for (const x of cautionsFor(language)) {
-      para(`- ${x}`);
-      doc.moveDown(0.2);
-    }
-    doc.end();
-  });
+/** The PDF bulletin of one district in `language`: the same content, with the cases chart and tier history drawn as vector graphics. */
+export function bulletinPdf(d: BulletinData, language: Language = DEFAULT_LANGUAGE): Promise<Buffer> {
+  const pw = pdfWriter(language, bulletinSubject(d, language));
+  drawDistrictPdf(pw, d);
+  drawRankingPdf(pw, d.ranking, pw.w.t('regionHeading'));
+  drawCautionsPdf(pw);
+  return pw.end();
 }
 
 function drawCasesChart(doc: PDFKit.PDFDocument, weeks: CaseWeek[], x0: number, y0: number, width: number, height: number, w: Words) {

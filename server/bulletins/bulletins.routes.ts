@@ -1,4 +1,5 @@
-import { bulletinPreviewQuery, bulletinQuery, outboxQuery, subscriptionsBody, unsubscribeParams } from '../../shared/api/bulletins.schema';
+import { bulletinPreviewQuery, bulletinQuery, digestPreviewQuery, outboxQuery, subscriptionsBody, unsubscribeParams } from '../../shared/api/bulletins.schema';
+import { digestPdfName } from './digest.render';
 import type { AppContext } from '../app-context';
 import { defineRoute, type RouteDef } from '../http/route';
 import { OutboxService } from '../outbox/outbox.service';
@@ -20,12 +21,12 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
   return [
     defineRoute({
       method: 'get', path: '/bulletins/preview', access: ['supervisor'], query: bulletinPreviewQuery,
-      handler: ({ query }) => bulletins.preview(query.districtId),
+      handler: ({ query }) => bulletins.preview(query.districtId, query.language),
     }),
     defineRoute({
       method: 'get', path: '/bulletins/preview/html', access: ['supervisor'], query: bulletinQuery,
       handler: async ({ query }, _req, res) => {
-        const html = await bulletins.previewHtml(query.districtId);
+        const html = await bulletins.previewHtml(query.districtId, query.language);
         res.setHeader('Content-Security-Policy', PREVIEW_CSP);
         res.setHeader('X-Frame-Options', 'SAMEORIGIN');
         res.type('html').send(html);
@@ -34,9 +35,37 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
     defineRoute({
       method: 'get', path: '/bulletins/preview/pdf', access: ['supervisor'], query: bulletinQuery,
       handler: async ({ query }, _req, res) => {
-        const { filename, pdf } = await bulletins.previewPdf(query.districtId);
+        const { filename, pdf } = await bulletins.previewPdf(query.districtId, query.language);
         res.type('application/pdf').setHeader('Content-Disposition', `attachment; filename="${filename}"`);
         res.send(pdf);
+      },
+    }),
+    defineRoute({
+      // The signed-in person's own weekly digest as it would reach them (nothing is written).
+      method: 'get', path: '/bulletins/digest/preview', access: 'signed-in', query: digestPreviewQuery,
+      handler: async ({ principal, query }) => {
+        const { g, language, v } = await bulletins.previewDigest(principal, query.language);
+        return {
+          epiYear: g.epiYear, epiWeek: g.epiWeek, language, layout: g.layout, subject: v.subject, text: v.text,
+          filename: digestPdfName(g.region, g.epiYear, g.epiWeek), districts: g.followed,
+        };
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/bulletins/digest/preview/html', access: 'signed-in', query: digestPreviewQuery,
+      handler: async ({ principal, query }, _req, res) => {
+        const { html } = await bulletins.previewDigest(principal, query.language);
+        res.setHeader('Content-Security-Policy', PREVIEW_CSP);
+        res.setHeader('X-Frame-Options', 'SAMEORIGIN');
+        res.type('html').send(html);
+      },
+    }),
+    defineRoute({
+      method: 'get', path: '/bulletins/digest/preview/pdf', access: 'signed-in', query: digestPreviewQuery,
+      handler: async ({ principal, query }, _req, res) => {
+        const { g, v } = await bulletins.previewDigest(principal, query.language);
+        res.type('application/pdf').setHeader('Content-Disposition', `attachment; filename="${digestPdfName(g.region, g.epiYear, g.epiWeek)}"`);
+        res.send(v.pdf);
       },
     }),
     defineRoute({
@@ -49,9 +78,18 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
       handler: ({ principal, body }) => subscriptions.save(principal, body),
     }),
     defineRoute({
-      // One click from a mail (the landing page posts it; mail programs post it per RFC 8058), no sign-in.
+      // The confirmation page reads what the link would stop: opening a link (as mail scanners do) changes nothing.
+      method: 'get', path: '/unsubscribe/:token', access: 'public', params: unsubscribeParams,
+      handler: ({ params }) => subscriptions.describe(params.token),
+    }),
+    defineRoute({
+      // The page's confirm button, and a mail program's one-click POST (RFC 8058, body "List-Unsubscribe=One-Click"), no sign-in.
       method: 'post', path: '/unsubscribe/:token', access: 'public', params: unsubscribeParams,
       handler: ({ params }) => subscriptions.unsubscribe(params.token),
+    }),
+    defineRoute({
+      method: 'post', path: '/unsubscribe/:token/undo', access: 'public', params: unsubscribeParams,
+      handler: ({ params }) => subscriptions.undo(params.token),
     }),
     defineRoute({
       method: 'get', path: '/outbox', access: ['admin', 'supervisor'], query: outboxQuery,

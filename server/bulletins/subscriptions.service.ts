@@ -1,13 +1,13 @@
 import jwt from 'jsonwebtoken';
 import type { EntityManager } from 'typeorm';
-import type { MailKind, SubscriptionsBody, SubscriptionsResponse } from '../../shared/api/bulletins.schema';
+import type { MailKind, SubscriptionsBody, SubscriptionsResponse, UnsubscribeResponse } from '../../shared/api/bulletins.schema';
 import type { Role } from '../../shared/roles';
 import type { Language } from '../../shared/api/auth.schema';
 import type { AppContext } from '../app-context';
 import { recordAudit } from '../audit/audit.repository';
 import { type Principal, seesAllDistricts } from '../auth/principal';
 import type { Config } from '../config';
-import { badRequest, forbidden } from '../http/errors';
+import { badRequest, conflict, forbidden } from '../http/errors';
 import { unsubscribeHeaders } from './bulletin-texts';
 import { SubscriptionEntity } from './subscription.entity';
 
@@ -20,6 +20,8 @@ export interface Recipient {
   displayName: string;
   /** The language their mail is written in (user preference). */
   language: Language;
+  /** Their role, which sets how their weekly digest is laid out. */
+  role: Role;
 }
 
 /**
@@ -33,7 +35,7 @@ const DEFAULT_SQL = `(u.role IN ('officer', 'supervisor')
 /** Who receives `kind` for a district now, in the caller's transaction. */
 export async function recipientsOf(manager: EntityManager, districtId: string, kind: MailKind): Promise<Recipient[]> {
   return manager.query(
-    `SELECT u.id AS "userId", u.email, u.display_name AS "displayName", u.language FROM users u
+    `SELECT u.id AS "userId", u.email, u.display_name AS "displayName", u.language, u.role FROM users u
       WHERE u.active
         AND CASE WHEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id)
                  THEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id AND s.district_id = $1 AND s.active AND $2 = ANY (s.kinds))
@@ -45,19 +47,22 @@ export async function recipientsOf(manager: EntityManager, districtId: string, k
   );
 }
 
-/** A signed, non-expiring one-click unsubscribe token for one user and district (HS256 with JWT_SECRET). */
-export function unsubscribeToken(config: Config, userId: string, districtId: string): string {
-  return jwt.sign({ did: districtId }, config.JWT_SECRET, { subject: userId, audience: UNSUBSCRIBE_AUDIENCE, issuer: 'broodcast', algorithm: 'HS256' });
-}
-
-export function unsubscribeLink(config: Config, userId: string, districtId: string): string {
-  return new URL(`/unsubscribe?token=${unsubscribeToken(config, userId, districtId)}`, config.APP_URL).toString();
+/**
+ * A signed, non-expiring unsubscribe token (HS256 with JWT_SECRET) for one user and either one district
+ * (an advisory mail: stop all mail for that district) or, with no district, the weekly bulletin (the
+ * digest: stop the weekly bulletin for every district, advisories stay).
+ */
+export function unsubscribeToken(config: Config, userId: string, districtId: string | null): string {
+  return jwt.sign(districtId ? { did: districtId } : { kind: 'bulletin' }, config.JWT_SECRET, { subject: userId, audience: UNSUBSCRIBE_AUDIENCE, issuer: 'broodcast', algorithm: 'HS256' });
 }
 
 export const preferencesLink = (config: Config) => new URL('/preferences', config.APP_URL).toString();
 
-/** Everything a subscription mail needs to let its reader leave: the links and the List-Unsubscribe headers. */
-export function subscriberLinks(config: Config, userId: string, districtId: string) {
+/**
+ * Everything a subscription mail needs to let its reader leave: the link to the confirmation page (opening
+ * it changes nothing) and the List-Unsubscribe headers whose one-click POST (RFC 8058) does the change.
+ */
+export function subscriberLinks(config: Config, userId: string, districtId: string | null) {
   const token = unsubscribeToken(config, userId, districtId);
   return {
     unsubscribeUrl: new URL(`/unsubscribe?token=${token}`, config.APP_URL).toString(),
@@ -65,6 +70,9 @@ export function subscriberLinks(config: Config, userId: string, districtId: stri
     headers: unsubscribeHeaders(new URL(`/api/unsubscribe/${token}`, config.APP_URL).toString()),
   };
 }
+
+/** What an unsubscribe token stops: all mail for one district, or the weekly bulletin everywhere. */
+type UnsubscribeScope = { userId: string; districtId: string } | { userId: string; districtId: null };
 
 export class SubscriptionsService {
   constructor(private readonly ctx: AppContext) {}
@@ -107,40 +115,118 @@ export class SubscriptionsService {
     return this.mine(p);
   }
 
-  /** One click from a mail, no sign-in: stop everything for the district in the signed token. */
-  async unsubscribe(token: string): Promise<{ districtName: string; email: string }> {
-    let userId: string;
-    let districtId: string;
+  private scopeOf(token: string): UnsubscribeScope {
     try {
       const claims = jwt.verify(token, this.ctx.config.JWT_SECRET, { audience: UNSUBSCRIBE_AUDIENCE, issuer: 'broodcast', algorithms: ['HS256'] });
-      if (typeof claims === 'string' || typeof claims.sub !== 'string' || typeof claims.did !== 'string') throw new Error('claims');
-      userId = claims.sub;
-      districtId = claims.did;
+      if (typeof claims === 'string' || typeof claims.sub !== 'string') throw new Error('claims');
+      if (typeof claims.did === 'string') return { userId: claims.sub, districtId: claims.did };
+      if (claims.kind === 'bulletin') return { userId: claims.sub, districtId: null };
+      throw new Error('claims');
     } catch {
       throw badRequest('token_invalid', 'This unsubscribe link is not valid. Sign in and change your mail on the preferences page.', [
         { path: 'token', message: 'is not a valid unsubscribe link' },
       ]);
     }
-    return this.ctx.ds.transaction(async (manager) => {
-      const [user] = await manager.query(`SELECT id, email, role FROM users WHERE id = $1`, [userId]);
-      const [district] = await manager.query(`SELECT name FROM districts WHERE id = $1`, [districtId]);
-      if (!user || !district) throw badRequest('token_invalid', 'This unsubscribe link no longer matches an account or district.', [
-        { path: 'token', message: 'no longer matches an account or district' },
-      ]);
-      const rows = await manager.findBy(SubscriptionEntity, { userId });
+  }
+
+  private async target(manager: EntityManager, scope: UnsubscribeScope) {
+    const [user] = await manager.query(`SELECT id, email, role, language FROM users WHERE id = $1`, [scope.userId]);
+    const [district] = scope.districtId ? await manager.query(`SELECT name FROM districts WHERE id = $1`, [scope.districtId]) : [null];
+    if (!user || (scope.districtId && !district)) throw badRequest('token_invalid', 'This unsubscribe link no longer matches an account or district.', [
+      { path: 'token', message: 'no longer matches an account or district' },
+    ]);
+    return { user: user as { id: string; email: string; role: Role; language: Language }, districtName: (district?.name as string | undefined) ?? null };
+  }
+
+  /** Whether the scope still receives anything (its district's mail, or any weekly bulletin). */
+  private async receiving(manager: EntityManager, scope: UnsubscribeScope, role: Role): Promise<boolean> {
+    const rows = await manager.findBy(SubscriptionEntity, { userId: scope.userId });
+    if (rows.length === 0) {
+      const assigned: string[] = (await manager.query(`SELECT district_id FROM user_districts WHERE user_id = $1`, [scope.userId])).map((r: { district_id: string }) => r.district_id);
+      const defaults = this.defaultFor(role, assigned);
+      if (scope.districtId) return defaults(scope.districtId).length > 0;
+      return (await this.visibleDistricts(manager, scope.userId, role)).some((d) => defaults(d.id).includes('bulletin'));
+    }
+    return scope.districtId
+      ? rows.some((r) => r.districtId === scope.districtId && r.active && r.kinds.length > 0)
+      : rows.some((r) => r.active && r.kinds.includes('bulletin'));
+  }
+
+  /** The confirmation page's question (opening the link changes nothing): whose mail, what it stops, in their language. */
+  async describe(token: string): Promise<UnsubscribeResponse> {
+    const scope = this.scopeOf(token);
+    const { user, districtName } = await this.target(this.ctx.ds.manager, scope);
+    return {
+      email: user.email, districtName, scope: scope.districtId ? 'district' : 'bulletin', language: user.language,
+      subscribed: await this.receiving(this.ctx.ds.manager, scope, user.role),
+    };
+  }
+
+  /**
+   * Stop the mail the token names, no sign-in: the confirmation page's button, or a mail program's one-click
+   * POST (RFC 8058). The rows as they were are kept in the audit event, so undo puts them back.
+   */
+  async unsubscribe(token: string): Promise<UnsubscribeResponse> {
+    const scope = this.scopeOf(token);
+    await this.ctx.ds.transaction(async (manager) => {
+      const { user } = await this.target(manager, scope);
+      let rows = await manager.findBy(SubscriptionEntity, { userId: user.id });
       if (rows.length === 0) {
-        // Nothing chosen yet: write the role default as explicit rows first, so only this district changes.
-        const assigned: string[] = (await manager.query(`SELECT district_id FROM user_districts WHERE user_id = $1`, [userId])).map((r: { district_id: string }) => r.district_id);
+        // Nothing chosen yet: write the role default as explicit rows first, so only what the token names changes.
+        const assigned: string[] = (await manager.query(`SELECT district_id FROM user_districts WHERE user_id = $1`, [user.id])).map((r: { district_id: string }) => r.district_id);
         const defaults = this.defaultFor(user.role, assigned);
-        const visible = await this.visibleDistricts(manager, userId, user.role);
-        await this.writeAll(manager, userId, visible.map((d) => ({ districtId: d.id, kinds: defaults(d.id) })));
+        const visible = await this.visibleDistricts(manager, user.id, user.role);
+        await this.writeAll(manager, user.id, visible.map((d) => ({ districtId: d.id, kinds: defaults(d.id) })));
+        rows = await manager.findBy(SubscriptionEntity, { userId: user.id });
       }
-      await manager.upsert(SubscriptionEntity, { userId, districtId, kinds: [], active: false }, ['userId', 'districtId']);
+      const before = rows.filter((r) => (scope.districtId ? r.districtId === scope.districtId : r.kinds.includes('bulletin')))
+        .map((r) => ({ districtId: r.districtId, kinds: r.kinds, active: r.active }));
+      if (scope.districtId) {
+        await manager.upsert(SubscriptionEntity, { userId: user.id, districtId: scope.districtId, kinds: [], active: false }, ['userId', 'districtId']);
+      } else {
+        for (const r of before) {
+          const kinds = r.kinds.filter((k) => k !== 'bulletin');
+          await manager.update(SubscriptionEntity, { userId: user.id, districtId: r.districtId }, { kinds, active: kinds.length > 0 });
+        }
+      }
       await recordAudit(manager, {
-        actorId: userId, action: 'subscriptions.unsubscribed', entity: 'user', entityId: userId, after: { districtId }, reason: 'one-click link in a mail',
+        actorId: user.id, action: 'subscriptions.unsubscribed', entity: 'user', entityId: user.id,
+        before, after: { districtId: scope.districtId, stopped: scope.districtId ? 'all' : 'bulletin' }, reason: 'unsubscribe link in a mail',
       });
-      return { districtName: district.name, email: user.email };
     });
+    return this.describe(token);
+  }
+
+  /** Undo from the confirmation page: put back the rows the newest unsubscribe of this scope changed. */
+  async undo(token: string): Promise<UnsubscribeResponse> {
+    const scope = this.scopeOf(token);
+    await this.ctx.ds.transaction(async (manager) => {
+      const { user } = await this.target(manager, scope);
+      const [event] = await manager.query(
+        `SELECT id, before FROM audit_events
+          WHERE action = 'subscriptions.unsubscribed' AND entity = 'user' AND entity_id = $1 AND (after->>'districtId') IS NOT DISTINCT FROM $2::text
+          ORDER BY id DESC LIMIT 1`,
+        [user.id, scope.districtId],
+      );
+      if (!event) throw conflict('nothing_to_undo', 'There is no unsubscribe to undo for this link.');
+      const before = (event.before ?? []) as { districtId: string; kinds: MailKind[]; active: boolean }[];
+      for (const r of before) {
+        const visible = (await this.visibleDistricts(manager, user.id, user.role)).some((d) => d.id === r.districtId);
+        if (!visible) continue; // a community worker no longer assigned there does not get it back
+        if (scope.districtId) {
+          await manager.upsert(SubscriptionEntity, { userId: user.id, districtId: r.districtId, kinds: r.kinds, active: r.active }, ['userId', 'districtId']);
+        } else {
+          const [now] = await manager.findBy(SubscriptionEntity, { userId: user.id, districtId: r.districtId });
+          const kinds = ALL_KINDS.filter((k) => k === 'bulletin' || now?.kinds.includes(k));
+          await manager.upsert(SubscriptionEntity, { userId: user.id, districtId: r.districtId, kinds, active: true }, ['userId', 'districtId']);
+        }
+      }
+      await recordAudit(manager, {
+        actorId: user.id, action: 'subscriptions.resubscribed', entity: 'user', entityId: user.id,
+        after: { districtId: scope.districtId, restored: before }, reason: 'undo on the unsubscribe page',
+      });
+    });
+    return this.describe(token);
   }
 
   private defaultFor(role: Role, assigned: string[]) {

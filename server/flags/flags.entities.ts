@@ -1,4 +1,5 @@
 import { AdvisoryEntity } from '../advisories/advisory.entity';
+import { BulletinDigestEntity } from '../bulletins/bulletin-digest.entity';
 import { BulletinEntity } from '../bulletins/bulletin.entity';
 import { BulletinTranslationEntity } from '../bulletins/bulletin-translation.entity';
 import { SubscriptionEntity } from '../bulletins/subscription.entity';
@@ -15,6 +16,7 @@ export const flagsEntities: Function[] = [
   SubscriptionEntity,
   BulletinEntity,
   BulletinTranslationEntity,
+  BulletinDigestEntity,
   OutboxMessageEntity,
   OutboxAttemptEntity,
 ];

@@ -1,5 +1,6 @@
 import { Check, Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
 import { AdvisoryEntity } from '../advisories/advisory.entity';
+import { BulletinDigestEntity } from '../bulletins/bulletin-digest.entity';
 import { BulletinEntity } from '../bulletins/bulletin.entity';
 import { UserEntity } from '../users/user.entity';
 
@@ -56,6 +57,14 @@ export class OutboxMessageEntity {
   @ManyToOne(() => BulletinEntity, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'bulletin_id' })
   bulletin?: BulletinEntity;
+
+  /** The person's weekly digest whose PDF goes attached (one bulletin per person and week). */
+  @Column({ name: 'digest_id', type: 'uuid', nullable: true })
+  digestId: string | null;
+
+  @ManyToOne(() => BulletinDigestEntity, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'digest_id' })
+  digest?: BulletinDigestEntity;
 
   @Column({ name: 'advisory_id', type: 'uuid', nullable: true })
   advisoryId: string | null;

@@ -12,6 +12,7 @@ export interface OutgoingMail {
   html: string;
   headers?: Record<string, string>;
   bulletinId?: string | null;
+  digestId?: string | null;
   advisoryId?: string | null;
 }
 
@@ -40,6 +41,7 @@ export async function enqueueMail(manager: EntityManager, config: Config, mails:
       htmlBody: m.html,
       headers: m.headers ?? {},
       bulletinId: m.bulletinId ?? null,
+      digestId: m.digestId ?? null,
       advisoryId: m.advisoryId ?? null,
     };
   });

@@ -72,9 +72,12 @@ export class OutboxWorker {
       await runner.startTransaction();
       const [row]: ClaimedRow[] = await runner.query(
         `SELECT m.id, m.kind, m.message_id, m.to_address, m.subject, m.text_body, m.html_body, m.headers, m.attempts,
-                COALESCE(bt.pdf, b.pdf) AS pdf, CASE WHEN b.id IS NULL THEN NULL
-                            ELSE 'broodcast-bulletin-' || d.code || '-' || b.epi_year || '-w' || lpad(b.epi_week::text, 2, '0') || '.pdf' END AS pdf_name
+                COALESCE(g.pdf, bt.pdf, b.pdf) AS pdf,
+                CASE WHEN g.id IS NOT NULL THEN g.pdf_name WHEN b.id IS NULL THEN NULL
+                     ELSE 'broodcast-bulletin-' || d.code || '-' || b.epi_year || '-w' || lpad(b.epi_week::text, 2, '0') || '.pdf' END AS pdf_name
            FROM outbox_messages m
+           -- a person's weekly digest carries its own named PDF
+           LEFT JOIN bulletin_digests g ON g.id = m.digest_id
            LEFT JOIN bulletins b ON b.id = m.bulletin_id
            -- the PDF in the language the mail is written in (its Content-Language), else the default one
            LEFT JOIN bulletin_translations bt ON bt.bulletin_id = b.id AND bt.language = m.headers->>'Content-Language'

@@ -1,17 +1,11 @@
-import { z } from 'zod';
 import { startSeasonRunBody } from '../../shared/api/board.schema';
 import { idParams } from '../../shared/api/common.schema';
-import { tierSettingsSchema } from '../../shared/tier';
+import { tierSettingsBody, tierSettingsPreviewBody } from '../../shared/api/tier-settings.schema';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
 import { presentSeasonRun } from './season-run.presenter';
 import { SeasonRunService } from './season-run.service';
 import { TierSettingsService } from './tier-settings.service';
-
-const tierSettingsBody = z.strictObject({
-  settings: tierSettingsSchema,
-  reason: z.string().trim().min(3, { message: 'must say why (3 characters or more)' }).max(500),
-});
 
 export function seasonRoutes(ctx: AppContext) {
   const runs = new SeasonRunService(ctx);
@@ -36,6 +30,11 @@ export function seasonRoutes(ctx: AppContext) {
     defineRoute({
       method: 'put', path: '/tier-settings', access: ['admin'], body: tierSettingsBody,
       handler: async ({ body, principal }) => settings.update(principal, body.settings, body.reason),
+    }),
+    defineRoute({
+      // The dry run before saving: how this week's Ladder would change. Writes nothing.
+      method: 'post', path: '/tier-settings/preview', access: ['admin'], body: tierSettingsPreviewBody,
+      handler: async ({ body }) => settings.preview(body.settings),
     }),
   ];
 }

@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { skippedDistrict } from './problems.schema';
+import { problemReason, skippedDistrict } from './problems.schema';
+import { language } from './auth.schema';
 import { uniqueArray, uuid } from './common.schema';
 
 /** What a subscription delivers: advisories as they are approved, and the weekly bulletin. */
@@ -32,16 +33,47 @@ export const subscriptionsBody = z.strictObject({
 export type SubscriptionsBody = z.infer<typeof subscriptionsBody>;
 
 export const unsubscribeParams = z.strictObject({ token: z.string().min(10).max(2000) });
-export const unsubscribeResponse = z.object({ districtName: z.string(), email: z.string() });
+/**
+ * What an unsubscribe link stops and whether it still receives it. `scope` 'district': every mail for
+ * `districtName` (the link in an advisory); 'bulletin': the weekly bulletin for every district (the link in
+ * the digest; advisories go on). `language` is the reader's, so the page speaks it before any sign-in.
+ */
+export const unsubscribeResponse = z.object({
+  email: z.string(),
+  districtName: z.string().nullable(),
+  scope: z.enum(['district', 'bulletin']),
+  language: language,
+  subscribed: z.boolean(),
+});
+export type UnsubscribeResponse = z.infer<typeof unsubscribeResponse>;
 
-export const bulletinQuery = z.strictObject({ districtId: uuid });
-export const bulletinPreviewQuery = z.strictObject({ districtId: uuid.optional() });
+/** `language`: preview the bulletin as a reader of that language gets it (default: English). */
+export const bulletinQuery = z.strictObject({ districtId: uuid, language: language.optional() });
+export const bulletinPreviewQuery = z.strictObject({ districtId: uuid.optional(), language: language.optional() });
+/** The signed-in person's own weekly digest, as they would get it (in their language unless `language` says). */
+export const digestPreviewQuery = z.strictObject({ language: language.optional() });
+
+export const digestPreviewResponse = z.object({
+  epiYear: z.number().int(),
+  epiWeek: z.number().int(),
+  language: language,
+  layout: z.enum(['detail', 'overview']),
+  subject: z.string(),
+  text: z.string(),
+  filename: z.string(),
+  districts: z.number().int(),
+});
+export type DigestPreviewResponse = z.infer<typeof digestPreviewResponse>;
+
+/** One reader whose weekly digest could not be written, and why; every other reader's was. */
+export const skippedRecipient = z.object({ userId: z.string(), email: z.string(), reason: problemReason });
 
 export const bulletinPreviewResponse = z.object({
   districtId: uuid,
   districtName: z.string(),
   epiYear: z.number().int().nullable(),
   epiWeek: z.number().int().nullable(),
+  language: language,
   subject: z.string(),
   text: z.string(),
   recipients: z.number().int(),
@@ -58,6 +90,10 @@ export const bulletinSendResponse = z.object({
   messagesQueued: z.number().int(),
   /** Districts whose bulletin could not be written (their data failed), with why; the others were sent. */
   districtsFailed: z.array(skippedDistrict),
+  /** One digest per person and week: how many were written now (messagesQueued counts their mails). */
+  digestsWritten: z.number().int(),
+  /** Readers whose digest could not be written, with why; every other reader's was queued. */
+  recipientsFailed: z.array(skippedRecipient),
 });
 export type BulletinSendResponse = z.infer<typeof bulletinSendResponse>;
 

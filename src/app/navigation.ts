@@ -20,6 +20,7 @@ export const NAV_ITEMS = [
   { id: 'users', label: 'Users', to: '/admin/users', roles: ['admin'] },
   { id: 'districts', label: 'Districts', to: '/admin/districts', roles: ['admin'] },
   { id: 'profiles', label: 'Profiles', to: '/admin/profiles', roles: ['admin'] },
+  { id: 'tier-settings', label: 'Tier settings', to: '/admin/tier-settings', roles: ['admin'] },
   { id: 'case-ledger', label: 'Case ledger', to: '/cases', roles: ['epidemiologist', 'supervisor'] },
   { id: 'surveys', label: 'Surveys', to: '/surveys', roles: ['officer', 'worker'] },
   { id: 'season-runs', label: 'Season runs', to: '/season-runs', roles: ['admin', 'officer'] },

@@ -162,6 +162,12 @@ export const routes: RouteObject[] = [
             })),
           },
           {
+            path: 'admin/tier-settings',
+            lazy: screen('features/tier-settings/tier-settings.page', () => import('../features/tier-settings/tier-settings.page'), ({ TierSettingsPage }) => ({
+              element: guarded(rolesFor('tier-settings'), <TierSettingsPage />),
+            })),
+          },
+          {
             path: 'admin/profiles',
             lazy: screen('features/profiles/profiles.page', () => import('../features/profiles/profiles.page'), ({ ProfilesPage }) => ({
               element: guarded(rolesFor('profiles'), <ProfilesPage />),

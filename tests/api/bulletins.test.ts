@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BulletinsService } from '../../server/bulletins/bulletins.service';
+import { textsFor } from '../../server/i18n';
 import { OutboxWorker } from '../../server/outbox/outbox.worker';
 import { runSeasonNow } from '../../server/season/season-run.service';
 import { createTestApp, type TestApp } from '../support/test-app';
@@ -56,7 +57,8 @@ describe('the weekly bulletin', () => {
     const sent = await sup.post('/api/bulletins/send').send({});
     expect(sent.status).toBe(200);
     expect(sent.body).toMatchObject({ epiYear: 2026, epiWeek: 33, bulletinsWritten: 2 });
-    const rows = await t.ds.query(`SELECT m.to_address, b.district_id FROM outbox_messages m JOIN bulletins b ON b.id = m.bulletin_id`);
+    // One digest per person: each mail names the districts it covers.
+    const rows = await t.ds.query(`SELECT m.to_address, unnest(g.district_ids)::text AS district_id FROM outbox_messages m JOIN bulletin_digests g ON g.id = m.digest_id`);
     const to = (id: string) => rows.filter((r: { district_id: string }) => r.district_id === id).map((r: { to_address: string }) => r.to_address);
     expect(to(warm.id)).toContain(worker.email);
     expect(to(cool.id)).not.toContain(worker.email);
@@ -65,7 +67,8 @@ describe('the weekly bulletin', () => {
 
     await new OutboxWorker(t.ctx).drain();
     const [mail] = await waitForMails([worker.email], 1);
-    expect(mail.subject).toBe(`Broodcast weekly bulletin: ${warm.name}, week 33 of 2026 (${mail.subject.match(/\((\w+) tier\)/)![1]} tier)`);
+    expect(mail.subject).toBe(textsFor('en', 'bulletin')('digest.subject', { region: 'Halvern', week: 33, year: 2026, count: 1 }));
+    expect(mail.text).toContain(warm.name);
     expect(mail.text).toContain('Cases against the endemic channel');
     expect(mail.text).toContain('trained staff only');
     expect(mail.html).toContain('The region this week');
@@ -89,9 +92,9 @@ describe('the weekly bulletin', () => {
     const token = /\/unsubscribe\?token=([\w.-]+)/.exec(mail.text)![1];
     const off = await request(t.app).post(`/api/unsubscribe/${token}`).send({});
     expect(off.status).toBe(200);
-    expect(off.body).toEqual({ districtName: warm.name, email: worker.email });
+    expect(off.body).toEqual({ districtName: null, email: worker.email, scope: 'bulletin', language: 'en', subscribed: false });
     const subs = await t.ds.query(`SELECT district_id, kinds, active FROM subscriptions WHERE user_id = $1`, [worker.id]);
-    expect(subs).toEqual([{ district_id: warm.id, kinds: [], active: false }]);
+    expect(subs).toEqual([{ district_id: warm.id, kinds: ['advisory'], active: true }]); // the weekly bulletin stops, advisories go on
     const bad = await request(t.app).post(`/api/unsubscribe/${token.slice(0, -3)}abc`).send({});
     expect(bad.status).toBe(400);
     expect(bad.body.error.code).toBe('token_invalid');
@@ -107,14 +110,14 @@ describe('the bulletin in the reader\'s language', () => {
     await t.ds.query(`UPDATE users SET language = 'pt' WHERE id = $1`, [pt.id]);
     const sent = await new BulletinsService(t.ctx).sendLocked();
     expect(sent).toMatchObject({ epiWeek: 33, bulletinsWritten: 2 });
-    const translations = await t.ds.query(`SELECT t.language FROM bulletin_translations t JOIN bulletins b ON b.id = t.bulletin_id WHERE b.district_id = $1 ORDER BY 1`, [warm.id]);
-    expect(translations.map((r: { language: string }) => r.language)).toEqual(['fr', 'pt']);
+    const digests = await t.ds.query(`SELECT language FROM bulletin_digests WHERE user_id = ANY($1::uuid[]) ORDER BY 1`, [[fr.id, pt.id]]);
+    expect(digests.map((r: { language: string }) => r.language)).toEqual(['fr', 'pt']);
     await new OutboxWorker(t.ctx).drain();
 
     const [mail] = await waitForMails([fr.email], 1);
-    expect(mail.subject).toMatch(new RegExp(`^Bulletin hebdomadaire Broodcast : ${warm.name}, semaine 33 de 2026 \\(niveau (Base|Accru|Élevé|Critique)\\)$`));
+    expect(mail.subject).toBe(textsFor('fr', 'bulletin')('digest.subject', { region: 'Halvern', week: 33, year: 2026, count: 1 }));
     for (const words of ['Facteurs du niveau', 'Signal des cas', 'canal endémique', 'La région cette semaine', 'Que faire', 'personnel formé',
-      'autorité sanitaire nationale', 'clinicien agréé', 'ne pose aucun diagnostic', 'Ne plus recevoir de courriels'])
+      'autorité sanitaire nationale', 'clinicien agréé', 'ne pose aucun diagnostic', textsFor('fr', 'common')('footer.digestStopLink')])
       expect(mail.text).toContain(words);
     expect(mail.text).not.toContain('Drivers behind the tier');
     expect(mail.html).toContain('<html lang="fr">');

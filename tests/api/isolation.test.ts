@@ -83,7 +83,7 @@ describe('a region-wide job with one broken district', () => {
     expect(res.body.bulletinsWritten).toBe(3);
     expect(res.body.districtsFailed).toEqual([{ districtId: broken.id, districtName: broken.name, reason: { code: 'unexpected_error', params: { kind: 'TypeError' } } }]);
     const queued = await t.ds.query(
-      `SELECT m.to_address FROM outbox_messages m JOIN bulletins b ON b.id = m.bulletin_id ORDER BY m.created_at`,
+      `SELECT m.to_address FROM outbox_messages m JOIN bulletin_digests g ON g.id = m.digest_id ORDER BY m.created_at`,
     );
     expect((await t.ds.query(`SELECT count(*)::int AS n FROM outbox_messages`))[0].n - before).toBe(res.body.messagesQueued);
     const to = new Set(queued.map((r: { to_address: string }) => r.to_address));

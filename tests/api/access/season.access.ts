@@ -7,6 +7,7 @@ export const seasonAccess: AccessTable = {
   'GET /season-runs/:id': ['admin', 'officer'],
   'GET /tier-settings': ALL_SIGNED_IN,
   'PUT /tier-settings': ['admin'],
+  'POST /tier-settings/preview': ['admin'],
   'GET /board': ALL_SIGNED_IN,
   'GET /districts/:id/file': ALL_SIGNED_IN,
 };

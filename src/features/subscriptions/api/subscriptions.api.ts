@@ -18,6 +18,23 @@ export function useSaveSubscriptions() {
   });
 }
 
-/** POST /api/unsubscribe/:token — the one-click link from a mail; no session needed. */
+const unsubscribePath = (token: string) => `/api/unsubscribe/${encodeURIComponent(token)}`;
+
+/** GET /api/unsubscribe/:token — what the link in a mail would stop, and for whom (changes nothing); no session needed. */
+export const unsubscribeLinkQueryOptions = (token: string | null) =>
+  queryOptions({
+    queryKey: ['unsubscribe', token],
+    queryFn: ({ signal }) => api.get(unsubscribePath(token!), unsubscribeResponse, signal),
+    enabled: !!token,
+    retry: false,
+    staleTime: Infinity,
+  });
+export const useUnsubscribeLink = (token: string | null) => useQuery(unsubscribeLinkQueryOptions(token));
+
+/** POST /api/unsubscribe/:token — stop the mail the link names (the confirmation page's button); no session needed. */
 export const useUnsubscribe = () =>
-  useMutation({ mutationFn: (token: string) => api.post(`/api/unsubscribe/${encodeURIComponent(token)}`, {}, unsubscribeResponse) });
+  useMutation({ mutationFn: (token: string) => api.post(unsubscribePath(token), {}, unsubscribeResponse) });
+
+/** POST /api/unsubscribe/:token/undo — put the stopped mail back; no session needed. */
+export const useUndoUnsubscribe = () =>
+  useMutation({ mutationFn: (token: string) => api.post(`${unsubscribePath(token)}/undo`, {}, unsubscribeResponse) });
