@@ -11,6 +11,7 @@ import { authRoutes } from './auth/auth.routes';
 import { AuthService } from './auth/auth.service';
 import { sessionMiddleware } from './auth/session.middleware';
 import { districtsRoutes } from './districts/districts.routes';
+import { importsRoutes } from './districts/imports.routes';
 import { healthRoutes } from './health/health.routes';
 import { csrfGuard } from './http/csrf';
 import { apiNotFound, errorMiddleware } from './http/error-middleware';
@@ -67,6 +68,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...authRoutes(ctx, auth),
     ...usersRoutes(ctx),
     ...districtsRoutes(ctx),
+    ...importsRoutes(ctx),
     ...weatherRoutes(ctx),
     ...casesRoutes(ctx),
     ...seasonRoutes(ctx),

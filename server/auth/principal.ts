@@ -9,7 +9,10 @@ export interface Principal {
   email: string;
   displayName: string;
   role: Role;
+  /** Own districts plus every district of `regionIds`. */
   districtIds: string[];
+  /** The regions the user is scoped to (issue 17); absent for system principals. */
+  regionIds?: string[];
 }
 
 export const isDistrictScoped = (p: Principal) => DISTRICT_SCOPED_ROLES.includes(p.role);

@@ -21,15 +21,17 @@ export class SessionsRepository {
 
   /** The principal of a live session in one query, or null when revoked, expired or deactivated. */
   async findPrincipal(sessionId: string, userId: string): Promise<Principal | null> {
-    const rows: { id: string; email: string; display_name: string; role: Role; district_ids: string[] }[] =
+    const rows: { id: string; email: string; display_name: string; role: Role; district_ids: string[]; region_ids: string[] }[] =
       await this.ds.query(
+        // The user's own districts and every district of the regions they are scoped to (issue 17).
         `SELECT u.id, u.email, u.display_name, u.role,
-                COALESCE(array_agg(ud.district_id) FILTER (WHERE ud.district_id IS NOT NULL), '{}') AS district_ids
+                ARRAY(SELECT ud.district_id FROM user_districts ud WHERE ud.user_id = u.id
+                      UNION
+                      SELECT d.id FROM user_regions ur JOIN districts d ON d.region_id = ur.region_id WHERE ur.user_id = u.id) AS district_ids,
+                ARRAY(SELECT ur.region_id FROM user_regions ur WHERE ur.user_id = u.id) AS region_ids
            FROM sessions s
            JOIN users u ON u.id = s.user_id
-           LEFT JOIN user_districts ud ON ud.user_id = u.id
-          WHERE s.id = $1 AND s.user_id = $2 AND s.revoked_at IS NULL AND s.expires_at > now() AND u.active
-          GROUP BY u.id`,
+          WHERE s.id = $1 AND s.user_id = $2 AND s.revoked_at IS NULL AND s.expires_at > now() AND u.active`,
         [sessionId, userId],
       );
     const row = rows[0];
@@ -41,6 +43,7 @@ export class SessionsRepository {
       displayName: row.display_name,
       role: row.role,
       districtIds: row.district_ids,
+      regionIds: row.region_ids,
     };
   }
 }

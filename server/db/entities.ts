@@ -4,6 +4,8 @@ import { SessionEntity } from '../auth/session.entity';
 import { DistrictPopulationEntity } from '../districts/district-population.entity';
 import { DistrictEntity } from '../districts/district.entity';
 import { UserDistrictEntity } from '../users/user-district.entity';
+import { UserRegionEntity } from '../users/user-region.entity';
+import { RegionEntity } from '../districts/region.entity';
 import { UserEntity } from '../users/user.entity';
 import { casesEntities } from '../cases/cases.entities';
 import { weatherEntities } from '../weather/weather.entities';
@@ -15,6 +17,8 @@ import { profilesEntities } from '../profiles/profiles.entities';
 export const entities = [
   UserEntity,
   UserDistrictEntity,
+  UserRegionEntity,
+  RegionEntity,
   DistrictEntity,
   DistrictPopulationEntity,
   SessionEntity,

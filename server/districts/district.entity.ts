@@ -1,7 +1,9 @@
-import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
+import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn } from 'typeorm';
+import { RegionEntity } from './region.entity';
 import type { PolygonGeometry } from '../../shared/api/districts.schema';
 
 @Entity({ name: 'districts' })
+@Index('districts_region_idx', ['regionId'])
 export class DistrictEntity {
   @PrimaryGeneratedColumn('uuid')
   id: string;
@@ -26,6 +28,19 @@ export class DistrictEntity {
 
   @Column({ name: 'centroid_lon', type: 'double precision', nullable: true })
   centroidLon: number | null;
+
+  /** The boundary simplified for display (topology-preserving, at import); the map draws it, station
+   * assignment keeps using the full `boundary`. Null: the map falls back to the full boundary. */
+  @Column({ name: 'display_boundary', type: 'jsonb', nullable: true })
+  displayBoundary?: PolygonGeometry | null;
+
+  /** The region the district belongs to (one level above it), if any. */
+  @Column({ name: 'region_id', type: 'uuid', nullable: true })
+  regionId?: string | null;
+
+  @ManyToOne(() => RegionEntity, { onDelete: 'SET NULL' })
+  @JoinColumn({ name: 'region_id', foreignKeyConstraintName: 'districts_region_id_fkey' })
+  region?: RegionEntity;
 
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date;

@@ -6,6 +6,7 @@ export const presentDistrict = ({ district, populations, profileIds }: DistrictW
   code: district.code,
   name: district.name,
   isDemo: district.isDemo,
+  regionId: district.regionId ?? null,
   populations,
   profileIds,
   hasBoundary: district.boundary !== null,

@@ -18,7 +18,7 @@ export class DistrictsRepository {
     const districts = await manager.find(DistrictEntity, {
       where: ids ? { id: In(ids) } : {},
       order: { code: 'ASC' },
-      select: { id: true, code: true, name: true, isDemo: true, centroidLat: true, centroidLon: true, createdAt: true },
+      select: { id: true, code: true, name: true, isDemo: true, regionId: true, centroidLat: true, centroidLon: true, createdAt: true },
     });
     const hasBoundary: { id: string }[] = districts.length
       ? await manager.query('SELECT id FROM districts WHERE boundary IS NOT NULL AND id = ANY($1)', [districts.map((d) => d.id)])
@@ -44,11 +44,12 @@ export class DistrictsRepository {
     return (await this.list([id], manager))[0] ?? null;
   }
 
-  boundaries(ids?: string[]) {
-    return this.ds.getRepository(DistrictEntity).find({
-      where: ids ? { id: In(ids) } : {},
-      select: { id: true, code: true, name: true, boundary: true },
-      order: { code: 'ASC' },
-    });
+  /** The boundaries the map draws: the display geometry simplified at import where there is one, else the full one. */
+  async boundaries(ids?: string[]): Promise<{ id: string; code: string; name: string; boundary: DistrictEntity['boundary'] }[]> {
+    return this.ds.query(
+      `SELECT id, code, name, COALESCE(display_boundary, boundary) AS boundary FROM districts
+        WHERE ($1::uuid[] IS NULL OR id = ANY($1::uuid[])) ORDER BY code`,
+      [ids ?? null],
+    );
   }
 }

@@ -8,6 +8,7 @@ export function districtsRoutes(ctx: AppContext) {
   const service = new DistrictsService(ctx);
   return [
     defineRoute({ method: 'get', path: '/districts', access: 'signed-in', handler: ({ principal }) => service.list(principal) }),
+    defineRoute({ method: 'get', path: '/regions', access: 'signed-in', handler: () => service.regions() }),
     defineRoute({
       method: 'get', path: '/districts/boundaries', access: 'signed-in',
       handler: ({ principal }) => service.boundaries(principal),

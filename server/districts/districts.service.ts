@@ -12,6 +12,7 @@ import { DistrictPopulationEntity } from './district-population.entity';
 import { DistrictEntity } from './district.entity';
 import { DistrictsRepository } from './districts.repository';
 import { isUniqueViolation } from '../platform/database-errors';
+import { RegionsRepository } from './regions.repository';
 
 
 export class DistrictsService {
@@ -24,6 +25,11 @@ export class DistrictsService {
   async list(p: Principal) {
     const rows = await this.districts.list(seesAllDistricts(p) ? undefined : p.districtIds);
     return { districts: rows.map(presentDistrict) };
+  }
+
+  /** The regions with their district counts (names and codes are not secret: every signed-in user may read them). */
+  async regions() {
+    return { regions: await new RegionsRepository(this.ctx.ds).list() };
   }
 
   async get(p: Principal, id: string) {

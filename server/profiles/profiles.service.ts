@@ -2,18 +2,21 @@ import type { AssignProfilesBody, ProfilesResponse, ProfileVariantBody } from '.
 import { findProfile, loadProfiles } from '../../shared/model';
 import { profileSchema, type Profile } from '../../shared/model/profile.schema';
 import type { AppContext } from '../app-context';
-import { recordAudit } from '../audit/audit.repository';
+import { recordAudit, recordAudits } from '../audit/audit.repository';
 import type { Principal } from '../auth/principal';
 import { badRequest, conflict, notFound } from '../http/errors';
 import { presentProfile, profileParameters } from './profiles.presenter';
+import { RegionsRepository } from '../districts/regions.repository';
 import { ProfilesRepository } from './profiles.repository';
 
 /** The profile library (published profiles shipped as data, plus local variants) and its assignment to districts. */
 export class ProfilesService {
   private readonly repo: ProfilesRepository;
+  private readonly regions: RegionsRepository;
 
   constructor(private readonly ctx: AppContext) {
     this.repo = new ProfilesRepository(ctx.ds);
+    this.regions = new RegionsRepository(ctx.ds);
   }
 
   async list(): Promise<ProfilesResponse> {
@@ -28,22 +31,23 @@ export class ProfilesService {
    * Only published profiles are assignable for now: the season run computes from the shipped library.
    */
   async assign(actor: Principal, body: AssignProfilesBody): Promise<{ updated: number }> {
-    if (body.regionCodes !== undefined) {
-      // Districts have no region yet (issue 17 item 3); the field is accepted so clients can be written now.
-      throw badRequest('regions_not_supported', 'Regions are not in the data model yet: name the districts instead.', [
-        { path: 'regionCodes', message: 'regions are not supported yet' },
-      ]);
-    }
     const fields = body.profiles.flatMap((p, i) =>
       findProfile(p.profileId) ? [] : [{ path: `profiles.${i}.profileId`, message: `is not a published profile (${p.profileId})` }]);
     if (fields.length > 0) throw badRequest('unknown_profile', `Unknown profile: ${fields.map((f) => f.path).join(', ')}`, fields);
-    const districtIds = [...(body.districtIds ?? [])].sort();
     return this.ctx.ds.transaction(async (m) => {
-      const missing = await this.repo.missingDistricts(m, districtIds);
+      const named = body.districtIds ?? [];
+      const missing = await this.repo.missingDistricts(m, named);
       if (missing.length > 0) {
         throw badRequest('unknown_district', `Unknown district: ${missing.join(', ')}`,
-          missing.map((id) => ({ path: `districtIds.${body.districtIds!.indexOf(id)}`, message: 'is not a district' })));
+          missing.map((id) => ({ path: `districtIds.${named.indexOf(id)}`, message: 'is not a district' })));
       }
+      // Regions name all their districts (issue 17): an unknown code is a 400 naming it, nothing written.
+      const codes = body.regionCodes ?? [];
+      const regionIds = codes.length ? await this.regions.idsByCode(m, codes) : new Map<string, string>();
+      const unknown = codes.flatMap((c, i) => (regionIds.has(c.toUpperCase()) ? [] : [{ path: `regionCodes.${i}`, message: `is not a region (${c})` }]));
+      if (unknown.length > 0) throw badRequest('unknown_region', `Unknown region: ${unknown.map((f) => f.path).join(', ')}`, unknown);
+      const ofRegions = regionIds.size ? await this.regions.districtIdsOf(m, [...regionIds.values()]) : [];
+      const districtIds = [...new Set([...named, ...ofRegions])].sort();
       const before = await this.repo.assignments(m, districtIds);
       await this.repo.replaceAssignments(m, districtIds, body.profiles, actor.userId);
       const beforeBy = new Map<string, { profileId: string; biofix: string | null }[]>();
@@ -52,12 +56,10 @@ export class ProfilesService {
         beforeBy.get(r.districtId)!.push({ profileId: r.profileId, biofix: r.biofix });
       }
       const after = body.profiles.map((p) => ({ profileId: p.profileId, biofix: p.biofix }));
-      for (const id of districtIds) {
-        await recordAudit(m, {
-          actorId: actor.userId, action: 'district.profiles-assigned', entity: 'district', entityId: id,
-          before: { profiles: beforeBy.get(id) ?? [] }, after: { profiles: after }, reason: body.reason,
-        });
-      }
+      await recordAudits(m, districtIds.map((id) => ({
+        actorId: actor.userId, action: 'district.profiles-assigned', entity: 'district', entityId: id,
+        before: { profiles: beforeBy.get(id) ?? [] }, after: { profiles: after, regionCodes: body.regionCodes ?? [] }, reason: body.reason,
+      })));
       return { updated: districtIds.length };
     });
   }

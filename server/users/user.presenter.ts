@@ -2,7 +2,7 @@ import type { PreferencesDto, UserDto } from '../../shared/api/users.schema';
 import type { UserEntity } from './user.entity';
 import type { UserWithDistricts } from './users.repository';
 
-export const presentUser = ({ user, districts }: UserWithDistricts): UserDto => ({
+export const presentUser = ({ user, districts, regions }: UserWithDistricts): UserDto => ({
   id: user.id,
   email: user.email,
   displayName: user.displayName,
@@ -10,6 +10,7 @@ export const presentUser = ({ user, districts }: UserWithDistricts): UserDto => 
   active: user.active,
   invitePending: user.passwordHash === null,
   districts,
+  regions,
   createdAt: user.createdAt.toISOString(),
 });
 

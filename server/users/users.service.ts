@@ -48,10 +48,12 @@ export class UsersService {
         language,
       }));
       await this.users.setDistricts(manager, user.id, body.districtIds);
+      await this.checkRegions(manager, body.regionIds);
+      await this.users.setRegions(manager, user.id, body.regionIds);
       const token = await issueToken(manager, user.id, 'invite', INVITE_TTL_HOURS);
       await recordAudit(manager, {
         actorId: actor.userId, action: 'user.invited', entity: 'user', entityId: user.id,
-        after: { email: user.email, role: user.role, districtIds: body.districtIds, language: user.language },
+        after: { email: user.email, role: user.role, districtIds: body.districtIds, regionIds: body.regionIds, language: user.language },
       });
       const link = inviteLink(this.ctx.config.APP_URL, token, language);
       await enqueueMail(manager, this.ctx.config, [
@@ -71,7 +73,7 @@ export class UsersService {
           { path: body.active === false ? 'active' : 'role', message: 'cannot be changed on your own account' },
         ]);
       const before = { displayName: current.user.displayName, role: current.user.role, active: current.user.active,
-        districtIds: current.districts.map((d) => d.id) };
+        districtIds: current.districts.map((d) => d.id), regionIds: current.regions.map((r) => r.id) };
       const patch: Partial<UserEntity> = {};
       if (body.displayName !== undefined) patch.displayName = body.displayName;
       if (body.role !== undefined) patch.role = body.role;
@@ -81,15 +83,20 @@ export class UsersService {
         await this.checkDistricts(manager, body.districtIds);
         await this.users.setDistricts(manager, id, body.districtIds);
       }
+      if (body.regionIds) {
+        await this.checkRegions(manager, body.regionIds);
+        await this.users.setRegions(manager, id, body.regionIds);
+      }
       // A change of privilege ends the user's sessions: they sign in again with the new rights.
       const privilegeChanged = (body.role && body.role !== before.role) || body.active === false ||
-        (body.districtIds && body.districtIds.join() !== before.districtIds.join());
+        (body.districtIds && body.districtIds.join() !== before.districtIds.join()) ||
+        (body.regionIds && [...body.regionIds].sort().join() !== [...before.regionIds].sort().join());
       if (privilegeChanged) await this.sessions.revokeAllOf(manager, id);
       const after = await this.users.findWithDistricts(id, manager);
       await recordAudit(manager, {
         actorId: actor.userId, action: 'user.updated', entity: 'user', entityId: id, before,
         after: { displayName: after!.user.displayName, role: after!.user.role, active: after!.user.active,
-          districtIds: after!.districts.map((d) => d.id) },
+          districtIds: after!.districts.map((d) => d.id), regionIds: after!.regions.map((r) => r.id) },
       });
       return after!;
     });
@@ -111,6 +118,14 @@ export class UsersService {
       await recordAudit(manager, { actorId: actor.userId, action: 'user.preferences-updated', entity: 'user', entityId: actor.userId, before, after });
       return after;
     });
+  }
+
+  private async checkRegions(manager: Parameters<UsersRepository['countExistingRegions']>[0], ids: string[]) {
+    const unique = [...new Set(ids)];
+    if ((await this.users.countExistingRegions(manager, unique)) !== unique.length)
+      throw badRequest('unknown_region', 'One of the regions does not exist.', [
+        { path: 'regionIds', message: 'contains a region that does not exist' },
+      ]);
   }
 
   private async checkDistricts(manager: Parameters<UsersRepository['countExistingDistricts']>[0], ids: string[]) {

@@ -39,10 +39,11 @@ export const boundaryQuery = z.strictObject({
   confirm: z.enum(['true', 'false'], { message: 'must be true or false' }).optional(),
 });
 
+export const DISTRICT_CODE_PATTERN = /^[A-Z0-9-]{2,16}$/;
 const code = z
   .string()
   .trim()
-  .regex(/^[A-Z0-9-]{2,16}$/, { message: 'must be 2–16 capital letters, digits or hyphens' });
+  .regex(DISTRICT_CODE_PATTERN, { message: 'must be 2–16 capital letters, digits or hyphens' });
 const name = z.string().trim().min(1, { message: 'is required' }).max(120, { message: 'is too long' });
 
 export const districtCreateBody = z.strictObject({ code, name });
@@ -60,6 +61,8 @@ export const districtDto = z.object({
   code: z.string(),
   name: z.string(),
   isDemo: z.boolean(),
+  /** The district's region (GET /api/regions), or null. */
+  regionId: uuid.nullable().default(null),
   populations: z.array(z.object({ year: z.number(), population: z.number() })),
   /** The vector–pathogen profiles assigned to the district (its own diseases are those with one of them). */
   profileIds: z.array(z.string()).default([]),

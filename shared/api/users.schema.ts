@@ -21,6 +21,8 @@ export const userInviteBody = z.strictObject({
   displayName,
   role: z.enum(ROLES, { message: 'must be one of: ' + ROLES.join(', ') }),
   districtIds: uniqueIds(500).default([]),
+  /** Regions the user is scoped to: their session holds every district of these regions as well. */
+  regionIds: uniqueIds(200).default([]),
   /** The invitee's language (their invite mail is written in it); English when left out. */
   language: language.optional(),
 });
@@ -31,6 +33,7 @@ export const userUpdateBody = z
     displayName: displayName.optional(),
     role: z.enum(ROLES, { message: 'must be one of: ' + ROLES.join(', ') }).optional(),
     districtIds: uniqueIds(500).optional(),
+    regionIds: uniqueIds(200).optional(),
     active: z.boolean().optional(),
   })
   .refine((b) => Object.keys(b).length > 0, { message: 'nothing to change' });
@@ -44,6 +47,7 @@ export const userDto = z.object({
   active: z.boolean(),
   invitePending: z.boolean(),
   districts: z.array(districtRef),
+  regions: z.array(districtRef).default([]),
   createdAt: z.string(),
 });
 export type UserDto = z.infer<typeof userDto>;

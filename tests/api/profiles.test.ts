@@ -53,7 +53,7 @@ describe('assigning profiles to districts', () => {
     ['no reason', (id) => ({ districtIds: [id], profiles: [{ profileId: 'culex-wnv', biofix: null }] }), 'invalid_input', 'reason'],
     ['an unknown field', (id) => ({ districtIds: [id], profiles: [{ profileId: 'culex-wnv', biofix: null }], reason: 'set-up', extra: 1 }), 'invalid_input', 'extra'],
     ['a district that does not exist', () => ({ districtIds: [randomId()], profiles: [{ profileId: 'culex-wnv', biofix: null }], reason: 'set-up' }), 'unknown_district', 'districtIds.0'],
-    ['region codes (regions are not in the data model yet)', () => ({ regionCodes: ['NORTH'], profiles: [{ profileId: 'culex-wnv', biofix: null }], reason: 'set-up' }), 'regions_not_supported', 'regionCodes'],
+    ['a region code that names no region', () => ({ regionCodes: ['NO-SUCH-REGION'], profiles: [{ profileId: 'culex-wnv', biofix: null }], reason: 'set-up' }), 'unknown_region', 'regionCodes.0'],
   ];
   for (const [what, body, code, field] of bad) {
     it(`when the body has ${what}, then the answer is 400 ${code} naming ${field} and nothing is written`, async () => {

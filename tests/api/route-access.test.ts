@@ -9,6 +9,7 @@ import { weatherAccess } from './access/weather.access';
 import { seasonAccess } from './access/season.access';
 import { flagsAccess } from './access/flags.access';
 import { profilesAccess } from './access/profiles.access';
+import { importsAccess } from './access/imports.access';
 
 /**
  * Every API route × every role (and no session). The expected access is written here, from
@@ -20,7 +21,7 @@ const EVERYBODY: Who[] = ['anonymous', ...ROLES];
 
 // One table per feature (tests/api/access/*.access.ts), merged; the sign-out row goes last because it
 // ends the sessions the other rows use.
-const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...profilesAccess, ...signOutAccess };
+const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...profilesAccess, ...importsAccess, ...signOutAccess };
 
 let t: TestApp;
 const agents = new Map<Who, ReturnType<typeof request.agent>>();

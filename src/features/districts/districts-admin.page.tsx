@@ -6,6 +6,7 @@ import { errorText } from '../../lib/error-text';
 import { NotAllowedPage } from '../../app/not-allowed.page';
 import { useDistricts } from './api/districts.api';
 import { CreateDistrictForm } from './components/create-district.form';
+import { ImportForm } from './components/import.form';
 import { DemoDataLabel } from './components/demo-data-label';
 import { DistrictsTable } from './components/districts.table';
 import { AssignProfilesForm } from '../profiles/components/assign-profiles.form';
@@ -33,6 +34,9 @@ export function DistrictsAdminPage() {
             <AssignProfilesForm districts={districts.data} />
           </div>
         ) : null}
+        <div className="card">
+          <ImportForm />
+        </div>
         <div className="card">
           <CreateDistrictForm />
         </div>

@@ -1,0 +1,9 @@
+import { ALL_SIGNED_IN, type AccessTable } from './who';
+
+/** Regions and the imports of districts, stations and populations (issue 17; DESIGN.md §2: admin imports). */
+export const importsAccess: AccessTable = {
+  'GET /regions': ALL_SIGNED_IN,
+  'POST /districts/import': ['admin'],
+  'POST /districts/populations/import': ['admin'],
+  'POST /weather/stations/import': ['admin'],
+};
