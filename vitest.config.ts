@@ -28,6 +28,8 @@ export default defineConfig({
         test: {
           name: 'client',
           environment: 'happy-dom',
+          // Screens render slower on a loaded machine; waits end as soon as the screen is there.
+          testTimeout: 30_000,
           include: ['tests/client/**/*.test.tsx'],
           setupFiles: ['tests/client/support/setup.ts'],
         },

@@ -80,8 +80,11 @@ export async function click(element: HTMLElement) {
   });
 }
 
-/** Waits (inside act) until `check` stops throwing, or fails after `timeout` ms. */
-export async function waitFor<T>(check: () => T, timeout = 1000): Promise<T> {
+/**
+ * Waits (inside act) until `check` stops throwing, or fails after `timeout` ms. The default is generous
+ * because the wait ends as soon as the check passes: a short one made tests fail on a busy machine.
+ */
+export async function waitFor<T>(check: () => T, timeout = 8000): Promise<T> {
   const start = Date.now();
   for (;;) {
     try {
