@@ -40,6 +40,7 @@ describe('invite form', () => {
       role: 'officer',
       language: 'en', // the invitee's language, English unless the admin picks another
       districtIds: [],
+      regionIds: [],
     });
   });
 });

@@ -62,8 +62,11 @@ describe('replay without look-ahead', () => {
     const late: CaseRevisionRow = { districtId: DISTRICT.id, diseaseId: DISEASE, epiYear: 2024, epiWeek: 20, version: 1,
       kind: 'entry', cases: 999, at: new Date(endOfDay(AS_OF).getTime() + 3 * DAY) };
     expect(replayDistrict(input({ caseRevisions: [...caseRevisions(), late] }))).toEqual(plain);
-    // The same count entered before the week ended is used (the check above is not blind).
-    const inTime = { ...late, at: new Date(endOfDay(AS_OF).getTime() - DAY / 2) };
+    // A count known before the week ended is used (the check above is not blind). Week 20 itself is still
+    // open at its own end (its reporting deadline has not passed), so the replay reads week 19: a correction
+    // of week 19 made before week 20 ended is what it reads.
+    const week19 = caseRevisions().find((r) => r.epiYear === 2024 && r.epiWeek === 19)!;
+    const inTime: CaseRevisionRow = { ...week19, version: 2, kind: 'correction', cases: 999, at: new Date(endOfDay(AS_OF).getTime() - DAY / 2) };
     expect(replayDistrict(input({ caseRevisions: [...caseRevisions(), inTime] }))[2]!.casesThisWeek).toBe(999);
   });
 

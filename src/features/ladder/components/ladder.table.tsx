@@ -155,9 +155,18 @@ function ladderColumns(w: LadderWords) {
           <span className="tabular-nums">
             {w.count(r.casesThisWeek)}
             {r.casesThisWeek !== null && r.casesWeek ? (
-              <span className="block text-xs text-ink-muted">
-                {t('table.casesWeek', { week: r.casesWeek.week, diseases: r.casesDiseases.map((d) => d.name).join(', ') })}
-              </span>
+              // Several diseases are counted, named in full on hover and for screen readers: their long
+              // names (e.g. two malaria species) would make every row three lines tall.
+              r.casesDiseases.length > 1 ? (
+                <span className="block text-xs text-ink-muted" title={r.casesDiseases.map((d) => d.name).join(', ')}>
+                  {t('table.casesWeekMany', { week: r.casesWeek.week, count: r.casesDiseases.length })}
+                  <span className="sr-only">: {r.casesDiseases.map((d) => d.name).join(', ')}</span>
+                </span>
+              ) : (
+                <span className="block text-xs text-ink-muted">
+                  {t('table.casesWeek', { week: r.casesWeek.week, diseases: r.casesDiseases.map((d) => d.name).join(', ') })}
+                </span>
+              )
             ) : null}
           </span>
         );
