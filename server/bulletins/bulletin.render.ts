@@ -112,11 +112,26 @@ export function districtTextLines(d: BulletinData, w: Words): string[] {
   return out;
 }
 
+/** Rows of the region's ranking a mail shows in full: the first ones, and every marked one. */
+export const RANKING_TOP = 20;
+
+/**
+ * The part of the ranking a bulletin prints: the top RANKING_TOP districts and every marked (followed) one
+ * below them, and how many were left out. A national ranking of thousands of districts made every mail
+ * about 2 MB, even for a worker who follows one district; the whole ranking stays on the Ladder.
+ */
+export function rankingExcerpt(ranking: RankingRow[], top = RANKING_TOP): { rows: RankingRow[]; omitted: number } {
+  const rows = ranking.filter((r, i) => i < top || r.isThis);
+  return { rows, omitted: ranking.length - rows.length };
+}
+
 /** The region's ranking as plain-text lines; `marker` is written after the marked rows. */
 export function rankingTextLines(ranking: RankingRow[], w: Words, marker: string): string[] {
+  const { rows, omitted } = rankingExcerpt(ranking);
   return [
     w.t('regionHeadingCount', { count: ranking.length }),
-    ...ranking.map((r) => `${String(r.rank).padStart(3)}. ${r.name} (${r.code}) — ${w.tier(r.tier)}, ${w.score(r.score)}${r.isThis ? `  ${marker}` : ''}`),
+    ...rows.map((r) => `${String(r.rank).padStart(3)}. ${r.name} (${r.code}) — ${w.tier(r.tier)}, ${w.score(r.score)}${r.isThis ? `  ${marker}` : ''}`),
+    ...(omitted > 0 ? [w.t('regionOmitted', { count: omitted })] : []),
   ];
 }
 
@@ -189,9 +204,11 @@ export function districtHtml(d: BulletinData, w: Words, top = 1): string[] {
 export function rankingHtml(ranking: RankingRow[], w: Words, heading: string, level = 2): string[] {
   const { t } = w;
   const parts = [`<h${level} style="font-size:16px">${e(heading)}</h${level}><table style="border-collapse:collapse"><tr><th ${td}>${e(t('table.rank'))}</th><th ${td}>${e(t('table.district'))}</th><th ${td}>${e(t('table.tier'))}</th><th ${td}>${e(t('table.score'))}</th></tr>`];
-  for (const r of ranking)
+  const { rows, omitted } = rankingExcerpt(ranking);
+  for (const r of rows)
     parts.push(`<tr${r.isThis ? ' style="font-weight:bold"' : ''}><td ${td}>${r.rank}</td><td ${td}>${e(r.name)} (${e(r.code)})</td><td ${td}>${badgeHtml(r.tier, w)}</td><td ${td}>${w.score(r.score)}</td></tr>`);
   parts.push('</table>');
+  if (omitted > 0) parts.push(`<p style="font-size:13px;color:#555">${e(t('regionOmitted', { count: omitted }))}</p>`);
   return parts;
 }
 
@@ -313,10 +330,12 @@ export function drawDistrictPdf(pw: PdfWriter, d: BulletinData, titleSize = 18):
 export function drawRankingPdf(pw: PdfWriter, ranking: RankingRow[], heading: string): void {
   const { doc, w, left, width } = pw;
   pw.heading(heading);
-  for (const r of ranking) {
+  const { rows, omitted } = rankingExcerpt(ranking);
+  for (const r of rows) {
     doc.font(r.isThis ? 'Helvetica-Bold' : 'Helvetica').fillColor('#1d2026')
       .text(pdfText(w.t('regionLinePdf', { rank: r.rank, district: r.name, code: r.code, tier: w.tier(r.tier), score: w.score(r.score) })), left, undefined, { width });
   }
+  if (omitted > 0) doc.font('Helvetica-Oblique').fillColor('#555555').text(pdfText(w.t('regionOmitted', { count: omitted })), left, undefined, { width });
 }
 
 export function drawCautionsPdf(pw: PdfWriter): void {

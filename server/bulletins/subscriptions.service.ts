@@ -32,11 +32,14 @@ export interface Recipient {
 const DEFAULT_SQL = `(u.role IN ('officer', 'supervisor')
    OR (u.role IN ('epidemiologist', 'worker') AND EXISTS (SELECT 1 FROM user_districts ud WHERE ud.user_id = u.id AND ud.district_id = $1)))`;
 
-/** Who receives `kind` for a district now, in the caller's transaction. */
+/**
+ * Who receives `kind` for a district now, in the caller's transaction: active accounts whose invitation
+ * was accepted (a password is set) — an address nobody has confirmed gets nothing but its invitation.
+ */
 export async function recipientsOf(manager: EntityManager, districtId: string, kind: MailKind): Promise<Recipient[]> {
   return manager.query(
     `SELECT u.id AS "userId", u.email, u.display_name AS "displayName", u.language, u.role FROM users u
-      WHERE u.active
+      WHERE u.active AND u.password_hash IS NOT NULL
         AND CASE WHEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id)
                  THEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id AND s.district_id = $1 AND s.active AND $2 = ANY (s.kinds))
                       -- a community worker's rows count only for a district they are (still) assigned to

@@ -1,6 +1,7 @@
 import request from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { BulletinsService } from '../../server/bulletins/bulletins.service';
+import { recipientsOf } from '../../server/bulletins/subscriptions.service';
 import { textsFor } from '../../server/i18n';
 import { OutboxWorker } from '../../server/outbox/outbox.worker';
 import { runSeasonNow } from '../../server/season/season-run.service';
@@ -85,6 +86,16 @@ describe('one bulletin per person', () => {
     expect(one.body.language).toBe('es');
     expect(one.body.text).toContain(textsFor('es', 'bulletin')('driversHeading'));
     expect(await countRows(t.ds, 'bulletin_digests', 'outbox_messages')).toEqual(before);
+  });
+
+  it('when an invitation is still pending, then that address receives no bulletin and no advisory until the account is taken up', async () => {
+    const pending = await makeUser(t.ds, { role: 'officer', password: null });
+    const taken = await makeUser(t.ds, { role: 'officer' });
+    for (const kind of ['bulletin', 'advisory'] as const) {
+      const to = (await recipientsOf(t.ds.manager, districts[0].id, kind)).map((r) => r.userId);
+      expect(to).toContain(taken.id);
+      expect(to).not.toContain(pending.id);
+    }
   });
 });
 
