@@ -48,8 +48,15 @@ export interface FlagRecord {
 
 /** The lapse setting in weeks, read where it is needed (SQL), the default when no admin has set it. */
 export const LAPSE_WEEKS_SQL = `COALESCE((SELECT s.lapse_weeks FROM flag_settings s WHERE s.id = 1), ${DEFAULT_LAPSE_WEEKS})`;
+/**
+ * When a flag's age starts: when it was raised, or — for a flag the season run raised while computing an
+ * earlier date (a catch-up of past weeks at start-up, a rerun) — the day after that run's as-of date. A
+ * catch-up's flags for week 42 are as old as week 42, not as new as the day the catch-up ran.
+ */
+export const flagAgeFromSql = (alias: string) =>
+  `LEAST(${alias}.created_at, (SELECT (sr.as_of + 1)::timestamptz FROM season_runs sr WHERE sr.id = ${alias}.run_id))`;
 /** An open flag older than the setting has lapsed (lapse on read; no job needed). */
-export const lapsedSql = (alias: string) => `(${alias}.status = 'lapsed' OR (${alias}.status = 'open' AND ${alias}.created_at <= now() - make_interval(weeks => ${LAPSE_WEEKS_SQL})))`;
+export const lapsedSql = (alias: string) => `(${alias}.status = 'lapsed' OR (${alias}.status = 'open' AND ${flagAgeFromSql(alias)} <= now() - make_interval(weeks => ${LAPSE_WEEKS_SQL})))`;
 
 /**
  * One flag with its district, people, advisory, the district's tier now (its newest season run) and
@@ -58,7 +65,7 @@ export const lapsedSql = (alias: string) => `(${alias}.status = 'lapsed' OR (${a
 export const FLAG_SELECT = `
   SELECT f.*, d.code AS district_code, d.name AS district_name, r.display_name AS raiser_name, s.display_name AS decider_name,
          a.id AS advisory_id, a.message_code AS advisory_code, a.message_params AS advisory_params, ${lapsedSql('f')} AS lapsed,
-         CASE WHEN f.status = 'open' THEN f.created_at + make_interval(weeks => ${LAPSE_WEEKS_SQL}) END AS lapses_at,
+         CASE WHEN f.status = 'open' THEN ${flagAgeFromSql('f')} + make_interval(weeks => ${LAPSE_WEEKS_SQL}) END AS lapses_at,
          cur.tier AS cur_tier, cur.epi_year AS cur_year, cur.epi_week AS cur_week, cur.run_id AS cur_run, cur.computed_at AS cur_at,
          cur.drivers AS cur_drivers
     FROM flags f

@@ -109,6 +109,22 @@ describe('flags stay current', () => {
     const events = await t.ds.query(`SELECT action FROM audit_events WHERE entity = 'flag' AND entity_id = $1`, [old.id]);
     expect(events).toEqual([{ action: 'flag.lapsed' }]);
   });
+
+  it('when a season run catching up a past date raises a flag today, then the flag is as old as that date and lapses, while one for this week waits in the queue', async () => {
+    const d = await makeDistrict(t.ds);
+    const asOf = (daysAgo: number) => new Date(Date.now() - daysAgo * DAY).toISOString().slice(0, 10);
+    const run = async (day: string) => (await t.ds.query(
+      `INSERT INTO season_runs (kind, status, started_at, as_of) VALUES ('manual', 'succeeded', now(), $1) RETURNING id`, [day]))[0].id as string;
+    const caughtUp = await makeFlag(t.ds, { districtId: d.id, reason: 'tier-rise', epiWeek: 40, runId: await run(asOf(50)) });
+    const d2 = await makeDistrict(t.ds);
+    const current = await makeFlag(t.ds, { districtId: d2.id, reason: 'tier-rise', epiWeek: 48, runId: await run(asOf(1)) });
+    const sup = await supervisor();
+    const queue = (await sup.get('/api/flags')).body.flags.map((f: { id: string }) => f.id);
+    expect(queue).toContain(current.id);
+    expect(queue).not.toContain(caughtUp.id);
+    const lapsed = (await sup.get('/api/flags?status=lapsed')).body.flags.map((f: { id: string }) => f.id);
+    expect(lapsed).toContain(caughtUp.id);
+  });
 });
 
 describe('words generated from the numbers', () => {
