@@ -3,6 +3,7 @@ import { createBrowserRouter, matchRoutes, type RouteObject } from 'react-router
 import { loadNamespaces } from '../i18n';
 import { SCREEN_TEXTS, type ScreenModule } from '../i18n/screen-texts';
 import { meQueryOptions } from '../features/auth/api/me.api';
+import { loadAuthSchemas } from '../features/auth/api/auth-schemas';
 import { rolesFor } from './navigation';
 import { NotFoundPage } from './not-found.page';
 import { queryClient } from './query-client';
@@ -65,7 +66,7 @@ function onSignInIntent() {
   if (signInIntent) return;
   signInIntent = true;
   // The form's check (the shared contract, zod and its resolver), kept off the first screen's code.
-  void Promise.all([import('../features/auth/api/auth-schemas').then((m) => m.loadAuthSchemas()), import('@hookform/resolvers/zod')]).catch(() => undefined);
+  void Promise.all([loadAuthSchemas(), import('@hookform/resolvers/zod')]).catch(() => undefined);
   const next = new URLSearchParams(window.location.search).get('next');
   preloadPath(next && next.startsWith('/') && !next.startsWith('//') ? next.split('?')[0] : '/');
 }
