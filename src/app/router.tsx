@@ -3,6 +3,7 @@ import { createBrowserRouter, matchRoutes, type RouteObject } from 'react-router
 import { loadNamespaces } from '../i18n';
 import { SCREEN_TEXTS, type ScreenModule } from '../i18n/screen-texts';
 import { meQueryOptions } from '../features/auth/api/me.api';
+import { loadAuthSchemas } from '../features/auth/api/auth-schemas';
 import { rolesFor } from './navigation';
 import { NotFoundPage } from './not-found.page';
 import { queryClient } from './query-client';
@@ -56,13 +57,16 @@ function PreloadLinks({ children }: { children: ReactNode }) {
 }
 
 /**
- * Around the sign-in page: once the person starts on the form, the signed-in layout and the screen they
- * will land on (the Ladder, or the `next` address) are fetched while they type.
+ * Around the sign-in page: once the person starts on the form, the form's check (zod, kept off the first
+ * screen), the signed-in layout and the screen they will land on (the Ladder, or the `next` address) are
+ * fetched while they type.
  */
 let signInIntent = false;
 function onSignInIntent() {
   if (signInIntent) return;
   signInIntent = true;
+  // The form's check (the shared contract, zod and its resolver), kept off the first screen's code.
+  void Promise.all([loadAuthSchemas(), import('@hookform/resolvers/zod')]).catch(() => undefined);
   const next = new URLSearchParams(window.location.search).get('next');
   preloadPath(next && next.startsWith('/') && !next.startsWith('//') ? next.split('?')[0] : '/');
 }

@@ -6,7 +6,9 @@ import type { Role } from '../../shared/roles';
 import { isUnauthorized } from '../lib/api-client';
 import { meQueryOptions } from '../features/auth/api/me.api';
 import { NotAllowedPage } from './not-allowed.page';
-import { restoreOfflineSession } from '../pwa/offline-session';
+
+/** The remembered user (docs/offline.md), fetched only when needed: it brings zod to check the copy. */
+const offlineSession = () => import('../pwa/offline-session');
 
 /** Where to send someone without a session, remembering where they were going. */
 export function signInPath(next?: string): string {
@@ -22,11 +24,12 @@ export function isSafeNext(next: string | null | undefined): next is string {
 export const sessionLoader =
   (queryClient: QueryClient) =>
   async ({ request }: LoaderFunctionArgs) => {
-    restoreOfflineSession(queryClient); // offline: the user remembered on this device (docs/offline.md)
+    // offline: the user remembered on this device (docs/offline.md)
+    if (globalThis.navigator?.onLine === false) (await offlineSession()).restoreOfflineSession(queryClient);
     try {
       await queryClient.ensureQueryData(meQueryOptions());
     } catch (error) {
-      if (restoreOfflineSession(queryClient, error)) return null;
+      if ((await offlineSession()).restoreOfflineSession(queryClient, error)) return null;
       if (isUnauthorized(error)) {
         const url = new URL(request.url);
         throw redirect(signInPath(url.pathname + url.search));

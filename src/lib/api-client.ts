@@ -1,5 +1,4 @@
 import type { z } from 'zod';
-import { errorBody } from '../../shared/api/common.schema';
 
 /** One field the server (or the client's own check) rejected, with why. */
 export type FieldProblem = { path: string; message: string };
@@ -60,6 +59,8 @@ export async function errorFromResponse(response: Response): Promise<ApiError> {
   } catch {
     raw = undefined;
   }
+  // The error contract is fetched with zod on the first failure (see SchemaLoader).
+  const { errorBody } = await import('../../shared/api/common.schema');
   const parsed = errorBody.safeParse(raw);
   if (parsed.success) {
     const { code, message, fields, params } = parsed.data.error;
@@ -70,12 +71,19 @@ export async function errorFromResponse(response: Response): Promise<ApiError> {
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
 
+/**
+ * A shared schema fetched on first use (`() => import('…schema').then((m) => m.x)`): zod is ~26 kB gzipped,
+ * and the first screen (sign-in) needs no contract before the person submits. The import starts beside
+ * the request, so it costs no extra round trip.
+ */
+export type SchemaLoader<S extends z.ZodType> = () => Promise<S>;
+
 export type RequestOptions<S extends z.ZodType | undefined> = {
   method?: Method;
   /** Sent as JSON. */
   body?: unknown;
-  /** The shared zod schema of the answer; without one the answer body is ignored. */
-  schema?: S;
+  /** The shared zod schema of the answer (or its loader); without one the answer body is ignored. */
+  schema?: S | SchemaLoader<Extract<S, z.ZodType>>;
   signal?: AbortSignal;
 };
 
@@ -90,6 +98,7 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
   { method = 'GET', body, schema, signal }: RequestOptions<S> = {},
 ): Promise<Result<S>> {
   const headers: Record<string, string> = { Accept: 'application/json' };
+  const schemaReady: Promise<z.ZodType | undefined> | undefined = typeof schema === 'function' ? (schema as SchemaLoader<z.ZodType>)() : undefined;
   if (body !== undefined) headers['Content-Type'] = 'application/json';
 
   let response: Response;
@@ -115,7 +124,7 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
   } catch {
     throw new ApiError(response.status, 'invalid_response', 'The server sent an answer Broodcast could not read.');
   }
-  const parsed = schema.safeParse(json);
+  const parsed = (schemaReady ? await schemaReady : (schema as z.ZodType))!.safeParse(json);
   if (!parsed.success) {
     console.error(`Unexpected answer from ${method} ${path}`, parsed.error.issues);
     throw new ApiError(response.status, 'invalid_response', 'The server sent an answer Broodcast could not read.');
@@ -124,9 +133,9 @@ export async function apiRequest<S extends z.ZodType | undefined = undefined>(
 }
 
 export const api = {
-  get: <S extends z.ZodType>(path: string, schema: S, signal?: AbortSignal) =>
-    apiRequest(path, { schema, signal }),
-  post: <S extends z.ZodType | undefined = undefined>(path: string, body?: unknown, schema?: S) =>
+  get: <S extends z.ZodType>(path: string, schema: S | SchemaLoader<S>, signal?: AbortSignal) =>
+    apiRequest<S>(path, { schema: schema as RequestOptions<S>['schema'], signal }),
+  post: <S extends z.ZodType | undefined = undefined>(path: string, body?: unknown, schema?: RequestOptions<S>['schema']) =>
     apiRequest<S>(path, { method: 'POST', body, schema }),
   put: <S extends z.ZodType | undefined = undefined>(path: string, body?: unknown, schema?: S) =>
     apiRequest<S>(path, { method: 'PUT', body, schema }),

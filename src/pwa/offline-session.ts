@@ -59,6 +59,13 @@ let restoring = false;
 
 /** Keeps the remembered copy in step with the `me` query: saved on each answer, dropped on 401 or sign-out. */
 export function watchSession(queryClient: QueryClient): () => void {
+  // Started after the first screen (src/pwa/register.ts): a user already loaded is remembered now, with the
+  // time of that answer (a copy restored from this device keeps its own time).
+  const current = queryClient.getQueryState(queryKeys.me);
+  if (current?.status === 'success' && current.data) {
+    const me = meResponse.safeParse(current.data);
+    if (me.success) rememberSession(me.data, current.dataUpdatedAt);
+  }
   return queryClient.getQueryCache().subscribe((event) => {
     if (event.query.queryKey[0] !== queryKeys.me[0]) return;
     if (event.type === 'removed') return forgetSession();

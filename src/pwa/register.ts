@@ -1,5 +1,4 @@
 import type { QueryClient } from '@tanstack/react-query';
-import { watchSession } from './offline-session';
 
 /**
  * Offline support of the client (docs/offline.md), started once by src/main.tsx:
@@ -10,7 +9,9 @@ import { watchSession } from './offline-session';
  * page already open keeps its code until it is next opened or reloaded.
  */
 export function startOfflineSupport(queryClient: QueryClient): void {
-  watchSession(queryClient);
+  // Its own chunk (it checks the kept copy with zod, which the sign-in page does not otherwise need); any
+  // answer already in the cache when it arrives is remembered by watchSession itself.
+  void import('./offline-session').then(({ watchSession }) => watchSession(queryClient));
   if (!import.meta.env.PROD || import.meta.env.MODE === 'test') return;
   if (typeof navigator === 'undefined' || !('serviceWorker' in navigator)) return;
   const register = () =>

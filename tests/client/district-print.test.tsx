@@ -7,6 +7,7 @@ import { fakeApi, json, officerMe } from './support/fake-api';
 import { click, getButton, waitFor, type Rendered, renderRoutes } from './support/render';
 
 vi.mock('../../src/components/chart/echart', () => import('./support/echart-stub'));
+vi.mock('../../src/components/chart/echart-base', () => import('./support/echart-stub'));
 
 let view: Rendered | undefined;
 afterEach(() => {

@@ -13,6 +13,7 @@ import { demoBoard, demoDistrictFile, ladderRow } from './support/board-fixtures
 import { click, getButton, render, type Rendered } from './support/render';
 
 vi.mock('../../src/components/chart/echart', () => import('./support/echart-stub'));
+vi.mock('../../src/components/chart/echart-base', () => import('./support/echart-stub'));
 
 let view: Rendered | undefined;
 afterEach(async () => {

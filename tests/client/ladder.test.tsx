@@ -11,6 +11,7 @@ import { fakeApi, json, officerMe } from './support/fake-api';
 import { click, render, typeInto, waitFor, type Rendered, renderRoutes } from './support/render';
 
 vi.mock('../../src/components/chart/echart', () => import('./support/echart-stub'));
+vi.mock('../../src/components/chart/echart-base', () => import('./support/echart-stub'));
 vi.mock('../../src/components/chart/echarts-core', () => ({ echarts: { registerMap: vi.fn() } }));
 
 let view: Rendered | undefined;

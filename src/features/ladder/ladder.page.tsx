@@ -1,3 +1,4 @@
+import { lazy, Suspense, useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Trans, useTranslation } from 'react-i18next';
 import { PageHeading } from '../../components/page-heading';
@@ -6,7 +7,6 @@ import { canUse, useSession } from '../../app/session';
 import { CautionsPanel } from '../cautions/cautions-panel';
 import { DemoDataLabel } from '../districts/components/demo-data-label';
 import { FirstRunTour, TourButton, useFirstRunTour } from '../help/first-run-tour';
-import { RegionMap } from '../region-map/region-map';
 import { useBoard } from './api/board.api';
 import { LadderTable } from './components/ladder.table';
 import { useLadderWords } from './ladder-format';
@@ -16,6 +16,30 @@ import { errorText } from '../../lib/error-text';
 
 const EMPTY: never[] = [];
 
+/**
+ * The region map (and, through it, ECharts) is its own chunk, fetched once the table has painted: the table
+ * is what the officer reads first, so the map's code stays out of the Ladder's initial JavaScript. Its
+ * boundaries are already on their way (src/app/router.tsx asks for them beside the board).
+ */
+const RegionMap = lazy(() => import('../region-map/region-map').then((m) => ({ default: m.RegionMap })));
+
+/** True from the first frame after `ready` has been painted (a frame, then a task). */
+function useAfterPaint(ready: boolean): boolean {
+  const [painted, setPainted] = useState(false);
+  useEffect(() => {
+    if (!ready || painted) return;
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const frame = requestAnimationFrame(() => {
+      timer = setTimeout(() => setPainted(true), 0);
+    });
+    return () => {
+      cancelAnimationFrame(frame);
+      clearTimeout(timer);
+    };
+  }, [ready, painted]);
+  return painted;
+}
+
 /** The home screen: districts ranked by this week's tier, beside the region map, with the cautions in view. */
 export function LadderPage() {
   const { t } = useTranslation('ladder');
@@ -24,6 +48,7 @@ export function LadderPage() {
   const me = useSession();
   const tour = useFirstRunTour(me.id, !board.isPending);
   const rows = board.data?.rows ?? EMPTY;
+  const tablePainted = useAfterPaint(board.isSuccess);
   const week = board.data ? words.week(board.data.epiYear, board.data.epiWeek) : null;
   const lead = board.data?.asOf
     ? t('lead', { week: week ?? t('latestWeek'), asOf: words.day(board.data.asOf), computedAt: words.dateTime(board.data.computedAt) })
@@ -58,11 +83,28 @@ export function LadderPage() {
             <LadderTable rows={rows} caption={week ? t('captionWeek', { week }) : t('caption')} />
           </div>
           <div className="min-w-0" data-tour="region-map">
-            <RegionMap rows={rows} />
+            {tablePainted ? (
+              <Suspense fallback={<RegionMapPending />}>
+                <RegionMap rows={rows} />
+              </Suspense>
+            ) : (
+              <RegionMapPending />
+            )}
           </div>
         </div>
       )}
       <FirstRunTour role={me.role} open={tour.open} onClose={tour.close} />
+    </section>
+  );
+}
+
+/** Where the region map will be, while its code arrives (the same card, so nothing below it jumps). */
+function RegionMapPending() {
+  const { t } = useTranslation('region-map');
+  return (
+    <section className="card region-map" aria-busy="true">
+      <h2 className="section-title">{t('title')}</h2>
+      <p className="chart-empty">{t('loading')}</p>
     </section>
   );
 }

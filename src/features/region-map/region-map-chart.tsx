@@ -3,7 +3,7 @@ import { useNavigate } from 'react-router-dom';
 import { useTranslation } from 'react-i18next';
 import type { LadderRow } from '../../../shared/api/board.schema';
 import { TIERS, tierRank } from '../../../shared/tier';
-import { EChart } from '../../components/chart/echart';
+import { EChart } from '../../components/chart/echart-base';
 import { echarts, type ChartOption } from '../../components/chart/echarts-core';
 import { TIER_COLOURS, TIER_TEXT } from '../ladder/tier-scale';
 import { useLadderWords } from '../ladder/ladder-format';

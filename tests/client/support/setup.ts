@@ -9,6 +9,16 @@ beforeAll(async () => {
   await i18nReady;
   await i18n.loadNamespaces(NAMESPACES);
   await i18n.changeLanguage('en');
+  // Modules the app fetches on first use rather than with its first screen (zod and the contracts, the
+  // remembered session, the region map): transformed once here, so a test's short wait measures the app,
+  // not the test runner's first transform of zod.
+  await Promise.all([
+    import('../../../shared/api/auth.schema'),
+    import('../../../shared/api/common.schema'),
+    import('@hookform/resolvers/zod'),
+    import('../../../src/pwa/offline-session'),
+    import('../../../src/features/region-map/region-map'),
+  ]);
 });
 
 // Every test starts with nothing rendered, an empty query cache and the real globals (fetch, …).

@@ -1,10 +1,11 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { meResponse, type Me, type SignInBody } from '../../../../shared/api/auth.schema';
+import type { Me, SignInBody, meResponse } from '../../../../shared/api/auth.schema';
 import { api } from '../../../lib/api-client';
 import { queryKeys } from '../../../lib/query-keys';
+import { loadAuthSchemas } from './auth-schemas';
 
 /** POST /api/auth/sign-in — sets the session cookie and answers with the user. */
-export const signIn = (body: SignInBody) => api.post('/api/auth/sign-in', body, meResponse);
+export const signIn = (body: SignInBody) => api.post<typeof meResponse>('/api/auth/sign-in', body, () => loadAuthSchemas().then((m) => m.meResponse));
 
 export function useSignIn() {
   const queryClient = useQueryClient();

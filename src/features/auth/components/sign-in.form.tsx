@@ -1,14 +1,23 @@
 import { useState } from 'react';
-import { useForm } from 'react-hook-form';
+import { useForm, type Resolver } from 'react-hook-form';
 import { useTranslation } from 'react-i18next';
-import { zodResolver } from '@hookform/resolvers/zod';
-import { signInBody } from '../../../../shared/api/auth.schema';
-import type { Me } from '../../../../shared/api/auth.schema';
+import type { Me, SignInBody } from '../../../../shared/api/auth.schema';
 import { i18n } from '../../../i18n';
 import { isApiError } from '../../../lib/api-client';
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
 import { FormMessage, TextField } from '../../../components/form';
 import { useSignIn } from '../api/sign-in.api';
+import { loadAuthSchemas } from '../api/auth-schemas';
+
+/**
+ * The form is checked with the shared contract (signInBody) through the zod resolver, both fetched on the
+ * first check (on submit) rather than with the page, so the first screen carries no zod; the page starts
+ * the fetch as soon as the person starts on the form (src/app/router.tsx), well before they submit.
+ */
+const signInResolver: Resolver<SignInBody> = async (values, context, options) => {
+  const [{ zodResolver }, { signInBody }] = await Promise.all([import('@hookform/resolvers/zod'), loadAuthSchemas()]);
+  return zodResolver(signInBody)(values, context, options);
+};
 
 /** What to say after a failed sign-in, in the interface language: never which of the two was wrong. */
 export function signInErrorText(error: unknown): string {
@@ -27,7 +36,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (me: Me) => void }) {
     setError,
     setValue,
     formState: { errors, isSubmitting },
-  } = useForm({ resolver: zodResolver(signInBody), defaultValues: { email: '', password: '' } });
+  } = useForm<SignInBody>({ resolver: signInResolver, defaultValues: { email: '', password: '' } });
 
   const onSubmit = handleSubmit(async (values) => {
     setFormError(null);
