@@ -184,7 +184,7 @@ function RunStatus({ run }: { run: LookBackRunDto }) {
         <div className="progress-fill" style={{ width: `${Math.round(share * 100)}%` }} />
       </div>
       <p className="text-sm tabular-nums">{text}</p>
-      {run.error ? <p className="text-sm font-bold">{t('runError', { code: run.error })}</p> : null}
+      {run.error ? <p className="text-sm font-bold">{t('runError', { code: run.error === 'interrupted' ? t('interrupted') : problemReasonText({ code: run.error }) })}</p> : null}
       {failed.length ? (
         <details>
           <summary className="text-sm">{t('failed.summary', { count: failed.length, n: f.number(failed.length) })}</summary>
