@@ -24,6 +24,7 @@ import { casesRoutes } from './cases/cases.routes';
 import { weatherRoutes } from './weather/weather.routes';
 import { boardRoutes } from './board/board.routes';
 import { seasonRoutes } from './season/season.routes';
+import { lookBackRoutes } from './skill/look-back.routes';
 import { flagsRoutes } from './flags/flags.routes';
 import { bulletinsRoutes } from './bulletins/bulletins.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
@@ -76,6 +77,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...flagsRoutes(ctx),
     ...bulletinsRoutes(ctx),
     ...profilesRoutes(ctx),
+    ...lookBackRoutes(ctx),
   ];
   app.locals.routes = routes;
 

@@ -12,3 +12,13 @@ export const ROLE_LABELS: Record<Role, string> = {
 
 /** Roles whose view is limited to the districts assigned to them. */
 export const DISTRICT_SCOPED_ROLES: readonly Role[] = ['epidemiologist', 'worker'];
+
+/**
+ * Who may use the Look-back (replayed past seasons and their scores, docs/skill.md): epidemiologists
+ * and admins start one; officers and supervisors read them too. The routes, the menu and the route ×
+ * role test all read this.
+ */
+export const LOOK_BACK_ROLES = {
+  start: ['admin', 'epidemiologist'],
+  read: ['admin', 'epidemiologist', 'officer', 'supervisor'],
+} as const satisfies Record<string, readonly Role[]>;

@@ -68,14 +68,23 @@ export function weatherKnownAt(versions: readonly WeatherDayVersion[], from: str
     tmin: new Float64Array(length).fill(Number.NaN), tmax: new Float64Array(length).fill(Number.NaN),
     rh: new Float64Array(length).fill(Number.NaN), filled: new Uint8Array(length),
   };
+  // Called once per replayed week over years of days: dates outside the range are skipped by string
+  // comparison (ISO dates sort as text) and each kept date is parsed once (parsing was the replay's largest cost).
+  const cutoffMs = cutoff.getTime();
   const chosen = new Map<number, WeatherDayVersion>();
+  const chosenAt = new Map<number, number>();
   for (const v of versions) {
-    const i = parseIsoDate(v.date) - start;
+    if (v.date < from || v.date > to) continue;
+    const day = parseIsoDate(v.date);
+    const i = day - start;
     if (i < 0 || i >= length) continue;
-    const knownAt = v.knownAt ?? endOfDay(v.date);
-    if (knownAt.getTime() > cutoff.getTime()) continue;
-    const seen = chosen.get(i);
-    if (!seen || (seen.knownAt ?? endOfDay(seen.date)).getTime() <= knownAt.getTime()) chosen.set(i, v);
+    const knownAt = v.knownAt ? v.knownAt.getTime() : (day + 1) * 86_400_000; // unknown load time: the end of its own day
+    if (knownAt > cutoffMs) continue;
+    const seen = chosenAt.get(i);
+    if (seen === undefined || seen <= knownAt) {
+      chosen.set(i, v);
+      chosenAt.set(i, knownAt);
+    }
   }
   for (const [i, v] of chosen) {
     c.rows += 1;

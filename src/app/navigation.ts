@@ -1,4 +1,4 @@
-import { ROLES, type Role } from '../../shared/roles';
+import { LOOK_BACK_ROLES, ROLES, type Role } from '../../shared/roles';
 
 /**
  * One entry of the main navigation: where it goes and which roles may see (and use) it. `label` is the
@@ -24,6 +24,7 @@ export const NAV_ITEMS = [
   { id: 'case-ledger', label: 'Case ledger', to: '/cases', roles: ['epidemiologist', 'supervisor'] },
   { id: 'surveys', label: 'Surveys', to: '/surveys', roles: ['officer', 'worker'] },
   { id: 'season-runs', label: 'Season runs', to: '/season-runs', roles: ['admin', 'officer'] },
+  { id: 'look-back', label: 'Look-back', to: '/look-back', roles: LOOK_BACK_ROLES.read },
   { id: 'intake', label: 'Intake', to: '/intake', roles: ['admin', 'officer'] },
   { id: 'sign-off', label: 'Sign-off', to: '/sign-off', roles: ['supervisor'] },
   { id: 'advisories', label: 'Advisories', to: '/advisories', roles: ROLES },

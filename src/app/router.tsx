@@ -215,6 +215,12 @@ export const routes: RouteObject[] = [
             })),
           },
           {
+            path: 'look-back',
+            lazy: screen('features/look-back/look-back.page', () => import('../features/look-back/look-back.page'), ({ LookBackPage }) => ({
+              element: guarded(rolesFor('look-back'), <LookBackPage />),
+            })),
+          },
+          {
             path: 'intake',
             lazy: screen('features/weather/intake.page', () => import('../features/weather/intake.page'), ({ IntakePage }) => ({
               element: guarded(rolesFor('intake'), <IntakePage />),

@@ -5,8 +5,8 @@ import { navItemsFor, rolesFor } from '../../src/app/navigation';
 const labels = (role: (typeof ROLES)[number]) => navItemsFor(role).map((i) => i.label);
 
 describe('navigation', () => {
-  it('when the user is an admin, then the nav shows Ladder, Users, Districts, Profiles, Tier settings, Season runs, Intake, Advisories and Settings', () => {
-    expect(labels('admin')).toEqual(['Ladder', 'Users', 'Districts', 'Profiles', 'Tier settings', 'Season runs', 'Intake', 'Advisories', 'Settings']);
+  it('when the user is an admin, then the nav shows Ladder, Users, Districts, Profiles, Tier settings, Season runs, Look-back, Intake, Advisories and Settings', () => {
+    expect(labels('admin')).toEqual(['Ladder', 'Users', 'Districts', 'Profiles', 'Tier settings', 'Season runs', 'Look-back', 'Intake', 'Advisories', 'Settings']);
   });
 
   it('when the user is a health officer, then the nav shows the Ladder but not Users or Districts', () => {
