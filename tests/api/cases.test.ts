@@ -2,6 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { countRows, makeUser, signedInAgent } from '../support/factories';
 import { CASES_TABLES, disease, insertCounts, makeReportingDistrict, weeksAgo } from '../support/cases-factories';
+import { signalsResponse } from '../../shared/api/cases.schema';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
 
@@ -296,6 +297,9 @@ describe('signals of a district', () => {
     const res = await e.get(`/api/districts/${d.id}/cases?diseaseId=${dengueId}&year=${now.year}`);
     expect(res.body.excludedYears).toEqual([now.year - 1]);
     expect(res.body.seasonsUsed).toEqual([now.year - 2, now.year - 3, now.year - 4, now.year - 5, now.year - 6]);
+    // The notes come as codes with parameters, never English sentences (issue 15, messages as data).
+    expect(signalsResponse.safeParse(res.body).success).toBe(true);
+    expect(res.body.notes).toContainEqual({ code: 'channel-excluded-years', params: { years: [now.year - 1] } });
     const last = res.body.weeks.find((w: { week: number }) => w.week === now.week);
     expect(last.open).toBe(false);
     // Bortman (1999) geometric channel; worked example of docs/signals.md [derived]: 3, 7, 15, 1, 7 → 1.2725 / 5.0629 / 15.1752.
