@@ -107,7 +107,7 @@ describe('chart axes clamped to plausible ranges', () => {
     const notCompleted = en.eip.notCompleted;
     expect(c.querySelector('[data-key-number="eip"]')?.textContent).toContain(notCompleted);
     const eip = figure(c, 'Vector clock');
-    click(getButton(eip, 'Show as table'));
+    await click(getButton(eip, 'Show as table'));
     await waitFor(() => expect(eip.querySelector('table')).not.toBeNull(), 5000);
     const cells = [...eip.querySelectorAll('tbody tr')].map((r) => r.children[1]?.textContent ?? '');
     expect(cells.at(-1)).toBe(notCompleted);
