@@ -18,7 +18,7 @@ import { sessionCookieOptions } from './session.middleware';
 /**
  * Sign-in attempts are limited per address (every attempt counts) and per account (failed attempts
  * count: a user who signs in often is never locked out by their own successes). Past the limit the
- * answer is 429 `too_many_attempts` with Retry-After until the window ends, even with the right
+ * answer is 429 `too_many_attempts` (params `what`, `retryAfterMinutes`) with Retry-After until the window ends, even with the right
  * password. express-rate-limit's memory store: per process; with several instances each counts its
  * own share (noted in DEVELOPERS.md). Password-reset requests are limited the same way, so nobody
  * floods a mailbox. Figures: docs/security.md.
@@ -31,8 +31,9 @@ function attemptLimiters(ctx: AppContext, what: 'sign-in' | 'password-reset') {
     res.setHeader('Retry-After', String(seconds));
     ctx.logger.warn({ event: 'auth.locked-out', what, scope, retryAfterSeconds: seconds }, `too many ${what} attempts`);
     const minutes = Math.ceil(seconds / 60);
-    next(new HttpError(429, 'too_many_attempts',
-      `Too many ${what === 'sign-in' ? 'sign-in attempts' : 'reset requests'}. Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`));
+    // Messages are data: the client words `what` and `retryAfterMinutes` in the reader's language
+    // (src/lib/error-text.ts); the message is only the English fallback for other clients.
+    next(new HttpError(429, 'too_many_attempts', `Too many ${what} attempts; retry after ${minutes} min.`, undefined, { what, retryAfterMinutes: minutes }));
   };
   const emailOf = (req: Request) => (typeof req.body?.email === 'string' ? req.body.email.trim().toLowerCase() : null);
   return [

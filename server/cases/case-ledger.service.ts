@@ -468,7 +468,7 @@ export class CaseLedgerService {
     const completeness = (await this.completeness([district.id], seasonWeeks, today)).get(district.id)!;
     const priorYears = [...byYear.keys()].filter((y) => y < year).sort((a, b) => b - a).slice(0, 7).sort((a, b) => a - b);
     const notes = [...result.notes];
-    if (population === null) notes.push('No population is on record for this district: incidence per 100,000 cannot be given.');
+    if (population === null) notes.push({ code: 'no-population', params: {} });
     const assigned = p.districtIds.includes(district.id);
     return {
       district: { id: district.id, code: district.code, name: district.name },

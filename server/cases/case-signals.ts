@@ -13,6 +13,7 @@ import {
   type ChannelMethod,
   type ChannelZoneId,
 } from '../../shared/signals';
+import type { SignalNote } from '../../shared/api/cases.schema';
 
 /**
  * The case signals of one district, disease and season, assembled from the pure statistics of
@@ -70,7 +71,8 @@ export interface SignalsResult {
   fittedGrowth: { weeks: number; ratio: number; doublingWeeks: number | null } | null;
   /** The newest complete week of the target season (0 when none is). */
   lastCompleteWeek: number;
-  notes: string[];
+  /** Codes with parameters (shared/api/cases.schema.ts signalNote), worded by the client. */
+  notes: SignalNote[];
 }
 
 /** The count of week `w` in a season; week 53 falls back to week 52 in a 52-week season. */
@@ -83,16 +85,16 @@ function valueAt(season: (number | null)[] | undefined, w: number): number | nul
 }
 
 export function buildSignals(input: SignalsInput): SignalsResult {
-  const notes: string[] = [];
+  const notes: SignalNote[] = [];
   const excluded = new Set(input.excludedYears);
   const seasonsUsed = [...input.counts.keys()]
     .filter((y) => y < input.year && !excluded.has(y) && input.counts.get(y)!.some((v) => v !== null))
     .sort((a, b) => b - a)
     .slice(0, CHANNEL_MAX_SEASONS);
-  if (seasonsUsed.length < 2) notes.push('Fewer than two prior seasons are on record: no endemic channel can be drawn.');
+  if (seasonsUsed.length < 2) notes.push({ code: 'channel-too-few-seasons', params: { seasons: seasonsUsed.length } });
   else if (seasonsUsed.length < CHANNEL_RECOMMENDED_SEASONS)
-    notes.push(`Only ${seasonsUsed.length} prior seasons are on record (5 to 7 are recommended): read the channel as wide and unsteady.`);
-  if (input.excludedYears.length) notes.push(`Left out of the channel as epidemic years: ${[...input.excludedYears].sort().join(', ')}.`);
+    notes.push({ code: 'channel-few-seasons', params: { seasons: seasonsUsed.length, recommended: CHANNEL_RECOMMENDED_SEASONS, most: CHANNEL_MAX_SEASONS } });
+  if (input.excludedYears.length) notes.push({ code: 'channel-excluded-years', params: { years: [...input.excludedYears].sort((a, b) => a - b) } });
 
   const current = input.counts.get(input.year) ?? [];
   const weeks = Array.from({ length: input.lastWeek }, (_, i) => i + 1);

@@ -155,7 +155,7 @@ export class SeasonRunService {
           this.repo.excludedYears(ids),
           this.repo.surveys(ids, isoMinusDays(asOf, 28), asOf),
           this.repo.previousTiers(ids, week.year, week.week),
-          this.repo.closedWeeks(ids, seasonYear - 1),
+          this.repo.closedWeeks(ids, seasonYear - 1, asOf, this.ctx.config.TIMEZONE),
         ]);
         const casesOf = groupBy(cases, (c) => c.districtId);
         const surveysOf = groupBy(surveys, (s) => s.districtId);

@@ -192,11 +192,16 @@ export class SeasonRepository {
     );
   }
 
-  /** Closed weeks by district ("year:week" keys): a closed week is complete even before its deadline. */
-  async closedWeeks(districtIds: string[], fromYear: number): Promise<Map<string, Set<string>>> {
+  /**
+   * Closed weeks by district ("year:week" keys): a closed week is complete even before its deadline. Only
+   * closures made by the end of the as-of day (in the deployment's time zone) count: a run dated in the
+   * past must not read a week closed later as already complete.
+   */
+  async closedWeeks(districtIds: string[], fromYear: number, asOf: string, timeZone: string): Promise<Map<string, Set<string>>> {
     const rows: { district_id: string; epi_year: number; epi_week: number }[] = await this.ds.query(
-      `SELECT district_id, epi_year, epi_week FROM case_week_closures WHERE district_id = ANY($1) AND epi_year >= $2`,
-      [districtIds, fromYear],
+      `SELECT district_id, epi_year, epi_week FROM case_week_closures
+        WHERE district_id = ANY($1) AND epi_year >= $2 AND closed_at < (($3::date + 1)::timestamp AT TIME ZONE $4)`,
+      [districtIds, fromYear, asOf, timeZone],
     );
     const out = new Map<string, Set<string>>();
     for (const r of rows) {

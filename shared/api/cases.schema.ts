@@ -312,6 +312,22 @@ export const signalWeek = z.object({
 });
 export type SignalWeek = z.infer<typeof signalWeek>;
 
+/**
+ * A note on a district's case signals, sent as a code with its parameters (never an English sentence):
+ * the client words it in the reader's language (cases.json `district.notes.*`).
+ */
+export const signalNote = z.discriminatedUnion('code', [
+  /** Fewer than two prior seasons: no endemic channel can be drawn. */
+  z.object({ code: z.literal('channel-too-few-seasons'), params: z.object({ seasons: z.number().int() }) }),
+  /** Fewer prior seasons than recommended (`recommended` to `most`): the channel is wide and unsteady. */
+  z.object({ code: z.literal('channel-few-seasons'), params: z.object({ seasons: z.number().int(), recommended: z.number().int(), most: z.number().int() }) }),
+  /** Seasons left out of the channel as epidemic years. */
+  z.object({ code: z.literal('channel-excluded-years'), params: z.object({ years: z.array(z.number().int()) }) }),
+  /** No population on record: no incidence per 100,000. */
+  z.object({ code: z.literal('no-population'), params: z.object({}) }),
+]);
+export type SignalNote = z.infer<typeof signalNote>;
+
 export const signalsResponse = z.object({
   district: districtRef,
   disease: diseaseDto,
@@ -329,7 +345,7 @@ export const signalsResponse = z.object({
   /** CASE_REPORT_DEADLINE_DAYS: days after a week's end until its reporting closes. */
   deadlineDays: z.number(),
   completeness: z.object({ expected: z.number(), received: z.number(), onTime: z.number(), share: z.number().nullable() }),
-  notes: z.array(z.string()),
+  notes: z.array(signalNote),
   canEnter: z.boolean(),
   canReadHistory: z.boolean(),
   canClose: z.boolean(),

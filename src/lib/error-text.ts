@@ -19,6 +19,8 @@ export const isEnglish = (): boolean => (i18n.resolvedLanguage ?? i18n.language 
 /** A statement for any failure, in the interface language. */
 export function errorText(error: unknown): string {
   if (!isApiError(error)) return t('errors.generic');
+  const worded = wordedFromParams(error.code, error.params);
+  if (worded) return worded;
   if (isEnglish() && error.message) return error.message;
   const byCode = `errors.code.${error.code}`;
   if (has(byCode)) return t(byCode);
@@ -27,6 +29,15 @@ export function errorText(error: unknown): string {
   if (error.status >= 500) return t('errors.status.5xx');
   if (error.status === 0) return t('errors.code.network_error');
   return error.message || t('errors.generic');
+}
+
+/** An error the server sends as a code with parameters, worded here in every language (English too). */
+function wordedFromParams(code: string, params: Record<string, string | number | boolean | null>): string | null {
+  if (code === 'too_many_attempts' && typeof params.retryAfterMinutes === 'number') {
+    const what = params.what === 'password-reset' ? 'passwordReset' : params.what === 'sign-in' ? 'signIn' : null;
+    if (what) return t(`errors.tooManyAttempts.${what}`, { count: params.retryAfterMinutes });
+  }
+  return null;
 }
 
 /**

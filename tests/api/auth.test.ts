@@ -50,6 +50,10 @@ describe('sign-in', () => {
     const res = await request(t.app).post('/api/auth/sign-in').send({ email: user.email, password: TEST_PASSWORD });
     expect(res.status).toBe(429);
     expect(res.body.error.code).toBe('too_many_attempts');
+    // Messages are data: what was limited and the wait come as parameters for the client to word.
+    expect(res.body.error.params).toEqual({ what: 'sign-in', retryAfterMinutes: expect.any(Number) });
+    expect(res.body.error.params.retryAfterMinutes).toBeGreaterThanOrEqual(1);
+    expect(Number(res.headers['retry-after'])).toBeLessThanOrEqual(res.body.error.params.retryAfterMinutes * 60);
   });
 
   it('when the body has an unknown field or a bad e-mail, then the answer is 400 naming the field', async () => {

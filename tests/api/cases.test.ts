@@ -1,9 +1,28 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createTestApp, type TestApp } from '../support/test-app';
 import { countRows, makeUser, signedInAgent } from '../support/factories';
 import { CASES_TABLES, disease, insertCounts, makeReportingDistrict, weeksAgo } from '../support/cases-factories';
+import { signalsResponse } from '../../shared/api/cases.schema';
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>;
+
+/*
+ * A fixed clock, so no test depends on today's week (weeksAgo(6) in January would fall in the previous
+ * year, a Sunday would move the reporting deadline): Wednesday 17 June 2026, in MMWR week 24 (14–20 June).
+ * Only Date is faked (timers stay real); agents sign in on the real clock first, as sessions are checked
+ * against the database's own time, and every request then runs on the fixed one.
+ */
+const FIXED_NOW = new Date('2026-06-17T10:00:00Z');
+const onFixedClock = () => vi.useFakeTimers({ toFake: ['Date'], now: FIXED_NOW });
+/** Signs a new user in on the real clock, then goes back to the fixed one. */
+async function signIn(email: string): Promise<Agent> {
+  vi.useRealTimers();
+  try {
+    return await signedInAgent(t.app, email);
+  } finally {
+    onFixedClock();
+  }
+}
 
 let t: TestApp;
 let own: { id: string; code: string };
@@ -28,8 +47,12 @@ beforeAll(async () => {
   supervisor = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'supervisor' })).email);
   admin = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'admin' })).email);
   officer = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'officer' })).email);
+  onFixedClock();
 });
-afterAll(() => t.close());
+afterAll(async () => {
+  vi.useRealTimers();
+  await t.close();
+});
 
 const rows = () => countRows(t.ds, ...CASES_TABLES);
 const put = (agent: Agent, districtId: string, body: Record<string, unknown>) =>
@@ -72,7 +95,7 @@ describe('entering and correcting weekly counts', () => {
 
   it('when a count is negative, fractional, in week 54, in week 53 of a 52-week year, in the future or before the district reported, then each is refused naming the field and nothing is written', async () => {
     const late = await makeReportingDistrict(t.ds, '2026-06-01');
-    const epi2 = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'epidemiologist', districtIds: [own.id, late.id] })).email);
+    const epi2 = await signIn((await makeUser(t.ds, { role: 'epidemiologist', districtIds: [own.id, late.id] })).email);
     const w = weeksAgo(2);
     const next = weeksAgo(0);
     const before = await rows();
@@ -116,7 +139,7 @@ describe('entering and correcting weekly counts', () => {
   });
 
   it('when a community worker reads weekly counts, then only their own district comes back and another is refused', async () => {
-    const worker = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'worker', districtIds: [own.id] })).email);
+    const worker = await signIn((await makeUser(t.ds, { role: 'worker', districtIds: [own.id] })).email);
     const grid = await worker.get(`/api/cases/grid?diseaseId=${dengueId}`);
     expect(grid.status).toBe(200);
     expect(grid.body.rows.map((r: { district: { id: string } }) => r.district.id)).toEqual([own.id]);
@@ -186,7 +209,7 @@ describe('closing weeks, late reports and completeness', () => {
 
   it('when reports arrive after the deadline, then they are marked late and the completeness figure counts on-time reports of due weeks', async () => {
     const d = await makeReportingDistrict(t.ds);
-    const e = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'epidemiologist', districtIds: [d.id] })).email);
+    const e = await signIn((await makeUser(t.ds, { role: 'epidemiologist', districtIds: [d.id] })).email);
     const old = weeksAgo(6);
     const res = await put(e, d.id, { year: old.year, week: old.week, cases: 2 });
     expect(res.body.count.late).toBe(true);
@@ -206,7 +229,7 @@ describe('closing weeks, late reports and completeness', () => {
 describe('uploading counts', () => {
   it('when a good file is uploaded twice, then the first loads every row and the second changes nothing', async () => {
     const d = await makeReportingDistrict(t.ds);
-    const e = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'epidemiologist', districtIds: [d.id] })).email);
+    const e = await signIn((await makeUser(t.ds, { role: 'epidemiologist', districtIds: [d.id] })).email);
     const a = weeksAgo(2);
     const b = weeksAgo(3);
     const csv = `District,Year,Week,Disease,Cases\r\n${d.code},${a.year},${a.week},DENV,7\r\n"${d.code}",${b.year},${b.week},denv,0\r\n${d.code},${b.year},${b.week},WNV,1\r\n`;
@@ -291,11 +314,14 @@ describe('signals of a district', () => {
     expect(withEpidemic.status).toBe(200);
     expect(withEpidemic.body.seasonsUsed).toHaveLength(6);
 
-    const e = await signedInAgent(t.app, (await makeUser(t.ds, { role: 'epidemiologist', districtIds: [d.id] })).email);
+    const e = await signIn((await makeUser(t.ds, { role: 'epidemiologist', districtIds: [d.id] })).email);
     expect((await e.put(`/api/districts/${d.id}/channel-settings`).send({ diseaseId: dengueId, excludedYears: [now.year - 1] })).status).toBe(200);
     const res = await e.get(`/api/districts/${d.id}/cases?diseaseId=${dengueId}&year=${now.year}`);
     expect(res.body.excludedYears).toEqual([now.year - 1]);
     expect(res.body.seasonsUsed).toEqual([now.year - 2, now.year - 3, now.year - 4, now.year - 5, now.year - 6]);
+    // The notes come as codes with parameters, never English sentences (issue 15, messages as data).
+    expect(signalsResponse.safeParse(res.body).success).toBe(true);
+    expect(res.body.notes).toContainEqual({ code: 'channel-excluded-years', params: { years: [now.year - 1] } });
     const last = res.body.weeks.find((w: { week: number }) => w.week === now.week);
     expect(last.open).toBe(false);
     // Bortman (1999) geometric channel; worked example of docs/signals.md [derived]: 3, 7, 15, 1, 7 → 1.2725 / 5.0629 / 15.1752.

@@ -33,7 +33,12 @@ export async function insertCounts(ds: DataSource, districtId: string, diseaseId
   );
 }
 
-/** The week `back` weeks before the current one (0 = this week), in the test deployment's system. */
+/**
+ * The week `back` weeks before the current one (0 = this week), in the test deployment's system. It reads
+ * today's date: in weeks 1–6 it falls in the previous year and the reporting deadline moves with the
+ * weekday, so a test whose answer depends on it fixes the clock first (`vi.useFakeTimers({ toFake: ['Date'],
+ * now })` after signing in; tests/api/cases.test.ts) or uses the week only as a key it reads back by year.
+ */
 export function weeksAgo(back: number, system: EpiWeekSystem = 'mmwr') {
   const weeks = weeksEndingWith(currentWeek(system, todayIn('UTC')), back + 1, system);
   return weeks[0];

@@ -82,8 +82,11 @@ describe('case signals of a season', () => {
     const r = buildSignals({ ...base, excludedYears: [2024], year: 2026, lastWeek: 5, weeksInTargetYear: 52, counts });
     expect(r.seasonsUsed).toEqual([2025, 2023]);
     expect(r.weeks[4].seasons).toBe(2);
-    expect(r.notes.join(' ')).toMatch(/Only 2 prior seasons/);
-    expect(r.notes.join(' ')).toMatch(/2024/);
+    // Notes are codes with parameters (messages as data), worded by the client.
+    expect(r.notes).toEqual([
+      { code: 'channel-few-seasons', params: { seasons: 2, recommended: 5, most: 7 } },
+      { code: 'channel-excluded-years', params: { years: [2024] } },
+    ]);
   });
 
   it('when week 53 is asked of seasons that had 52 weeks, then their week 52 stands in', () => {

@@ -12,13 +12,15 @@ type ChartFigureProps = EChartProps & {
   headingLevel?: 'h2' | 'h3';
   /** Shown instead of the drawing when there is nothing to draw. */
   emptyText?: string | null;
+  /** How many values lie beyond the plausible range of their axis and are not drawn (said under the drawing). */
+  beyondAxis?: number;
 };
 
 /**
  * Every chart of Broodcast: a text heading, a sentence saying what it shows (the accessible name of the
  * drawing), the drawing, and a "Show as table" toggle with the same values.
  */
-export function ChartFigure({ title, summary, table, headingLevel = 'h3', emptyText, ...chart }: ChartFigureProps) {
+export function ChartFigure({ title, summary, table, headingLevel = 'h3', emptyText, beyondAxis = 0, ...chart }: ChartFigureProps) {
   const id = useId();
   const { t } = useTranslation('components');
   const [showTable, setShowTable] = useState(false);
@@ -49,6 +51,11 @@ export function ChartFigure({ title, summary, table, headingLevel = 'h3', emptyT
           <EChart {...chart} />
         </div>
       )}
+      {!emptyText && beyondAxis > 0 ? (
+        <p className="mt-1 text-sm text-ink-muted" data-beyond-axis={beyondAxis}>
+          {t('chart.beyondAxis', { count: beyondAxis })}
+        </p>
+      ) : null}
       <div id={`${id}-table`} hidden={!showTable}>
         {showTable ? table : null}
       </div>

@@ -1,6 +1,6 @@
 import { useTranslation } from 'react-i18next';
 import type { TFunction } from 'i18next';
-import type { WeekRef } from '../../../shared/api/cases.schema';
+import type { SignalNote, WeekRef } from '../../../shared/api/cases.schema';
 import { useFormat } from '../../i18n/format';
 
 /**
@@ -20,7 +20,23 @@ export function useCaseFormat() {
     formatDate: (iso: string) => f.date(iso),
     formatNumber: (n: number | null | undefined, digits = 0) => f.number(n, digits, true),
     formatShare: (share: number | null) => f.percent(share),
+    signalNote: (note: SignalNote) => signalNoteText(t, note, f.locale, (n) => f.number(n, 0, true)),
   };
+}
+
+/** A case-signal note (a code with parameters from the server) as a sentence in the interface language. */
+export function signalNoteText(t: TFunction, note: SignalNote, locale: string, formatNumber: (n: number) => string): string {
+  switch (note.code) {
+    case 'channel-too-few-seasons':
+      return t('cases:district.notes.channelTooFewSeasons', note.params);
+    case 'channel-few-seasons':
+      return t('cases:district.notes.channelFewSeasons', note.params);
+    case 'channel-excluded-years':
+      // Years are never grouped (2024, not 2,024); the list's "and" is the language's own.
+      return t('cases:district.notes.channelExcludedYears', { years: new Intl.ListFormat(locale, { type: 'conjunction' }).format(note.params.years.map(String)) });
+    case 'no-population':
+      return t('cases:district.notes.noPopulation', { per: formatNumber(100_000) });
+  }
 }
 
 /**

@@ -23,7 +23,8 @@ const ChannelChart = lazy(() => import('./components/channel-chart').then((m) =>
 /** The cases part of the District file: this season against the district's endemic channel, its signals and larval surveys. */
 export function DistrictCasesPage() {
   const { t } = useTranslation('cases');
-  const { formatNumber, formatShare, formatDate } = useCaseFormat();
+  const caseFormat = useCaseFormat();
+  const { formatNumber, formatShare, formatDate } = caseFormat;
   const me = useSession();
   const { id = '' } = useParams();
   const [search, setSearch] = useSearchParams();
@@ -127,7 +128,9 @@ export function DistrictCasesPage() {
               {data.notes.length ? (
                 <ul className="notice notice-info list-disc pl-8 text-sm">
                   {data.notes.map((n) => (
-                    <li key={n}>{n}</li>
+                    <li key={n.code} data-note={n.code}>
+                      {caseFormat.signalNote(n)}
+                    </li>
                   ))}
                 </ul>
               ) : null}

@@ -7,12 +7,14 @@ import { errorText } from '../../lib/error-text';
 import { usePreviewTierSettings } from './api/preview-tier-settings.api';
 import { useSaveTierSettings } from './api/save-tier-settings.api';
 import { useTierSettings } from './api/tier-settings.api';
+import { FlagLapseForm } from './components/flag-lapse.form';
 
 const CUTS = ['raised', 'high', 'critical'] as const;
 
 /**
  * The tier's weights and cut points (admin): edit, preview how this week's Ladder would change (a dry run
- * that writes nothing), then save with a reason; every version stays in the history.
+ * that writes nothing), then save with a reason; every version stays in the history. Below them, how long
+ * an open flag waits for sign-off before it lapses (FlagLapseForm).
  */
 export function TierSettingsPage() {
   const { t } = useTranslation('tier-settings');
@@ -98,6 +100,7 @@ export function TierSettingsPage() {
               {save.isPending ? t('saving') : t('save')}
             </button>
           </form>
+          <FlagLapseForm />
           <section aria-labelledby="history-title" className="card">
             <h2 id="history-title" className="text-lg font-bold">{t('history')}</h2>
             {current.data!.history.length === 0 ? (

@@ -4,6 +4,7 @@ import { ChartFigure } from '../../../components/chart/chart-figure';
 import { SeriesTable } from '../../../components/chart/series-table';
 import { useUnits } from '../../../lib/units';
 import { useLadderWords } from '../../ladder/ladder-format';
+import { AXIS_LIMITS, convertRange, isBeyond, withinAxis } from './axis-limits';
 import {
   axisTooltip,
   baseGrid,
@@ -68,6 +69,11 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
       })()
     : null;
   const comparedLast = compared ? lastIndexWithValue(compared.vc.cumulativeDegreeDays) : -1;
+  // No season can hold more heat than the warmest day on record every day (axis-limits.ts); beyond is not drawn.
+  const ddRange = convertRange(AXIS_LIMITS.degreeDaysC, u.toTemperatureDelta);
+  const drawn = withinAxis(vc.cumulativeDegreeDays.map((x) => round(dd(x), 1)), ddRange);
+  const comparedDrawn = comparedSeries ? withinAxis(comparedSeries.map(([, v]) => v), ddRange) : null;
+  const beyondAxis = drawn.beyond + (comparedDrawn?.beyond ?? 0);
   const summary =
     last < 0
       ? t('district-file:degreeDays.none')
@@ -88,6 +94,7 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
       summary={summary}
       emptyText={last < 0 ? t('district-file:degreeDays.empty') : null}
       height="16rem"
+      beyondAxis={beyondAxis}
       option={{
         grid: baseGrid,
         legend,
@@ -98,7 +105,7 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
           {
             type: 'line',
             name: t('district-file:degreeDays.series', { year: seasonYear }),
-            data: pairs(vc.dates, vc.cumulativeDegreeDays.map((x) => round(dd(x), 1))),
+            data: pairs(vc.dates, drawn.values),
             showSymbol: false,
             lineStyle: { color: INDIGO, width: 2 },
             itemStyle: { color: INDIGO },
@@ -112,7 +119,7 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
             },
           },
           ...(comparedSeries
-            ? [{ type: 'line' as const, name: t('district-file:degreeDays.series', { year: compared!.year }), data: comparedSeries, showSymbol: false, lineStyle: { color: GREY, width: 1.5, type: 'dashed' as const }, itemStyle: { color: GREY } }]
+            ? [{ type: 'line' as const, name: t('district-file:degreeDays.series', { year: compared!.year }), data: comparedSeries.map(([d], j) => [d, comparedDrawn!.values[j]] as [string, number | null]), showSymbol: false, lineStyle: { color: GREY, width: 1.5, type: 'dashed' as const }, itemStyle: { color: GREY } }]
             : []),
         ],
       }}
@@ -136,9 +143,13 @@ export function DegreeDaysChart({ vc, seasonYear, compared }: { vc: VectorClock;
 /**
  * True on a day whose EIP is not completed: the traits are known (survival through the EIP is) but the
  * model gives no EIP — no development at that temperature, or beyond the mosquito's life or a season
- * (shared/model/traits.ts eipCompletion). Shown in words, never as a number.
+ * (shared/model/traits.ts eipCompletion) — or an EIP is given that is longer than a season (a stored
+ * answer from before that bound, or any other path). Shown in words, never as a number.
  */
-export const eipNotCompleted = (vc: Pick<VectorClock, 'eipDays' | 'survivalThroughEip'>, i: number): boolean => vc.eipDays[i] === null && vc.survivalThroughEip[i] !== null;
+export const eipNotCompleted = (vc: Pick<VectorClock, 'eipDays' | 'survivalThroughEip'>, i: number): boolean => {
+  const d = vc.eipDays[i];
+  return d === null || d === undefined ? vc.survivalThroughEip[i] !== null && vc.survivalThroughEip[i] !== undefined : isBeyond(d, AXIS_LIMITS.eipDays);
+};
 
 export function EipChart({ vc }: { vc: VectorClock }) {
   const { t, f } = useLadderWords();
@@ -150,12 +161,18 @@ export function EipChart({ vc }: { vc: VectorClock }) {
         ? t('district-file:eip.summaryNotCompleted', { day: f.date(vc.dates[last]) })
         : t('district-file:eip.summary', { day: f.date(vc.dates[last]), days: f.number(vc.eipDays[last], 1), survival: f.percent(vc.survivalThroughEip[last] ?? 0) });
   const names = { eip: t('district-file:eip.series.eip'), survival: t('district-file:eip.series.survival') };
+  // The EIP axis ends at a season (a longer EIP is "not completed"), survival at 100 %; beyond is not drawn.
+  const drawn = {
+    eip: withinAxis(vc.eipDays, AXIS_LIMITS.eipDays),
+    survival: withinAxis(vc.survivalThroughEip.map((s) => (s === null ? null : round(s * 100, 1))), AXIS_LIMITS.percent),
+  };
   return (
     <ChartFigure
       title={t('district-file:eip.title', { profile: profileLabel({ t }, vc) })}
       summary={summary}
       emptyText={last < 0 ? t('district-file:eip.empty') : null}
       height="16rem"
+      beyondAxis={drawn.eip.beyond + drawn.survival.beyond}
       option={{
         grid: baseGrid,
         legend,
@@ -163,12 +180,12 @@ export function EipChart({ vc }: { vc: VectorClock }) {
         xAxis: timeAxis,
         yAxis: [valueAxis(t('district-file:eip.axisLeft')), valueAxis(t('district-file:eip.axisRight'), { min: 0, max: 100, splitLine: { show: false } })],
         series: [
-          { type: 'line', name: names.eip, data: pairs(vc.dates, vc.eipDays), showSymbol: false, lineStyle: { color: INK, width: 1.5 }, itemStyle: { color: INK } },
+          { type: 'line', name: names.eip, data: pairs(vc.dates, drawn.eip.values), showSymbol: false, lineStyle: { color: INK, width: 1.5 }, itemStyle: { color: INK } },
           {
             type: 'line',
             name: names.survival,
             yAxisIndex: 1,
-            data: pairs(vc.dates, vc.survivalThroughEip.map((s) => (s === null ? null : round(s * 100, 1)))),
+            data: pairs(vc.dates, drawn.survival.values),
             showSymbol: false,
             lineStyle: { color: PLUM, width: 1.5, type: 'dashed' },
             itemStyle: { color: PLUM },

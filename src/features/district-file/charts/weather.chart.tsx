@@ -3,6 +3,7 @@ import { ChartFigure } from '../../../components/chart/chart-figure';
 import { SeriesTable } from '../../../components/chart/series-table';
 import { useUnits } from '../../../lib/units';
 import { useLadderWords } from '../../ladder/ladder-format';
+import { AXIS_LIMITS, convertRange, withinAxis } from './axis-limits';
 import { axisTooltip, baseGrid, GREY, INDIGO, INDIGO_LIGHT, INK, legend, maxOf, pairs, round, timeAxis, valueAxis } from './chart-style';
 
 type Weather = DistrictFileResponse['weather'];
@@ -17,7 +18,19 @@ export function WeatherChart({ weather }: { weather: Weather }) {
   const tmin = weather.tmin.map(temp);
   const tmax = weather.tmax.map(temp);
   const rain = weather.rain.map((x) => (x === null ? null : round(u.toRain(x), u.rainDigits)));
-  const warmest = maxOf(tmax);
+  // What the axes may show: temperatures within the records ever measured, humidity and rain within the
+  // right axis (0–100, % or the rain unit). Values beyond are not drawn and are counted under the chart;
+  // the table keeps them as stored.
+  const tempRange = convertRange(AXIS_LIMITS.temperatureC, u.toTemperature);
+  const drawn = {
+    tmin: withinAxis(tmin, tempRange),
+    tmax: withinAxis(tmax, tempRange),
+    rh: withinAxis(rh, AXIS_LIMITS.percent),
+    rain: withinAxis(rain, AXIS_LIMITS.percent),
+  };
+  const beyondAxis = drawn.tmin.beyond + drawn.tmax.beyond + drawn.rh.beyond + drawn.rain.beyond;
+  // The warmest day the summary names is a plausible one; a value beyond the records is said in the note.
+  const warmest = maxOf(drawn.tmax.values);
   const filledDays = filled.filter(Boolean).length;
   const unit = { temp: u.temperatureSymbol, rain: u.rainSymbol };
   const summary =
@@ -42,6 +55,7 @@ export function WeatherChart({ weather }: { weather: Weather }) {
       summary={summary}
       emptyText={dates.length === 0 ? t('district-file:weather.empty') : null}
       height="18rem"
+      beyondAxis={beyondAxis}
       option={{
         grid: baseGrid,
         legend,
@@ -49,10 +63,10 @@ export function WeatherChart({ weather }: { weather: Weather }) {
         xAxis: timeAxis,
         yAxis: [valueAxis(unit.temp), valueAxis(t('district-file:weather.axisRight', unit), { min: 0, max: 100, splitLine: { show: false } })],
         series: [
-          { type: 'line', name: names.max, data: pairs(dates, tmax), showSymbol: false, lineStyle: { color: INK, width: 1.5 }, itemStyle: { color: INK } },
-          { type: 'line', name: names.min, data: pairs(dates, tmin), showSymbol: false, lineStyle: { color: INDIGO, width: 1.5, type: 'dashed' }, itemStyle: { color: INDIGO } },
-          { type: 'line', name: names.rh, yAxisIndex: 1, data: pairs(dates, rh), showSymbol: false, lineStyle: { color: INDIGO_LIGHT, width: 1, type: 'dotted' }, itemStyle: { color: INDIGO_LIGHT } },
-          { type: 'bar', name: names.rain, yAxisIndex: 1, data: pairs(dates, rain), itemStyle: { color: GREY }, barMaxWidth: 3 },
+          { type: 'line', name: names.max, data: pairs(dates, drawn.tmax.values), showSymbol: false, lineStyle: { color: INK, width: 1.5 }, itemStyle: { color: INK } },
+          { type: 'line', name: names.min, data: pairs(dates, drawn.tmin.values), showSymbol: false, lineStyle: { color: INDIGO, width: 1.5, type: 'dashed' }, itemStyle: { color: INDIGO } },
+          { type: 'line', name: names.rh, yAxisIndex: 1, data: pairs(dates, drawn.rh.values), showSymbol: false, lineStyle: { color: INDIGO_LIGHT, width: 1, type: 'dotted' }, itemStyle: { color: INDIGO_LIGHT } },
+          { type: 'bar', name: names.rain, yAxisIndex: 1, data: pairs(dates, drawn.rain.values), itemStyle: { color: GREY }, barMaxWidth: 3 },
         ],
       }}
       table={

@@ -2,6 +2,7 @@ import { isOpenWeekAt, profileLabel } from '../district-file-format';
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { useUnits } from '../../../lib/units';
 import { useLadderWords } from '../../ladder/ladder-format';
+import { AXIS_LIMITS, convertRange, withinAxis } from '../charts/axis-limits';
 import { GREY, INDIGO, INDIGO_PALE, INK, lastIndexWithValue, MUTED } from '../charts/chart-style';
 
 type Cases = DistrictFileResponse['cases'][number];
@@ -106,9 +107,24 @@ export function PrintCasesChart({ cases, seasonYear }: { cases: Cases; seasonYea
 export function PrintDegreeDaysChart({ vc }: { vc: VectorClock }) {
   const { t, f } = useLadderWords();
   const u = useUnits();
-  const values = vc.cumulativeDegreeDays.map((v) => (v === null ? null : u.toTemperatureDelta(v)));
+  // As on the screen: the axis ends where no season can reach (axis-limits.ts); beyond is not drawn but said.
+  const { values, beyond } = withinAxis(
+    vc.cumulativeDegreeDays.map((v) => (v === null ? null : u.toTemperatureDelta(v))),
+    convertRange(AXIS_LIMITS.degreeDaysC, u.toTemperatureDelta),
+  );
   const last = lastIndexWithValue(values);
-  if (last < 0) return <p className="text-sm text-ink-muted">{t('district-file:degreeDays.empty')}</p>;
+  const beyondNote = beyond > 0 ? (
+    <p className="text-sm text-ink-muted" data-beyond-axis={beyond}>
+      {t('components:chart.beyondAxis', { count: beyond })}
+    </p>
+  ) : null;
+  if (last < 0)
+    return (
+      <>
+        <p className="text-sm text-ink-muted">{t('district-file:degreeDays.empty')}</p>
+        {beyondNote}
+      </>
+    );
   const ticks = niceTicks(Math.max(1, ...values.map((v) => v ?? 0)));
   const top = ticks[ticks.length - 1];
   const n = vc.dates.length;
@@ -125,6 +141,7 @@ export function PrintDegreeDaysChart({ vc }: { vc: VectorClock }) {
         <Axes ticks={ticks} y={y} xLabels={xLabels} unit={u.degreeDaySymbol} />
         <polyline points={points} fill="none" stroke={INDIGO} strokeWidth="2" />
       </svg>
+      {beyondNote}
     </figure>
   );
 }
