@@ -27,6 +27,7 @@ import { seasonRoutes } from './season/season.routes';
 import { flagsRoutes } from './flags/flags.routes';
 import { bulletinsRoutes } from './bulletins/bulletins.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
+import { fieldRoutes } from './field/field.routes';
 
 export interface BroodcastApp extends Express {
   locals: Express['locals'] & { routes: RouteDef[] };
@@ -76,6 +77,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...flagsRoutes(ctx),
     ...bulletinsRoutes(ctx),
     ...profilesRoutes(ctx),
+    ...fieldRoutes(ctx),
   ];
   app.locals.routes = routes;
 

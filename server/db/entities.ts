@@ -12,6 +12,7 @@ import { weatherEntities } from '../weather/weather.entities';
 import { seasonEntities } from '../season/season.entities';
 import { flagsEntities } from '../flags/flags.entities';
 import { profilesEntities } from '../profiles/profiles.entities';
+import { fieldEntities } from '../field/field.entities';
 
 /** Every entity, listed by hand so the DataSource works the same under tsx, vitest and the CLI. */
 export const entities = [
@@ -29,4 +30,5 @@ export const entities = [
   ...seasonEntities,
   ...flagsEntities,
   ...profilesEntities,
+  ...fieldEntities,
 ];

@@ -10,6 +10,7 @@ import { seasonAccess } from './access/season.access';
 import { flagsAccess } from './access/flags.access';
 import { profilesAccess } from './access/profiles.access';
 import { importsAccess } from './access/imports.access';
+import { fieldAccess } from './access/field.access';
 
 /**
  * Every API route × every role (and no session). The expected access is written here, from
@@ -21,7 +22,7 @@ const EVERYBODY: Who[] = ['anonymous', ...ROLES];
 
 // One table per feature (tests/api/access/*.access.ts), merged; the sign-out row goes last because it
 // ends the sessions the other rows use.
-const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...profilesAccess, ...importsAccess, ...signOutAccess };
+const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...profilesAccess, ...importsAccess, ...fieldAccess, ...signOutAccess };
 
 let t: TestApp;
 const agents = new Map<Who, ReturnType<typeof request.agent>>();

@@ -9,6 +9,7 @@ import { flagsMigrations } from '../../flags/flags.migrations';
 import { usersMigrations } from '../../users/users.migrations';
 import { profilesMigrations } from '../../profiles/profiles.migrations';
 import { districtsMigrations } from '../../districts/districts.migrations';
+import { fieldMigrations } from '../../field/field.migrations';
 
 // Each feature keeps its own list; TypeORM runs them all in timestamp order.
-export const migrations: Function[] = [Foundation1796164188542, ...weatherMigrations, ...casesMigrations, ...seasonMigrations, ...flagsMigrations, ...usersMigrations, ...profilesMigrations, ...districtsMigrations];
+export const migrations: Function[] = [Foundation1796164188542, ...weatherMigrations, ...casesMigrations, ...seasonMigrations, ...flagsMigrations, ...usersMigrations, ...profilesMigrations, ...districtsMigrations, ...fieldMigrations];

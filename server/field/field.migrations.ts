@@ -1,0 +1,4 @@
+import { FieldTeams1796600900000 } from './migrations/1796600900000-FieldTeams';
+
+/** Reviewed migrations of the Field week (issue 19). */
+export const fieldMigrations: Function[] = [FieldTeams1796600900000];

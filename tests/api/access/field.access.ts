@@ -1,0 +1,9 @@
+import type { AccessTable } from './who';
+
+/** Routes of the Field week (issue 19) and who may call them (DESIGN.md §2: the officer plans; teams see theirs). */
+export const fieldAccess: AccessTable = {
+  'GET /field-teams': ['officer', 'supervisor', 'worker'],
+  'POST /field-teams': ['officer'],
+  'PUT /field-teams/:id': ['officer'],
+  'DELETE /field-teams/:id': ['officer'],
+};
