@@ -6,4 +6,8 @@ export const fieldAccess: AccessTable = {
   'POST /field-teams': ['officer'],
   'PUT /field-teams/:id': ['officer'],
   'DELETE /field-teams/:id': ['officer'],
+  'GET /field-weeks': ['officer', 'supervisor', 'worker'],
+  'POST /field-weeks/proposal': ['officer'],
+  'PUT /field-weeks/:id/days': ['officer'],
+  'POST /field-weeks/:id/publish': ['officer'],
 };
