@@ -23,6 +23,7 @@ export const NAV_ITEMS = [
   { id: 'tier-settings', label: 'Tier settings', to: '/admin/tier-settings', roles: ['admin'] },
   { id: 'case-ledger', label: 'Case ledger', to: '/cases', roles: ['epidemiologist', 'supervisor'] },
   { id: 'surveys', label: 'Surveys', to: '/surveys', roles: ['officer', 'worker'] },
+  { id: 'field-week', label: 'Field week', to: '/field-week', roles: ['officer'] },
   { id: 'season-runs', label: 'Season runs', to: '/season-runs', roles: ['admin', 'officer'] },
   { id: 'intake', label: 'Intake', to: '/intake', roles: ['admin', 'officer'] },
   { id: 'sign-off', label: 'Sign-off', to: '/sign-off', roles: ['supervisor'] },

@@ -1,0 +1,53 @@
+import { describe, expect, it } from 'vitest';
+import { fakeApi, json, officerMe } from './support/fake-api';
+import { click, getButton, selectOption, waitFor, renderRoutes } from './support/render';
+
+const id = (n: number) => `00000000-0000-4000-8000-${String(n).padStart(12, '0')}`;
+const DAYS = ['2026-12-07', '2026-12-08', '2026-12-09', '2026-12-10', '2026-12-11'];
+const week = (over: Record<string, unknown> = {}) => ({
+  id: id(900), weekStart: DAYS[0], workingDays: DAYS, status: 'draft', edited: false, publishedAt: null,
+  ladderWeek: { year: 2026, week: 48 }, maxTravelKm: 150, visitWeight: 1, coveredRisk: 150000, ladderOrderRisk: 80000, totalRisk: 210000,
+  teams: [{ id: id(10), name: 'Harbour team', baseDistrict: { id: id(1), code: 'HV-01', name: 'Saltmarsh Coast' }, kinds: ['larviciding'], daysPerWeek: 2 }],
+  days: [{ teamId: id(10), districtId: id(1), day: DAYS[0] }],
+  districts: [
+    { districtId: id(1), code: 'HV-01', name: 'Saltmarsh Coast', rank: 1, tier: 'high', risk: 80000, daysNeeded: 2, daysProposed: 1, workNeeded: ['larviciding'], reason: { code: 'partly_planned', params: { days: 1, needed: 2, teams: ['Harbour team'] } } },
+    { districtId: id(2), code: 'HV-02', name: 'Orrin Valley', rank: 2, tier: 'raised', risk: 60000, daysNeeded: 1, daysProposed: 0, workNeeded: ['case-investigation'], reason: { code: 'no_trained_team', params: { kinds: ['case-investigation', 'space-spraying'] } } },
+  ],
+  ...over,
+});
+
+describe('Field week screen', () => {
+  it('when the officer opens the week, picks another district for a day, saves and publishes, then the edit is sent and the plan says it was published and mailed', async () => {
+    let saved: unknown = null;
+    const fetch = fakeApi({
+      'GET /api/me': () => json(200, officerMe),
+      'GET /api/field-weeks': () => json(200, { week: week() }),
+      [`PUT /api/field-weeks/${id(900)}/days`]: (init) => {
+        saved = JSON.parse(String(init.body));
+        return json(200, week({ edited: true, days: (saved as { days: unknown[] }).days }));
+      },
+      [`POST /api/field-weeks/${id(900)}/publish`]: () => json(200, week({ status: 'published', publishedAt: '2026-12-05T09:00:00.000Z', mailed: 3 })),
+    });
+    const { container: c } = await renderRoutes('/field-week');
+    await waitFor(() => expect(c.querySelector('h1')?.textContent).toBe('Field week'), 5000);
+    await waitFor(() => expect(c.textContent).toContain('Risk covered by the proposal: 150,000 of 210,000'));
+    expect(c.textContent).toContain('taking the top districts of the Ladder team by team: 80,000');
+    expect(c.textContent).toContain('Out: no team is trained for the work it needs (case investigation, space spraying).');
+    expect(c.textContent).toContain('every district weighs the same');
+    expect(c.textContent).toContain('trained staff only');
+
+    const select = c.querySelector<HTMLSelectElement>(`select[id$="${id(10)}-${DAYS[1]}"]`)!;
+    await selectOption(select, id(2));
+    expect(getButton(c, 'Publish to the teams').disabled).toBe(true); // save first
+    await click(getButton(c, 'Save changes'));
+    await waitFor(() => expect(saved).not.toBeNull());
+    expect((saved as { days: unknown[] }).days).toEqual([
+      { teamId: id(10), districtId: id(1), day: DAYS[0] },
+      { teamId: id(10), districtId: id(2), day: DAYS[1] },
+    ]);
+    await waitFor(() => expect(getButton(c, 'Publish to the teams').disabled).toBe(false));
+    await click(getButton(c, 'Publish to the teams'));
+    await waitFor(() => expect(c.textContent).toContain('3 team members were sent their days.'));
+    expect(fetch).toHaveBeenCalled();
+  });
+});
