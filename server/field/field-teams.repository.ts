@@ -57,6 +57,13 @@ export class FieldTeamsRepository {
     return new Set(rows.map((r) => r.id));
   }
 
+  /** Everyone who may be put on a team: active officers and community workers, by name. */
+  async candidates(): Promise<{ id: string; displayName: string; role: string }[]> {
+    return this.manager.query(
+      `SELECT id, display_name AS "displayName", role FROM users WHERE active AND role IN ('officer', 'worker') ORDER BY display_name, id LIMIT 5000`,
+    );
+  }
+
   async replaceMembers(teamId: string, memberIds: string[]): Promise<void> {
     await this.manager.query(`DELETE FROM field_team_members WHERE team_id = $1`, [teamId]);
     if (memberIds.length) {

@@ -19,6 +19,11 @@ export class FieldTeamsService {
     return { teams: teams.map(presentTeam) };
   }
 
+  /** The people the officer may put on a team. */
+  async candidates() {
+    return { people: await new FieldTeamsRepository(this.ctx.ds.manager).candidates() };
+  }
+
   async create(p: Principal, body: FieldTeamBody) {
     return this.write(async (manager) => {
       await this.check(manager, body);

@@ -16,6 +16,10 @@ export function fieldRoutes(ctx: AppContext) {
       handler: ({ principal }) => teams.list(principal),
     }),
     defineRoute({
+      method: 'get', path: '/field-teams/candidates', access: FIELD_ACCESS.manageTeams,
+      handler: () => teams.candidates(),
+    }),
+    defineRoute({
       method: 'post', path: '/field-teams', access: FIELD_ACCESS.manageTeams, body: fieldTeamBody, status: 201,
       handler: ({ principal, body }) => teams.create(principal, body),
     }),

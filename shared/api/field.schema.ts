@@ -41,6 +41,11 @@ export type FieldTeamDto = z.infer<typeof fieldTeamDto>;
 export const fieldTeamsResponse = z.object({ teams: z.array(fieldTeamDto) });
 export type FieldTeamsResponse = z.infer<typeof fieldTeamsResponse>;
 
+/** GET /api/field-teams/candidates: the people who may be put on a team (active officers and community workers). */
+export const fieldTeamCandidatesResponse = z.object({
+  people: z.array(z.object({ id: uuid, displayName: z.string(), role: z.string() })),
+});
+
 // ── The Field week ──────────────────────────────────────────────────────────────────────────────
 
 const tierEnum = z.enum(TIERS);

@@ -51,6 +51,13 @@ describe('field teams', () => {
     expect((await officer.delete(`/api/field-teams/${created.body.id}`)).status).toBe(404);
   });
 
+  it('when the officer asks who may be on a team, then active officers and community workers are listed, nobody else', async () => {
+    const people = (await officer.get('/api/field-teams/candidates')).body.people as { id: string; role: string }[];
+    expect(people.map((x) => x.id)).toContain(member.id);
+    expect(people.map((x) => x.id)).not.toContain(epidemiologist.id);
+    expect(new Set(people.map((x) => x.role))).toEqual(new Set(['officer', 'worker']));
+  });
+
   it('when a community worker lists teams, then they see only the teams they are on', async () => {
     const mine = await officer.post('/api/field-teams').send(team());
     const notMine = await officer.post('/api/field-teams').send(team({ memberIds: [] }));

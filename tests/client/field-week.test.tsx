@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { fakeApi, json, officerMe } from './support/fake-api';
-import { click, getButton, selectOption, waitFor, renderRoutes } from './support/render';
+import { demoDistricts } from './support/fake-api';
+import { click, getButton, getByLabel, selectOption, typeInto, waitFor, renderRoutes } from './support/render';
 
 const id = (n: number) => `00000000-0000-4000-8000-${String(n).padStart(12, '0')}`;
 const DAYS = ['2026-12-07', '2026-12-08', '2026-12-09', '2026-12-10', '2026-12-11'];
@@ -22,6 +23,7 @@ describe('Field week screen', () => {
     const fetch = fakeApi({
       'GET /api/me': () => json(200, officerMe),
       'GET /api/field-weeks': () => json(200, { week: week() }),
+      'GET /api/field-teams': () => json(200, { teams: [] }),
       [`PUT /api/field-weeks/${id(900)}/days`]: (init) => {
         saved = JSON.parse(String(init.body));
         return json(200, week({ edited: true, days: (saved as { days: unknown[] }).days }));
@@ -49,5 +51,35 @@ describe('Field week screen', () => {
     await click(getButton(c, 'Publish to the teams'));
     await waitFor(() => expect(c.textContent).toContain('3 team members were sent their days.'));
     expect(fetch).toHaveBeenCalled();
+  });
+
+  it('when the officer adds a team with a name already taken, then the name field says so; with a new name, the team is added', async () => {
+    let sent: Record<string, unknown> | null = null;
+    let taken = true;
+    fakeApi({
+      'GET /api/me': () => json(200, officerMe),
+      'GET /api/field-weeks': () => json(200, { week: null }),
+      'GET /api/field-teams': () => json(200, { teams: [] }),
+      'GET /api/districts': () => json(200, { districts: demoDistricts }),
+      'GET /api/field-teams/candidates': () => json(200, { people: [{ id: id(102), displayName: 'Wen Worker', role: 'worker' }] }),
+      'POST /api/field-teams': (init) => {
+        sent = JSON.parse(String(init.body));
+        if (taken) return json(409, { error: { code: 'team_name_taken', message: 'Another team already has this name.', fields: [{ path: 'name', message: 'is taken by another team' }] } });
+        return json(201, { id: id(11), name: sent!.name, baseDistrict: { id: id(1), code: 'HV-01', name: 'Saltmarsh Coast' }, members: [], kinds: ['larviciding'], daysPerWeek: 4, updatedAt: '2026-12-05T09:00:00.000Z' });
+      },
+    });
+    const { container: c } = await renderRoutes('/field-week');
+    await waitFor(() => expect(c.textContent).toContain('No plan for this week yet.'), 5000);
+    await typeInto(getByLabel(c, 'Team name'), 'Harbour team');
+    await waitFor(() => expect(c.querySelectorAll('option').length).toBeGreaterThan(1));
+    await selectOption(getByLabel<HTMLSelectElement>(c, 'Base district'), id(1));
+    await click(getByLabel(c, 'larviciding'));
+    await click(getByLabel(c, 'Wen Worker'));
+    await click(getButton(c, 'Add the team'));
+    await waitFor(() => expect(c.textContent).toContain('is taken by another team'));
+    expect(sent).toEqual({ name: 'Harbour team', baseDistrictId: id(1), kinds: ['larviciding'], daysPerWeek: 4, memberIds: [id(102)] });
+    taken = false;
+    await click(getButton(c, 'Add the team'));
+    await waitFor(() => expect(c.textContent).toContain('Team Harbour team added.'));
   });
 });

@@ -9,6 +9,7 @@ import { useFieldWeek } from './api/field-week.api';
 import { useProposeFieldWeek } from './api/propose-field-week.api';
 import { usePublishFieldWeek } from './api/publish-field-week.api';
 import { useSaveFieldWeekDays } from './api/save-field-week-days.api';
+import { FieldTeamsSection } from './components/field-teams.section';
 
 type Picks = Record<string, string>; // `${teamId}|${day}` → districtId ('' = no district)
 const cell = (teamId: string, day: string) => `${teamId}|${day}`;
@@ -52,6 +53,8 @@ export function FieldWeekPage() {
     <section aria-labelledby="page-title">
       <PageHeading lead={t('lead')}>{t('title')}</PageHeading>
       <p className="mb-4 text-sm">{t('caution')}</p>
+
+      <FieldTeamsSection />
 
       <div className="card mb-6 space-y-4">
         <h2 className="section-title">{t('proposeTitle')}</h2>

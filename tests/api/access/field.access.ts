@@ -3,6 +3,7 @@ import type { AccessTable } from './who';
 /** Routes of the Field week (issue 19) and who may call them (DESIGN.md §2: the officer plans; teams see theirs). */
 export const fieldAccess: AccessTable = {
   'GET /field-teams': ['officer', 'supervisor', 'worker'],
+  'GET /field-teams/candidates': ['officer'],
   'POST /field-teams': ['officer'],
   'PUT /field-teams/:id': ['officer'],
   'DELETE /field-teams/:id': ['officer'],
