@@ -83,3 +83,18 @@ describe('Field week screen', () => {
     await waitFor(() => expect(c.textContent).toContain('Team Harbour team added.'));
   });
 });
+
+describe('Field week CSV', () => {
+  it('when the plan is written as CSV, then there is one row per team and day with the district, its tier and the work needed, in the words given', async () => {
+    const { fieldWeekCsv } = await import('../../src/features/field-week/field-week.csv');
+    const csv = fieldWeekCsv(week({ days: [{ teamId: id(10), districtId: id(2), day: DAYS[1] }, { teamId: id(10), districtId: id(1), day: DAYS[0] }] }) as never, {
+      header: ['Day', 'Team', 'Code', 'District', 'Tier', 'Work'],
+      tier: (x) => (x === 'high' ? 'High' : String(x)),
+      kind: (k) => k.replace(/-/g, ' '),
+    });
+    const lines = csv.trim().split(/\r?\n/);
+    expect(lines[0]).toBe('Day,Team,Code,District,Tier,Work');
+    expect(lines[1]).toBe('2026-12-07,Harbour team,HV-01,Saltmarsh Coast,High,larviciding');
+    expect(lines[2]).toBe('2026-12-08,Harbour team,HV-02,Orrin Valley,raised,case investigation');
+  });
+});

@@ -5,6 +5,8 @@ import { FormMessage, TextField } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
 import { errorText } from '../../lib/error-text';
 import { useFormat } from '../../i18n/format';
+import { downloadCsv } from '../../lib/csv';
+import { fieldWeekCsv } from './field-week.csv';
 import { useFieldWeek } from './api/field-week.api';
 import { useProposeFieldWeek } from './api/propose-field-week.api';
 import { usePublishFieldWeek } from './api/publish-field-week.api';
@@ -128,6 +130,20 @@ export function FieldWeekPage() {
               </table>
             </div>
           )}
+
+          <p className="mb-4">
+            <button
+              type="button"
+              className="btn btn-secondary"
+              onClick={() => downloadCsv(`broodcast-field-week-${data.weekStart}.csv`, fieldWeekCsv(data, {
+                header: [t('csv.day'), t('csv.team'), t('csv.code'), t('csv.district'), t('csv.tier'), t('csv.work')],
+                tier: (x) => (x ? t(`tiers.${x}`) : t('noTier')),
+                kind: (k) => t(`kinds.${k}`),
+              }))}
+            >
+              {t('csv.download')}
+            </button>
+          </p>
 
           {published ? (
             <FormMessage kind="success">{t('publishedAt', { at: f.dateTime(data.publishedAt) })}{data.mailed !== undefined ? ` ${t('mailed', { count: data.mailed })}` : ''}</FormMessage>
