@@ -118,4 +118,36 @@ describe('Field week proposal (mixed-integer program)', () => {
     // Every district has a reason; a district with no planned day is never listed as planned.
     for (const d of plan.districts) expect(d.daysPlanned > 0).toBe(['planned', 'partly_planned'].includes(d.reason.code));
   });
+
+  it('when small weeks are solved, then the risk the solver covers equals the best of every possible plan (brute force)', () => {
+    // 30 invented weeks of 2 teams × 3 districts; every integer plan is enumerated and the best one kept.
+    let seed = 7;
+    const rnd = () => ((seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31);
+    const drivers = ['climate', 'vectorClock', 'larval', 'cases'] as const;
+    for (let trial = 0; trial < 30; trial++) {
+      const districts = Array.from({ length: 3 }, (_, i) => district(`D${i}`, i + 1, {
+        tier: TIERS[1 + Math.floor(rnd() * 3)], score: Math.round(rnd() * 100) / 100, population: 10_000 + Math.round(rnd() * 90_000),
+        leadingDriver: drivers[Math.floor(rnd() * 4)],
+      }));
+      const teams: ProposalTeam[] = Array.from({ length: 2 }, (_, i) => ({
+        id: `T${i}`, name: `T${i}`, baseDistrictId: 'D0', daysPerWeek: 1 + Math.floor(rnd() * 4),
+        kinds: [WORK_KINDS[Math.floor(rnd() * WORK_KINDS.length)], WORK_KINDS[Math.floor(rnd() * WORK_KINDS.length)]],
+      }));
+      const input: ProposalInput = { days: WEEK, maxTravelKm: 100, districts, teams };
+      const may = (t: ProposalTeam, d: ProposalDistrict) => t.kinds.some((k) => workNeededFor(d.leadingDriver).includes(k));
+      const need = districts.map((d) => DAYS_NEEDED_BY_TIER[d.tier!]);
+      let best = 0;
+      // x = [t0d0, t0d1, t0d2, t1d0, t1d1, t1d2], each 0..3
+      for (let code = 0; code < 4 ** 6; code++) {
+        const x = Array.from({ length: 6 }, (_, k) => Math.floor(code / 4 ** k) % 4);
+        const ok = teams.every((t, ti) => x.slice(ti * 3, ti * 3 + 3).reduce((a, b) => a + b, 0) <= t.daysPerWeek
+          && districts.every((d, di) => x[ti * 3 + di] === 0 || may(t, d)))
+          && districts.every((_, di) => x[di] + x[3 + di] <= need[di]);
+        if (!ok) continue;
+        const value = districts.reduce((a, d, di) => a + (d.score! * d.population! * (x[di] + x[3 + di])) / need[di], 0);
+        best = Math.max(best, value);
+      }
+      expect(proposeFieldWeek(input).coveredRisk).toBeCloseTo(best, 6);
+    }
+  });
 });
