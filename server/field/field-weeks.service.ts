@@ -11,6 +11,7 @@ import { todayIn } from '../cases/case-weeks';
 import { badRequest, conflict, notFound } from '../http/errors';
 import { languageOr } from '../i18n';
 import { enqueueMail } from '../outbox/outbox.repository';
+import { isUniqueViolation } from '../platform/database-errors';
 import { FieldTeamsRepository, type TeamRecord } from './field-teams.repository';
 import { FieldWeekEntity } from './field-week.entity';
 import { fieldWeekMail, type MemberPlan } from './field-week.mails';
@@ -42,6 +43,7 @@ export class FieldWeeksService {
   async propose(p: Principal, body: FieldWeekProposalBody): Promise<FieldWeekDto> {
     const weekStart = body.weekStart ?? comingMonday(todayIn(this.ctx.config.TIMEZONE));
     const maxTravelKm = body.maxTravelKm ?? DEFAULT_TRAVEL_KM;
+    // Two officers proposing a new week at once: the second meets the unique week and gets a 409, not a 500.
     return this.ctx.ds.transaction(async (manager) => {
       const existing = await manager.findOne(FieldWeekEntity, { where: { weekStart }, lock: { mode: 'pessimistic_write' } });
       if (existing?.status === 'published') throw conflict('week_published', 'This week is already published.', { weekStart });
@@ -72,6 +74,9 @@ export class FieldWeeksService {
         after: { weekStart, maxTravelKm, days: proposal.assignments.length, coveredRisk: proposal.coveredRisk, ladderOrderRisk: record.ladderOrderRisk },
       });
       return this.present(manager, saved, teams, p);
+    }).catch((err: unknown) => {
+      if (isUniqueViolation(err)) throw conflict('week_busy', 'Another proposal for this week was saved at the same moment; try again.', { weekStart });
+      throw err;
     });
   }
 
@@ -130,8 +135,6 @@ export class FieldWeeksService {
       const days = await repo.days(id);
       const districts = await repo.districtRefs([...new Set(days.map((d) => d.districtId))]);
       const workOf = new Map(week.proposal.districts.map((d) => [d.districtId, d.workNeeded]));
-      const ladder = await repo.ladder();
-      const driverOf = new Map(ladder.districts.map((d) => [d.id, d.leadingDriver]));
       const working = workingDaysOf(week.weekStart);
       const plans = new Map<string, { email: string; language: string; plans: MemberPlan[] }>();
       for (const team of teams) {
@@ -143,7 +146,8 @@ export class FieldWeeksService {
             const d = own.find((x) => x.day === day);
             if (!d) return { day, district: null };
             const ref = districts.get(d.districtId)!;
-            return { day, district: { name: ref.name, code: ref.code, work: workOf.get(d.districtId) ?? workNeededFor(driverOf.get(d.districtId) ?? null) } };
+            // A district added after the proposal has no reason stored: it gets the general work.
+            return { day, district: { name: ref.name, code: ref.code, work: workOf.get(d.districtId) ?? workNeededFor(null) } };
           }),
         };
         for (const m of team.members) {
