@@ -84,6 +84,22 @@ describe('Field week screen', () => {
   });
 });
 
+describe('Field week for a team member', () => {
+  it('when a community worker opens the published week, then they read the days of their team and the work needed, with nothing to plan or edit', async () => {
+    fakeApi({
+      'GET /api/me': () => json(200, { ...officerMe, role: 'worker', email: 'worker@halvern.example' }),
+      'GET /api/field-weeks': () => json(200, { week: week({ status: 'published', publishedAt: '2026-12-05T09:00:00.000Z' }) }),
+    });
+    const { container: c } = await renderRoutes('/field-week');
+    await waitFor(() => expect(c.textContent).toContain('Saltmarsh Coast (larviciding)'), 5000);
+    expect(c.textContent).toContain("The week's plan for your teams");
+    expect(c.textContent).toContain('trained staff only');
+    expect(c.querySelector('select')).toBeNull();
+    expect([...c.querySelectorAll('button')].map((b) => b.textContent)).not.toContain('Propose the week');
+    expect([...c.querySelectorAll('button')].map((b) => b.textContent)).not.toContain('Publish to the teams');
+  });
+});
+
 describe('Field week CSV', () => {
   it('when the plan is written as CSV, then there is one row per team and day with the district, its tier and the work needed, in the words given', async () => {
     const { fieldWeekCsv } = await import('../../src/features/field-week/field-week.csv');

@@ -3,6 +3,8 @@ import { useTranslation } from 'react-i18next';
 import type { FieldWeekDto } from '../../../shared/api/field.schema';
 import { FormMessage, TextField } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
+import { FIELD_ACCESS } from '../../../shared/field/work-kinds';
+import { canUse, useSession } from '../../app/session';
 import { errorText } from '../../lib/error-text';
 import { useFormat } from '../../i18n/format';
 import { downloadCsv } from '../../lib/csv';
@@ -25,6 +27,8 @@ const picksOf = (week: FieldWeekDto): Picks => Object.fromEntries(week.days.map(
 export function FieldWeekPage() {
   const { t } = useTranslation('field-week');
   const f = useFormat();
+  // Supervisors and team members read the week; only the health officer keeps teams and plans.
+  const plans = canUse(useSession().role, FIELD_ACCESS.planWeek);
   const id = useId();
   const [weekStart, setWeekStart] = useState('');
   const [travel, setTravel] = useState('150');
@@ -37,7 +41,7 @@ export function FieldWeekPage() {
   const [picks, setPicks] = useState<Picks>({});
   useEffect(() => setPicks(data ? picksOf(data) : {}), [data]);
   const dirty = useMemo(() => (data ? JSON.stringify(picks) !== JSON.stringify(picksOf(data)) : false), [picks, data]);
-  const published = data?.status === 'published';
+  const published = data?.status === 'published' || !plans;
   const byRank = useMemo(() => (data ? [...data.districts].sort((a, b) => a.rank - b.rank) : []), [data]);
 
   const onPropose = () => propose.mutate({ ...(weekStart ? { weekStart } : {}), maxTravelKm: Number(travel) });
@@ -53,12 +57,12 @@ export function FieldWeekPage() {
 
   return (
     <section aria-labelledby="page-title">
-      <PageHeading lead={t('lead')}>{t('title')}</PageHeading>
+      <PageHeading lead={plans ? t('lead') : t('readLead')}>{t('title')}</PageHeading>
       <p className="mb-4 text-sm">{t('caution')}</p>
 
-      <FieldTeamsSection />
+      {plans ? <FieldTeamsSection /> : null}
 
-      <div className="card mb-6 space-y-4">
+      {plans ? <div className="card mb-6 space-y-4">
         <h2 className="section-title">{t('proposeTitle')}</h2>
         <div className="flex flex-wrap items-end gap-4">
           <TextField label={t('weekStart')} hint={t('weekStartHint')} type="date" value={weekStart} onChange={(e) => setWeekStart(e.currentTarget.value)} />
@@ -67,7 +71,7 @@ export function FieldWeekPage() {
         <button type="button" className="btn btn-primary" onClick={onPropose} disabled={propose.isPending || published}>
           {propose.isPending ? t('proposing') : t('propose')}
         </button>
-      </div>
+      </div> : null}
 
       <FormMessage kind="error">{error ? errorText(error) : null}</FormMessage>
 
@@ -88,7 +92,21 @@ export function FieldWeekPage() {
             <p className="text-sm">{t('visitWeight')}</p>
           </div>
 
-          {data.teams.length === 0 ? <p>{t('noTeams')}</p> : (
+          {data.teams.length === 0 ? <p>{t('noTeams')}</p> : !plans ? (
+            <div className="mb-4 space-y-4">
+              {data.teams.map((team) => (
+                <div key={team.id} className="card">
+                  <h2 className="section-title">{team.name}</h2>
+                  <ul>
+                    {data.workingDays.map((day) => {
+                      const d = data.districts.find((x) => x.districtId === picks[cell(team.id, day)]);
+                      return <li key={day}><strong>{f.date(day)}</strong>{': '}{d ? `${d.name} (${d.workNeeded.map((k) => t(`kinds.${k}`)).join(', ')})` : t('noDistrict')}</li>;
+                    })}
+                  </ul>
+                </div>
+              ))}
+            </div>
+          ) : (
             <div className="table-wrap mb-4">
               <table className="data-table">
                 <caption className="table-caption">{t('planCaption')}</caption>
@@ -145,7 +163,7 @@ export function FieldWeekPage() {
             </button>
           </p>
 
-          {published ? (
+          {!plans ? null : published ? (
             <FormMessage kind="success">{t('publishedAt', { at: f.dateTime(data.publishedAt) })}{data.mailed !== undefined ? ` ${t('mailed', { count: data.mailed })}` : ''}</FormMessage>
           ) : (
             <div className="mb-6 flex flex-wrap gap-3">
