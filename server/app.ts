@@ -28,6 +28,7 @@ import { lookBackRoutes } from './skill/look-back.routes';
 import { flagsRoutes } from './flags/flags.routes';
 import { bulletinsRoutes } from './bulletins/bulletins.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
+import { fieldRoutes } from './field/field.routes';
 
 export interface BroodcastApp extends Express {
   locals: Express['locals'] & { routes: RouteDef[] };
@@ -78,6 +79,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...bulletinsRoutes(ctx),
     ...profilesRoutes(ctx),
     ...lookBackRoutes(ctx),
+    ...fieldRoutes(ctx),
   ];
   app.locals.routes = routes;
 

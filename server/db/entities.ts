@@ -13,6 +13,7 @@ import { seasonEntities } from '../season/season.entities';
 import { flagsEntities } from '../flags/flags.entities';
 import { profilesEntities } from '../profiles/profiles.entities';
 import { skillEntities } from '../skill/skill.entities';
+import { fieldEntities } from '../field/field.entities';
 
 /** Every entity, listed by hand so the DataSource works the same under tsx, vitest and the CLI. */
 export const entities = [
@@ -31,4 +32,5 @@ export const entities = [
   ...flagsEntities,
   ...profilesEntities,
   ...skillEntities,
+  ...fieldEntities,
 ];

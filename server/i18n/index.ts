@@ -23,7 +23,7 @@ for (const lng of LANGUAGES) {
     resources[lng][file.slice(0, -'.json'.length)] = JSON.parse(readFileSync(join(root, lng, file), 'utf8'));
 }
 
-export type ServerNamespace = 'common' | 'auth' | 'advisory' | 'bulletin' | 'flags';
+export type ServerNamespace = 'common' | 'auth' | 'advisory' | 'bulletin' | 'flags' | 'field';
 
 const instance = i18next.createInstance();
 void instance.init({

@@ -4,7 +4,7 @@ import { BulletinDigestEntity } from '../bulletins/bulletin-digest.entity';
 import { BulletinEntity } from '../bulletins/bulletin.entity';
 import { UserEntity } from '../users/user.entity';
 
-export type OutboxKind = 'advisory' | 'bulletin' | 'invite' | 'password-reset';
+export type OutboxKind = 'advisory' | 'bulletin' | 'invite' | 'password-reset' | 'field-week';
 export type OutboxStatus = 'pending' | 'sent' | 'failed';
 
 /**
@@ -15,7 +15,7 @@ export type OutboxStatus = 'pending' | 'sent' | 'failed';
 @Entity({ name: 'outbox_messages' })
 @Index('outbox_messages_due_idx', ['status', 'nextAttemptAt'])
 @Index('outbox_messages_created_idx', ['createdAt'])
-@Check('outbox_messages_kind_check', "kind IN ('advisory', 'bulletin', 'invite', 'password-reset')")
+@Check('outbox_messages_kind_check', "kind IN ('advisory', 'bulletin', 'invite', 'password-reset', 'field-week')")
 @Check('outbox_messages_status_check', "status IN ('pending', 'sent', 'failed')")
 export class OutboxMessageEntity {
   @PrimaryGeneratedColumn('uuid')

@@ -105,7 +105,7 @@ export const outboxQuery = z.strictObject({
 
 export const outboxMessageDto = z.object({
   id: uuid,
-  kind: z.enum(['advisory', 'bulletin', 'invite', 'password-reset']),
+  kind: z.enum(['advisory', 'bulletin', 'invite', 'password-reset', 'field-week']),
   to: z.string(),
   subject: z.string(),
   status: z.enum(OUTBOX_STATUSES),

@@ -1,3 +1,4 @@
+import { FIELD_ACCESS } from '../../shared/field/work-kinds';
 import { LOOK_BACK_ROLES, ROLES, type Role } from '../../shared/roles';
 
 /**
@@ -23,6 +24,7 @@ export const NAV_ITEMS = [
   { id: 'tier-settings', label: 'Tier settings', to: '/admin/tier-settings', roles: ['admin'] },
   { id: 'case-ledger', label: 'Case ledger', to: '/cases', roles: ['epidemiologist', 'supervisor'] },
   { id: 'surveys', label: 'Surveys', to: '/surveys', roles: ['officer', 'worker'] },
+  { id: 'field-week', label: 'Field week', to: '/field-week', roles: FIELD_ACCESS.seeWeek },
   { id: 'season-runs', label: 'Season runs', to: '/season-runs', roles: ['admin', 'officer'] },
   { id: 'look-back', label: 'Look-back', to: '/look-back', roles: LOOK_BACK_ROLES.read },
   { id: 'intake', label: 'Intake', to: '/intake', roles: ['admin', 'officer'] },

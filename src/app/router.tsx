@@ -209,6 +209,12 @@ export const routes: RouteObject[] = [
             })),
           },
           {
+            path: 'field-week',
+            lazy: screen('features/field-week/field-week.page', () => import('../features/field-week/field-week.page'), ({ FieldWeekPage }) => ({
+              element: guarded(rolesFor('field-week'), <FieldWeekPage />),
+            })),
+          },
+          {
             path: 'season-runs',
             lazy: screen('features/season-runs/season-runs.page', () => import('../features/season-runs/season-runs.page'), ({ SeasonRunsPage }) => ({
               element: guarded(rolesFor('season-runs'), <SeasonRunsPage />),

@@ -26,6 +26,7 @@ export const SCREEN_TEXTS = {
   'features/district-file/district-file.page': ['cautions', 'district-file', 'districts', 'flags', 'help', 'ladder', 'profiles'],
   'features/season-runs/season-runs.page': ['season-runs'],
   'features/look-back/look-back.page': ['look-back', 'cautions'],
+  'features/field-week/field-week.page': ['field-week'],
   'features/weather/intake.page': ['weather'],
   'features/weather/stations.page': ['weather'],
   'features/weather/district-weather.page': ['weather'],

@@ -11,6 +11,7 @@ import { flagsAccess } from './access/flags.access';
 import { profilesAccess } from './access/profiles.access';
 import { importsAccess } from './access/imports.access';
 import { lookBackAccess } from './access/look-back.access';
+import { fieldAccess } from './access/field.access';
 
 /**
  * Every API route × every role (and no session). The expected access is written here, from
@@ -22,7 +23,7 @@ const EVERYBODY: Who[] = ['anonymous', ...ROLES];
 
 // One table per feature (tests/api/access/*.access.ts), merged; the sign-out row goes last because it
 // ends the sessions the other rows use.
-const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...profilesAccess, ...importsAccess, ...lookBackAccess, ...signOutAccess };
+const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...profilesAccess, ...importsAccess, ...lookBackAccess, ...fieldAccess, ...signOutAccess };
 
 let t: TestApp;
 const agents = new Map<Who, ReturnType<typeof request.agent>>();

@@ -10,6 +10,7 @@ import { usersMigrations } from '../../users/users.migrations';
 import { profilesMigrations } from '../../profiles/profiles.migrations';
 import { districtsMigrations } from '../../districts/districts.migrations';
 import { skillMigrations } from '../../skill/skill.migrations';
+import { fieldMigrations } from '../../field/field.migrations';
 
 // Each feature keeps its own list; TypeORM runs them all in timestamp order.
-export const migrations: Function[] = [Foundation1796164188542, ...weatherMigrations, ...casesMigrations, ...seasonMigrations, ...flagsMigrations, ...usersMigrations, ...profilesMigrations, ...districtsMigrations, ...skillMigrations];
+export const migrations: Function[] = [Foundation1796164188542, ...weatherMigrations, ...casesMigrations, ...seasonMigrations, ...flagsMigrations, ...usersMigrations, ...profilesMigrations, ...districtsMigrations, ...skillMigrations, ...fieldMigrations];

@@ -1,0 +1,5 @@
+import { FieldTeams1796600900000 } from './migrations/1796600900000-FieldTeams';
+import { FieldWeeks1796600910000 } from './migrations/1796600910000-FieldWeeks';
+
+/** Reviewed migrations of the Field week (issue 19). */
+export const fieldMigrations: Function[] = [FieldTeams1796600900000, FieldWeeks1796600910000];

@@ -1,0 +1,14 @@
+import type { AccessTable } from './who';
+
+/** Routes of the Field week (issue 19) and who may call them (DESIGN.md §2: the officer plans; teams see theirs). */
+export const fieldAccess: AccessTable = {
+  'GET /field-teams': ['officer', 'supervisor', 'worker'],
+  'GET /field-teams/candidates': ['officer'],
+  'POST /field-teams': ['officer'],
+  'PUT /field-teams/:id': ['officer'],
+  'DELETE /field-teams/:id': ['officer'],
+  'GET /field-weeks': ['officer', 'supervisor', 'worker'],
+  'POST /field-weeks/proposal': ['officer'],
+  'PUT /field-weeks/:id/days': ['officer'],
+  'POST /field-weeks/:id/publish': ['officer'],
+};
