@@ -67,7 +67,7 @@ describe("the health officer's week", () => {
 
     // The refused day, corrected by hand (rh and rain left empty).
     await refused.getByRole('button', { name: 'Correct' }).click();
-    const fix = result.locator('form[aria-labelledby="correct-title"]');
+    const fix = result.getByRole('form', { name: 'Correct one day' });
     expect(await fix.getByLabel('Station code').inputValue()).toBe('HVS-02');
     expect(await fix.getByLabel('Date').inputValue()).toBe(d2);
     await fix.getByLabel('Tmin (°C)').fill('23.6');

@@ -73,6 +73,8 @@ export function CaseEntryForm({ districts, diseases, settings }: { districts: Di
       const district = districts.find((d) => d.id === districtId);
       const text = t(`entry.${result.outcome}`, { district: district?.code ?? '', week: values.week, year: values.year, cases: result.count.cases });
       setMessage({ kind: 'success', text: result.count.late ? t('entry.late', { text: text.replace(/\.$/, '') }) + '.' : text });
+      // A reason belongs to one correction: the next one asks for its own.
+      resetField('reason', { defaultValue: '' });
     } catch (error) {
       const unmatched = applyServerFieldErrors(error, setError, ['districtId', 'diseaseId', 'year', 'week', 'cases', 'confirmed', 'probable', 'reason']);
       setMessage({ kind: 'error', text: formErrorText(error, unmatched) });

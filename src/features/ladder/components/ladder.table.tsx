@@ -252,11 +252,14 @@ export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]
   const words = useLadderWords();
   const { t } = words;
   const columns = useMemo(() => ladderColumns(words), [words]);
+  // The table caches each row's accessor values until its data changes; the accessors word the values
+  // (driver, zone), so a new language must come with a new data array or cells stay in the old language.
+  const data = useMemo(() => rows.slice(), [rows, words]);
   const [globalFilter, setGlobalFilter] = useState('');
   const table = useTable({
     features: ladderFeatures,
     columns,
-    data: rows,
+    data,
     getRowId: (r) => r.districtId,
     globalFilterFn: 'matchesRowText',
     getColumnCanGlobalFilter: (c) => c.id === 'district',

@@ -18,7 +18,7 @@ function buildColumns(t: TFunction, f: Formatters) {
     column.accessor('status', {
       header: t('table.status'),
       cell: (c) => (
-        <span className="cell-stack">
+        <span className="flex flex-col items-start gap-0.5">
           <span className={`status ${STATUS_CLASS[c.getValue()]}`}>{t(`status.${c.getValue()}`)}</span>
           <span className="text-xs text-ink-muted">
             {c.row.original.kind === 'nightly' ? t('kind.nightly') : c.row.original.byPerson ? t('kind.manual') : t('kind.system')}

@@ -1,4 +1,4 @@
-import { useState, type FormEvent } from 'react';
+import { useId, useState, type FormEvent } from 'react';
 import { useTranslation } from 'react-i18next';
 import type { CorrectionBody, IssueDto } from '../../../../shared/api/weather.schema';
 import { FormMessage, TextField } from '../../../components/form';
@@ -17,6 +17,8 @@ const round2 = (x: number) => Math.round(x * 100) / 100;
  * in °C and mm.
  */
 export function CorrectionForm({ from, onDone }: { from: IssueDto | null; onDone?: () => void }) {
+  // Two of these forms can be on the Intake screen at once (the report's and the one below it).
+  const titleId = useId();
   const { t } = useTranslation('weather');
   const units = useUnits();
   const correct = useCorrectDay();
@@ -74,8 +76,8 @@ export function CorrectionForm({ from, onDone }: { from: IssueDto | null; onDone
 
   return (
     <>
-    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby="correct-title">
-      <h3 id="correct-title" className="section-title">
+    <form onSubmit={onSubmit} noValidate className="space-y-3" aria-labelledby={titleId}>
+      <h3 id={titleId} className="section-title">
         {t('correction.title')}
       </h3>
       <p className="text-sm text-ink-muted">{t('correction.unitHint', { temperature: units.temperatureSymbol, rain: units.rainSymbol })}</p>
