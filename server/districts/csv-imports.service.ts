@@ -50,9 +50,6 @@ function readCsv(buffer: Buffer, columns: readonly string[], optional: readonly 
 
 const num = (s: string | undefined) => (s === undefined || s === '' ? null : /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s) ? Number(s) : NaN);
 
-/** The first issue of a zod result as a problem reason: "latitude: must be a number". */
-const zodReason = (issues: { path: PropertyKey[]; message: string }[]) => issues.map((i) => `${i.path.join('.') || 'row'}: ${i.message}`).join('; ');
-
 export class CsvImportsService {
   private readonly repo: DistrictImportRepository;
 
@@ -78,8 +75,8 @@ export class CsvImportsService {
         activeFrom: r.activeFrom ? r.activeFrom : null, activeTo: r.activeTo ? r.activeTo : null,
       };
       const parsed = stationCreateBody.safeParse(candidate);
-      if (!parsed.success) return problems.push({ index: line, code: code || null, rule: 'row_invalid', reason: capText(zodReason(parsed.error.issues)) });
-      if (seen.has(parsed.data.code)) return problems.push({ index: line, code, rule: 'code_repeated', reason: `the code is also on line ${seen.get(parsed.data.code)}` });
+      if (!parsed.success) return problems.push({ index: line, code: code || null, rule: 'row_invalid', params: fieldOf(parsed.error.issues) });
+      if (seen.has(parsed.data.code)) return problems.push({ index: line, code, rule: 'code_repeated', params: { line: seen.get(parsed.data.code)! } });
       seen.set(parsed.data.code, line);
       good.push({ line, ...parsed.data });
     });
@@ -118,11 +115,11 @@ export class CsvImportsService {
       const line = i + 2;
       const code = (r.district ?? '').trim().toUpperCase();
       const districtId = ids.get(code);
-      if (!districtId) return problems.push({ index: line, code: code || null, rule: 'unknown_district', reason: code ? 'no district has this code' : 'the district is empty' });
+      if (!districtId) return problems.push({ index: line, code: code || null, rule: code ? 'unknown_district' : 'district_missing', params: {} });
       const parsed = populationBody.safeParse({ year: num(r.year), population: num(r.population) });
-      if (!parsed.success) return problems.push({ index: line, code, rule: 'row_invalid', reason: capText(zodReason(parsed.error.issues)) });
+      if (!parsed.success) return problems.push({ index: line, code, rule: 'row_invalid', params: fieldOf(parsed.error.issues) });
       const key = `${districtId}|${parsed.data.year}`;
-      if (seen.has(key)) return problems.push({ index: line, code, rule: 'row_repeated', reason: `this district and year are also on line ${seen.get(key)}` });
+      if (seen.has(key)) return problems.push({ index: line, code, rule: 'row_repeated', params: { line: seen.get(key)! } });
       seen.set(key, line);
       good.push({ line, code, districtId, ...parsed.data });
     });
@@ -155,4 +152,9 @@ export class CsvImportsService {
       preview,
     };
   }
+}
+
+/** The column a refused CSV row fails on (the client words `row_invalid` with it). */
+function fieldOf(issues: readonly { path: PropertyKey[] }[]): { field: string } {
+  return { field: capText(issues[0]?.path.map(String).join('.') || 'row', 64) };
 }
