@@ -89,7 +89,7 @@ export class CsvImportsService {
     await this.ctx.ds.transaction(async (m) => {
       const before = await this.repo.stations(m, good.map((g) => g.code));
       const ids = await this.repo.upsertStations(m, good);
-      const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS);
+      const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS, this.ctx.config.WEATHER_IDW_MAX_KM);
       await recomputeDistrictSeries(m, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
       if (touched.size) await m.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...touched]]);
       await recordAudits(m, good.map(({ line: _line, ...g }) => ({

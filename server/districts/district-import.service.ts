@@ -233,7 +233,7 @@ export class DistrictImportService {
       }
       // Stations are re-placed in the new boundaries; the changed districts' series are recomputed and their
       // run state cleared, as for one boundary (DistrictsService.setBoundary).
-      const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS);
+      const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS, this.ctx.config.WEATHER_IDW_MAX_KM);
       await recomputeDistrictSeries(m, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
       await m.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...ids.values()]]);
       await recordAudits(m, read.map((r) => ({
