@@ -10,7 +10,8 @@
  * `.local/run/start-<port>.json`, so the next start after a crash stops a server left behind.
  *
  * Options (for its tests and quick restarts): `--no-build` skips the client build, `--no-demo` skips
- * loading the demo region.
+ * loading the demo region. `BROODCAST_DEMO=0` starts an empty installation (no demo) and prints a one-time
+ * link to choose the first admin's password (`BROODCAST_ADMIN_EMAIL` names that admin) until an admin has one.
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
@@ -19,7 +20,8 @@ import { clusterRunning, stopCluster, type Cluster } from './lib/cluster';
 import { buildClient } from './lib/build-client';
 import { projectDir, startDevDatabase } from './lib/dev-database';
 import { startMailCatcher } from './lib/mail-catcher';
-import { migrate } from './lib/prepare-database';
+import { demoWanted } from './lib/demo-flag';
+import { migrate, firstAdmin } from './lib/prepare-database';
 import { ports } from './lib/ports';
 import { isAlive, isOurServer, otherStartUsing, readRunState, removeRunState, stopProcess, writeRunState } from './lib/run-state';
 import { DEMO_PASSWORD, DEMO_USERS } from '../sample/demo-region';
@@ -27,6 +29,7 @@ import { startFakeFeed } from '../sample/fake-feed';
 import { sweepUploadFolders } from '../server/weather/upload-dir';
 
 const args = new Set(process.argv.slice(2));
+let withDemo = true;
 const started = Date.now();
 const cleanups: { what: string; run: () => Promise<void> | void }[] = [];
 let child: ChildProcess | null = null;
@@ -124,9 +127,13 @@ try {
   saveState();
   await untilStopped();
 
-  const { migrations, seeded } = await migrate(dev.url, args.has('--no-demo') ? {} : { seedDemo: { nodeEnv: 'development', bcryptCost: 12 } });
+  withDemo = demoWanted(process.env, args);
+  const { migrations, seeded } = await migrate(dev.url, withDemo ? { seedDemo: { nodeEnv: 'development', bcryptCost: 12 } } : {});
   if (migrations.length) console.log(`› ran ${migrations.length} migration(s)`);
-  if (!args.has('--no-demo')) console.log(seeded ? '› loaded the invented Halvern Region (demo data)' : '› reusing the data already in the cluster');
+  if (withDemo) console.log(seeded ? '› loaded the invented Halvern Region (demo data)' : '› reusing the data already in the cluster');
+  else console.log('› started without the demo region (BROODCAST_DEMO=0)');
+  const appUrl = process.env.APP_URL ?? `http://127.0.0.1:${ports.app}`;
+  const setup = withDemo ? null : await firstAdmin(dev.url, { appUrl, email: process.env.BROODCAST_ADMIN_EMAIL });
   await untilStopped();
 
   const maildev = await startMailCatcher(ports.smtp, ports.mailWeb, path.join(projectDir, '.local', 'mail', 'dev'));
@@ -143,7 +150,6 @@ try {
   }
   await untilStopped();
 
-  const appUrl = `http://127.0.0.1:${ports.app}`;
   child = spawn(process.execPath, ['--import', 'tsx', 'server/main.ts'], {
     cwd: projectDir,
     stdio: ['ignore', 'inherit', 'inherit'],
@@ -155,7 +161,7 @@ try {
       JWT_SECRET: process.env.JWT_SECRET ?? dev.secrets.jwtSecret,
       SMTP_HOST: '127.0.0.1',
       SMTP_PORT: String(ports.smtp),
-      APP_URL: process.env.APP_URL ?? appUrl,
+      APP_URL: appUrl,
       WEATHER_FEED_URL: process.env.WEATHER_FEED_URL ?? feed.url,
       WEATHER_FEED_KEY: process.env.WEATHER_FEED_KEY ?? feedKey,
       WEATHER_FEED_CRON: process.env.WEATHER_FEED_CRON ?? '*/30 * * * *',
@@ -168,13 +174,12 @@ try {
     void stopAll(signal ? 1 : (code ?? 1)); // 0 when it stopped normally (it got the terminal's Ctrl-C too)
   });
   saveState();
-  await waitForHealth(`${appUrl}/api/health`);
+  await waitForHealth(`http://127.0.0.1:${ports.app}/api/health`);
   console.log(`
 Broodcast is running (set-up took ${((Date.now() - started) / 1000).toFixed(1)} s)
   app:          ${appUrl}
   mail catcher: http://127.0.0.1:${ports.mailWeb}
-  demo sign-ins (password ${DEMO_PASSWORD}):
-${DEMO_USERS.map((u) => `    ${u.role.padEnd(15)} ${u.email}`).join('\n')}
+${signInLines(setup)}
 Press Ctrl-C to stop; the data stays for the next start.
 `);
 } catch (err) {
@@ -182,6 +187,13 @@ Press Ctrl-C to stop; the data stays for the next start.
     console.error(err instanceof Error ? err.message : err);
     await stopAll(1);
   }
+}
+
+/** The banner's sign-in part: the demo's people, or the first admin's one-time link, or nothing to add. */
+function signInLines(setup: { link: string; email: string } | null): string {
+  if (withDemo) return `  demo sign-ins (password ${DEMO_PASSWORD}):\n${DEMO_USERS.map((u) => `    ${u.role.padEnd(15)} ${u.email}`).join('\n')}`;
+  if (setup) return `  first admin:  open this one-time link to choose the password of ${setup.email}\n                ${setup.link}\n                (it works once, for 72 hours; the next start prints a new one until an admin has a password)`;
+  return '  sign in with your admin account';
 }
 
 async function waitForHealth(healthUrl: string) {

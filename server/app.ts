@@ -11,6 +11,7 @@ import { authRoutes } from './auth/auth.routes';
 import { AuthService } from './auth/auth.service';
 import { sessionMiddleware } from './auth/session.middleware';
 import { districtsRoutes } from './districts/districts.routes';
+import { setupRoutes } from './setup/setup.routes';
 import { importsRoutes } from './districts/imports.routes';
 import { healthRoutes } from './health/health.routes';
 import { csrfGuard } from './http/csrf';
@@ -71,6 +72,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...usersRoutes(ctx),
     ...districtsRoutes(ctx),
     ...importsRoutes(ctx),
+    ...setupRoutes(ctx),
     ...weatherRoutes(ctx),
     ...casesRoutes(ctx),
     ...seasonRoutes(ctx),

@@ -65,6 +65,11 @@ export const configSchema = z.object({
   WEATHER_PLAUS_HISTORY_YEARS: z.coerce.number().int().min(1).max(100).default(15),
   WEATHER_QC_NEIGHBOUR_KM: z.coerce.number().positive().default(150),
   WEATHER_IDW_STATIONS: z.coerce.number().int().min(1).max(10).default(3),
+  /**
+   * The farthest a station may be from a district's centre and still feed its interpolated series
+   * (docs/weather-intake.md § District series; common practice: a plausibility bound, not a published figure).
+   */
+  WEATHER_IDW_MAX_KM: z.coerce.number().positive().max(5000).default(300),
   /** How often a running intake reports its progress (and that it is alive), in milliseconds. */
   WEATHER_HEARTBEAT_MS: z.coerce.number().int().min(10).max(10_000).default(1000),
   /** An upload whose process has not touched it for this long is marked failed. */

@@ -115,6 +115,6 @@ export function authRoutes(ctx: AppContext, auth: AuthService) {
   ];
 }
 
-function presentMe({ user, districts }: NonNullable<Awaited<ReturnType<UsersRepository['findWithDistricts']>>>) {
-  return meResponse.parse({ id: user.id, email: user.email, displayName: user.displayName, role: user.role, districts, preferences: preferencesOf(user) });
+function presentMe({ user, districts, regions }: NonNullable<Awaited<ReturnType<UsersRepository['findWithDistricts']>>>) {
+  return meResponse.parse({ id: user.id, email: user.email, displayName: user.displayName, role: user.role, districts, regions, preferences: preferencesOf(user) });
 }

@@ -11,6 +11,7 @@ export function presentBoard(records: BoardRowRecord[]): BoardResponse {
       code: r.code,
       name: r.name,
       isDemo: r.is_demo,
+      region: r.region_id ? { id: r.region_id, code: r.region_code ?? '', name: r.region_name ?? '' } : null,
       tier: (r.tier ?? 'baseline') as LadderRow['tier'],
       tierLow: (r.tier_low ?? r.tier ?? 'baseline') as LadderRow['tier'],
       tierHigh: (r.tier_high ?? r.tier ?? 'baseline') as LadderRow['tier'],

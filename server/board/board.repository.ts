@@ -5,6 +5,9 @@ export interface BoardRowRecord {
   code: string;
   name: string;
   is_demo: boolean;
+  region_id: string | null;
+  region_code: string | null;
+  region_name: string | null;
   epi_year: number | null;
   epi_week: number | null;
   as_of: string | null;
@@ -30,11 +33,13 @@ export interface BoardRowRecord {
 export class BoardRepository {
   constructor(private readonly ds: DataSource) {}
 
-  /** Changes whenever a run writes tiers or a district is added: the board cache's key. */
+  /** Changes whenever a run writes tiers, a district is added or moves region, or a region changes: the board cache's key. */
   async version(): Promise<string> {
     const [row] = await this.ds.query(
       `SELECT (SELECT coalesce(max(computed_at)::text, '') FROM district_tiers) || '|' ||
-              (SELECT count(*)::text || ':' || coalesce(max(created_at)::text, '') FROM districts) AS v`,
+              (SELECT count(*)::text || ':' || coalesce(max(created_at)::text, '') || ':' || coalesce(sum(hashtext(coalesce(region_id::text, ''))), 0)::text
+                 FROM districts) || '|' ||
+              (SELECT md5(coalesce(string_agg(id::text || code || name, ',' ORDER BY id), '')) FROM regions) AS v`,
     );
     return row.v;
   }
@@ -43,7 +48,7 @@ export class BoardRepository {
   async rows(): Promise<BoardRowRecord[]> {
     return this.ds.query(
       `WITH latest AS (SELECT epi_year, epi_week FROM district_tiers ORDER BY epi_year DESC, epi_week DESC LIMIT 1)
-       SELECT d.id AS district_id, d.code, d.name, d.is_demo, t.epi_year, t.epi_week, to_char(t.as_of, 'YYYY-MM-DD') AS as_of,
+       SELECT d.id AS district_id, d.code, d.name, d.is_demo, r.id AS region_id, r.code AS region_code, r.name AS region_name, t.epi_year, t.epi_week, to_char(t.as_of, 'YYYY-MM-DD') AS as_of,
               t.computed_at, t.tier, t.tier_low, t.tier_high, t.score, t.confidence, t.leading_driver, t.changed_driver,
               t.cases_this_week, t.cases_epi_year, t.cases_epi_week,
               (SELECT json_agg(json_build_object('code', x.code, 'name', x.name) ORDER BY x.name) FROM diseases x
@@ -51,6 +56,7 @@ export class BoardRepository {
               t.channel_zone, to_char(t.latest_weather, 'YYYY-MM-DD') AS latest_weather, t.profile_id,
               p.tier AS prev_tier, p.score AS prev_score
          FROM districts d
+         LEFT JOIN regions r ON r.id = d.region_id
          LEFT JOIN latest ON true
          LEFT JOIN district_tiers t ON t.district_id = d.id AND t.epi_year = latest.epi_year AND t.epi_week = latest.epi_week
          LEFT JOIN LATERAL (

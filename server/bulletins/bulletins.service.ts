@@ -85,9 +85,14 @@ export class BulletinsService {
       followed.push(row.districtId);
       data.set(row.districtId, (await this.reader.read(row.districtId, board))!);
     }
+    const regions: { name: string }[] = (p.regionIds ?? []).length
+      ? await this.ctx.ds.query(`SELECT name FROM regions WHERE id = ANY($1::uuid[]) ORDER BY name`, [p.regionIds])
+      : [];
     const g = digestData({
-      region: this.ctx.config.REGION_NAME, epiYear: board.epiYear, epiWeek: board.epiWeek, role: p.role,
+      region: regions.length ? regions.map((r) => r.name).join(', ') : this.ctx.config.REGION_NAME,
+      epiYear: board.epiYear, epiWeek: board.epiWeek, role: p.role,
       followedIds: followed, assigned: p.districtIds, data, board: board.rows,
+      scope: regions.length ? new Set(p.districtIds) : null,
     });
     const v = await renderDigest(g, lang);
     const footer = digestFooter(g.followed, '#', '#', lang);
@@ -154,7 +159,17 @@ export class BulletinsService {
         .map((r: { user_id: string }) => r.user_id),
     );
     const assigned = new Map<string, string[]>();
-    for (const r of (await this.ctx.ds.query(`SELECT user_id, district_id FROM user_districts WHERE user_id = ANY($1::uuid[])`, [[...followers.keys()]])) as { user_id: string; district_id: string }[])
+    // The regions each follower is scoped to: their digest's ranking covers those regions, named in it (issue 17).
+    const regionsOf = new Map<string, string[]>();
+    for (const r of (await this.ctx.ds.query(
+      `SELECT ur.user_id, r.name FROM user_regions ur JOIN regions r ON r.id = ur.region_id WHERE ur.user_id = ANY($1::uuid[]) ORDER BY r.name`,
+      [[...followers.keys()]])) as { user_id: string; name: string }[])
+      regionsOf.set(r.user_id, [...(regionsOf.get(r.user_id) ?? []), r.name]);
+    // A user's assigned districts: their own and every district of their regions (issue 17).
+    for (const r of (await this.ctx.ds.query(
+      `SELECT user_id, district_id FROM user_districts WHERE user_id = ANY($1::uuid[])
+       UNION SELECT ur.user_id, d.id FROM user_regions ur JOIN districts d ON d.region_id = ur.region_id WHERE ur.user_id = ANY($1::uuid[])`,
+      [[...followers.keys()]])) as { user_id: string; district_id: string }[])
       assigned.set(r.user_id, [...(assigned.get(r.user_id) ?? []), r.district_id]);
     // People who follow the same districts in the same layout and language read the same digest: render it once.
     const rendered = new Map<string, Promise<{ g: DigestData; v: DigestVersion }>>();
@@ -162,11 +177,15 @@ export class BulletinsService {
       if (sent.has(r.userId)) continue;
       try {
         this.recipientHook?.(r.userId);
+        const regionNames = regionsOf.get(r.userId) ?? [];
         const g = digestData({
-          region: this.ctx.config.REGION_NAME, epiYear: board.epiYear, epiWeek: board.epiWeek, role: r.role,
+          region: regionNames.length ? regionNames.join(', ') : this.ctx.config.REGION_NAME,
+          epiYear: board.epiYear, epiWeek: board.epiWeek, role: r.role,
           followedIds: districtIds, assigned: assigned.get(r.userId) ?? [], data, board: board.rows,
+          scope: regionNames.length ? new Set(assigned.get(r.userId) ?? []) : null,
         });
-        const key = `${g.layout}|${r.language}|${g.detailed.map((d) => d.district.id).join(',')}|${districtIds.join(',')}`;
+        const scopeKey = regionNames.length ? [...(assigned.get(r.userId) ?? [])].sort().join(',') : '';
+        const key = `${g.layout}|${r.language}|${g.region}|${scopeKey}|${g.detailed.map((d) => d.district.id).join(',')}|${districtIds.join(',')}`;
         if (!rendered.has(key)) rendered.set(key, renderDigest(g, r.language).then((v) => ({ g, v })));
         const version = await rendered.get(key)!;
         const n = await this.writeDigest(actor, r, version.g, version.v);

@@ -144,6 +144,11 @@ export function digestData(input: {
   assigned: string[];
   data: Map<string, BulletinData>;
   board: { districtId: string; rank: number; code: string; name: string; tier: Tier; score: number; confidence: string; tierChange: number | null }[];
+  /**
+   * For a person scoped to regions (issue 17): the districts of their regions and their own. The ranking then
+   * covers these only, ranked among themselves, and `region` names their regions.
+   */
+  scope?: ReadonlySet<string> | null;
 }): DigestData {
   const followed = new Set(input.followedIds);
   const ordered = input.board.filter((r) => followed.has(r.districtId) && input.data.has(r.districtId));
@@ -160,7 +165,8 @@ export function digestData(input: {
     followed: ordered.length,
     followedIds: ordered.map((r) => r.districtId),
     detailed: detailRows.map((r) => input.data.get(r.districtId)!),
-    ranking: input.board.map((r) => ({ rank: r.rank, code: r.code, name: r.name, tier: r.tier, score: r.score, confidence: r.confidence, isThis: followed.has(r.districtId) })),
+    ranking: (input.scope ? input.board.filter((r) => input.scope!.has(r.districtId)) : input.board)
+      .map((r, i) => ({ rank: input.scope ? i + 1 : r.rank, code: r.code, name: r.name, tier: r.tier, score: r.score, confidence: r.confidence, isThis: followed.has(r.districtId) })),
     changes: changed.map((r) => ({ name: r.name, code: r.code, from: previousTier(r), to: r.tier })),
   };
 }

@@ -24,13 +24,18 @@ export interface Recipient {
   role: Role;
 }
 
+/** Whether user `u` is assigned district $1: one of their own districts, or a district of one of their regions (issue 17). */
+const ASSIGNED_SQL = `(EXISTS (SELECT 1 FROM user_districts ud WHERE ud.user_id = u.id AND ud.district_id = $1)
+   OR EXISTS (SELECT 1 FROM user_regions ur JOIN districts rd ON rd.region_id = ur.region_id WHERE ur.user_id = u.id AND rd.id = $1))`;
+
 /**
  * The role defaults of DESIGN.md §2 for a user who has chosen nothing yet: health officers and
- * supervisors receive every district, epidemiologists and community workers their assigned ones, and
- * admins nothing (they subscribe on the preferences page).
+ * supervisors receive every district (or, when scoped to regions, the districts of their regions and their
+ * own), epidemiologists and community workers their assigned ones (own districts and those of their
+ * regions), and admins nothing (they subscribe on the preferences page).
  */
-const DEFAULT_SQL = `(u.role IN ('officer', 'supervisor')
-   OR (u.role IN ('epidemiologist', 'worker') AND EXISTS (SELECT 1 FROM user_districts ud WHERE ud.user_id = u.id AND ud.district_id = $1)))`;
+const DEFAULT_SQL = `((u.role IN ('officer', 'supervisor') AND (NOT EXISTS (SELECT 1 FROM user_regions ur WHERE ur.user_id = u.id) OR ${ASSIGNED_SQL}))
+   OR (u.role IN ('epidemiologist', 'worker') AND ${ASSIGNED_SQL}))`;
 
 /**
  * Who receives `kind` for a district now, in the caller's transaction: active accounts whose invitation
@@ -43,7 +48,7 @@ export async function recipientsOf(manager: EntityManager, districtId: string, k
         AND CASE WHEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id)
                  THEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id AND s.district_id = $1 AND s.active AND $2 = ANY (s.kinds))
                       -- a community worker's rows count only for a district they are (still) assigned to
-                      AND (u.role <> 'worker' OR EXISTS (SELECT 1 FROM user_districts ud WHERE ud.user_id = u.id AND ud.district_id = $1))
+                      AND (u.role <> 'worker' OR ${ASSIGNED_SQL})
                  ELSE ${DEFAULT_SQL} END
       ORDER BY u.email`,
     [districtId, kind],
@@ -74,6 +79,15 @@ export function subscriberLinks(config: Config, userId: string, districtId: stri
   };
 }
 
+/** A user's assigned districts (their own and every district of their regions) and whether they are scoped to regions. */
+async function assignedOf(manager: EntityManager, userId: string): Promise<{ assigned: string[]; regional: boolean }> {
+  const [row] = await manager.query(
+    `SELECT ARRAY(SELECT district_id FROM user_districts WHERE user_id = $1
+                  UNION SELECT d.id FROM user_regions ur JOIN districts d ON d.region_id = ur.region_id WHERE ur.user_id = $1) AS assigned,
+            EXISTS (SELECT 1 FROM user_regions WHERE user_id = $1) AS regional`, [userId]);
+  return { assigned: row.assigned as string[], regional: row.regional as boolean };
+}
+
 /** What an unsubscribe token stops: all mail for one district, or the weekly bulletin everywhere. */
 type UnsubscribeScope = { userId: string; districtId: string } | { userId: string; districtId: null };
 
@@ -86,7 +100,7 @@ export class SubscriptionsService {
     const rows = await this.ctx.ds.getRepository(SubscriptionEntity).findBy({ userId: p.userId });
     const chosen = rows.length > 0;
     const byDistrict = new Map(rows.map((r) => [r.districtId, r]));
-    const defaults = this.defaultFor(p.role, p.districtIds);
+    const defaults = this.defaultFor(p.role, p.districtIds, (p.regionIds ?? []).length > 0);
     return {
       source: chosen ? 'chosen' : 'default',
       email: p.email,
@@ -145,8 +159,8 @@ export class SubscriptionsService {
   private async receiving(manager: EntityManager, scope: UnsubscribeScope, role: Role): Promise<boolean> {
     const rows = await manager.findBy(SubscriptionEntity, { userId: scope.userId });
     if (rows.length === 0) {
-      const assigned: string[] = (await manager.query(`SELECT district_id FROM user_districts WHERE user_id = $1`, [scope.userId])).map((r: { district_id: string }) => r.district_id);
-      const defaults = this.defaultFor(role, assigned);
+      const { assigned, regional } = await assignedOf(manager, scope.userId);
+      const defaults = this.defaultFor(role, assigned, regional);
       if (scope.districtId) return defaults(scope.districtId).length > 0;
       return (await this.visibleDistricts(manager, scope.userId, role)).some((d) => defaults(d.id).includes('bulletin'));
     }
@@ -176,8 +190,8 @@ export class SubscriptionsService {
       let rows = await manager.findBy(SubscriptionEntity, { userId: user.id });
       if (rows.length === 0) {
         // Nothing chosen yet: write the role default as explicit rows first, so only what the token names changes.
-        const assigned: string[] = (await manager.query(`SELECT district_id FROM user_districts WHERE user_id = $1`, [user.id])).map((r: { district_id: string }) => r.district_id);
-        const defaults = this.defaultFor(user.role, assigned);
+        const { assigned, regional } = await assignedOf(manager, user.id);
+        const defaults = this.defaultFor(user.role, assigned, regional);
         const visible = await this.visibleDistricts(manager, user.id, user.role);
         await this.writeAll(manager, user.id, visible.map((d) => ({ districtId: d.id, kinds: defaults(d.id) })));
         rows = await manager.findBy(SubscriptionEntity, { userId: user.id });
@@ -232,15 +246,23 @@ export class SubscriptionsService {
     return this.describe(token);
   }
 
-  private defaultFor(role: Role, assigned: string[]) {
+  /** The same rule as DEFAULT_SQL; `regional`: the user is scoped to at least one region. */
+  private defaultFor(role: Role, assigned: string[], regional: boolean) {
     return (districtId: string): MailKind[] =>
-      role === 'officer' || role === 'supervisor' || ((role === 'epidemiologist' || role === 'worker') && assigned.includes(districtId)) ? [...ALL_KINDS] : [];
+      ((role === 'officer' || role === 'supervisor') && (!regional || assigned.includes(districtId))) ||
+      ((role === 'epidemiologist' || role === 'worker') && assigned.includes(districtId))
+        ? [...ALL_KINDS]
+        : [];
   }
 
   /** Community workers may receive their own districts only; everybody else any district. */
   private async visibleDistricts(manager: EntityManager, userId: string, role: Role): Promise<{ id: string; code: string; name: string }[]> {
     return role === 'worker'
-      ? manager.query(`SELECT d.id, d.code, d.name FROM districts d JOIN user_districts ud ON ud.district_id = d.id WHERE ud.user_id = $1 ORDER BY d.code`, [userId])
+      ? manager.query(
+          `SELECT d.id, d.code, d.name FROM districts d
+            WHERE d.id IN (SELECT district_id FROM user_districts WHERE user_id = $1)
+               OR d.region_id IN (SELECT region_id FROM user_regions WHERE user_id = $1)
+            ORDER BY d.code`, [userId])
       : manager.query(`SELECT id, code, name FROM districts ORDER BY code`);
   }
 

@@ -50,9 +50,6 @@ function readCsv(buffer: Buffer, columns: readonly string[], optional: readonly 
 
 const num = (s: string | undefined) => (s === undefined || s === '' ? null : /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s) ? Number(s) : NaN);
 
-/** The first issue of a zod result as a problem reason: "latitude: must be a number". */
-const zodReason = (issues: { path: PropertyKey[]; message: string }[]) => issues.map((i) => `${i.path.join('.') || 'row'}: ${i.message}`).join('; ');
-
 export class CsvImportsService {
   private readonly repo: DistrictImportRepository;
 
@@ -78,8 +75,8 @@ export class CsvImportsService {
         activeFrom: r.activeFrom ? r.activeFrom : null, activeTo: r.activeTo ? r.activeTo : null,
       };
       const parsed = stationCreateBody.safeParse(candidate);
-      if (!parsed.success) return problems.push({ index: line, code: code || null, rule: 'row_invalid', reason: capText(zodReason(parsed.error.issues)) });
-      if (seen.has(parsed.data.code)) return problems.push({ index: line, code, rule: 'code_repeated', reason: `the code is also on line ${seen.get(parsed.data.code)}` });
+      if (!parsed.success) return problems.push({ index: line, code: code || null, rule: 'row_invalid', params: fieldOf(parsed.error.issues) });
+      if (seen.has(parsed.data.code)) return problems.push({ index: line, code, rule: 'code_repeated', params: { line: seen.get(parsed.data.code)! } });
       seen.set(parsed.data.code, line);
       good.push({ line, ...parsed.data });
     });
@@ -92,7 +89,7 @@ export class CsvImportsService {
     await this.ctx.ds.transaction(async (m) => {
       const before = await this.repo.stations(m, good.map((g) => g.code));
       const ids = await this.repo.upsertStations(m, good);
-      const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS);
+      const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS, this.ctx.config.WEATHER_IDW_MAX_KM);
       await recomputeDistrictSeries(m, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
       if (touched.size) await m.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...touched]]);
       await recordAudits(m, good.map(({ line: _line, ...g }) => ({
@@ -118,11 +115,11 @@ export class CsvImportsService {
       const line = i + 2;
       const code = (r.district ?? '').trim().toUpperCase();
       const districtId = ids.get(code);
-      if (!districtId) return problems.push({ index: line, code: code || null, rule: 'unknown_district', reason: code ? 'no district has this code' : 'the district is empty' });
+      if (!districtId) return problems.push({ index: line, code: code || null, rule: code ? 'unknown_district' : 'district_missing', params: {} });
       const parsed = populationBody.safeParse({ year: num(r.year), population: num(r.population) });
-      if (!parsed.success) return problems.push({ index: line, code, rule: 'row_invalid', reason: capText(zodReason(parsed.error.issues)) });
+      if (!parsed.success) return problems.push({ index: line, code, rule: 'row_invalid', params: fieldOf(parsed.error.issues) });
       const key = `${districtId}|${parsed.data.year}`;
-      if (seen.has(key)) return problems.push({ index: line, code, rule: 'row_repeated', reason: `this district and year are also on line ${seen.get(key)}` });
+      if (seen.has(key)) return problems.push({ index: line, code, rule: 'row_repeated', params: { line: seen.get(key)! } });
       seen.set(key, line);
       good.push({ line, code, districtId, ...parsed.data });
     });
@@ -155,4 +152,9 @@ export class CsvImportsService {
       preview,
     };
   }
+}
+
+/** The column a refused CSV row fails on (the client words `row_invalid` with it). */
+function fieldOf(issues: readonly { path: PropertyKey[] }[]): { field: string } {
+  return { field: capText(issues[0]?.path.map(String).join('.') || 'row', 64) };
 }

@@ -123,8 +123,9 @@ export class DistrictImportService {
         [{ path: 'file', message: `holds more than ${DISTRICT_IMPORT_MAX_FEATURES} features` }], { limit: DISTRICT_IMPORT_MAX_FEATURES, count: features.length });
 
     const problems: ImportProblem[] = [];
-    const problem = (index: number, code: string | null, rule: string, reason: string) =>
-      problems.push({ index, code: code === null ? null : capText(code, 64), rule, reason: capText(reason) });
+    // A problem is a rule code with parameters; the client words it in the person's language (never English here).
+    const problem = (index: number, code: string | null, rule: string, params: ImportProblem['params'] = {}) =>
+      problems.push({ index, code: code === null ? null : capText(code, 64), rule, params });
     const properties = new Set<string>();
     const read: ReadFeature[] = [];
     const seen = new Map<string, number>();
@@ -135,38 +136,38 @@ export class DistrictImportService {
     features.forEach((f, index) => {
       const isPolygon = !!f && typeof f === 'object' && (f.geometry?.type === 'Polygon' || f.geometry?.type === 'MultiPolygon');
       const simplified = isPolygon ? display[displayAt++] ?? null : null;
-      if (!f || typeof f !== 'object' || f.type !== 'Feature') return problem(index, null, 'not_a_feature', 'is not a GeoJSON Feature');
+      if (!f || typeof f !== 'object' || f.type !== 'Feature') return problem(index, null, 'not_a_feature');
       for (const k of Object.keys(f.properties ?? {})) if (properties.size < 200) properties.add(k);
       const code = text(prop(f as never, fields.codeProperty)).toUpperCase();
-      if (!code) return problem(index, null, 'code_missing', `has no "${fields.codeProperty}" property`);
-      if (!DISTRICT_CODE_PATTERN.test(code)) return problem(index, code, 'code_invalid', 'the code must be 2–16 capital letters, digits or hyphens');
-      if (seen.has(code)) return problem(index, code, 'code_repeated', `the code is also used by feature ${seen.get(code)}`);
+      if (!code) return problem(index, null, 'code_missing', { property: capText(fields.codeProperty, 64) });
+      if (!DISTRICT_CODE_PATTERN.test(code)) return problem(index, code, 'code_invalid');
+      if (seen.has(code)) return problem(index, code, 'code_repeated', { feature: seen.get(code)! });
       seen.set(code, index);
       const name = text(prop(f as never, fields.nameProperty));
-      if (!name) return problem(index, code, 'name_missing', `has no "${fields.nameProperty}" property`);
-      if (name.length > 120) return problem(index, code, 'name_too_long', 'the name is longer than 120 characters');
+      if (!name) return problem(index, code, 'name_missing', { property: capText(fields.nameProperty, 64) });
+      if (name.length > 120) return problem(index, code, 'name_too_long', { max: 120 });
       let regionCode: string | null = null;
       let regionName: string | null = null;
       if (fields.parentCodeProperty) {
         regionCode = text(prop(f as never, fields.parentCodeProperty)).toUpperCase();
-        if (!regionCode) return problem(index, code, 'region_missing', `has no "${fields.parentCodeProperty}" property`);
-        if (!REGION_CODE.test(regionCode)) return problem(index, code, 'region_code_invalid', 'the region code must be 1–32 capital letters, digits or hyphens');
+        if (!regionCode) return problem(index, code, 'region_missing', { property: capText(fields.parentCodeProperty ?? '', 64) });
+        if (!REGION_CODE.test(regionCode)) return problem(index, code, 'region_code_invalid');
         regionName = fields.parentNameProperty ? text(prop(f as never, fields.parentNameProperty)).slice(0, 120) || null : null;
       }
       let population: number | null = null;
       if (fields.populationProperty) {
         const raw = prop(f as never, fields.populationProperty);
         const n = typeof raw === 'number' ? raw : typeof raw === 'string' && /^\s*\d+\s*$/.test(raw) ? Number(raw) : NaN;
-        if (!Number.isInteger(n) || n < 0 || n > 2_000_000_000) return problem(index, code, 'population_invalid', `"${fields.populationProperty}" is not a whole number of people`);
+        if (!Number.isInteger(n) || n < 0 || n > 2_000_000_000) return problem(index, code, 'population_invalid', { property: capText(fields.populationProperty ?? '', 64) });
         population = n;
       }
       const shape = polygonGeometry.safeParse(f.geometry);
-      if (!shape.success) return problem(index, code, 'geometry_invalid', `the geometry ${shape.error.issues[0]?.message ?? 'is not a Polygon or MultiPolygon'}`);
+      if (!shape.success) return problem(index, code, 'geometry_invalid');
       try {
         const checked = checkValidity(shape.data);
         read.push({ index, code, name, regionCode, regionName, population, geometry: checked.geometry, centre: checked.centre, display: simplified });
       } catch (err) {
-        if (err instanceof HttpError) return problem(index, code, err.code, err.message);
+        if (err instanceof HttpError) return problem(index, code, err.code, wordParams(err.params));
         throw err;
       }
     });
@@ -187,7 +188,7 @@ export class DistrictImportService {
         const swapped = around(index, lat, lon, 1, FAR_FLOOR_KM, (i: number) => refs[i].code !== r.code);
         if (swapped.length > 0) {
           swappedBad.add(r.code);
-          problem(r.index, r.code, 'boundary_coordinates_swapped', `the boundary lies more than ${FAR_FLOOR_KM} km from every other district, and with longitude and latitude swapped it would lie among them (GeoJSON is longitude, latitude)`);
+          problem(r.index, r.code, 'boundary_coordinates_swapped', { limitKm: FAR_FLOOR_KM });
         }
       }
       if (swappedBad.size) read.splice(0, read.length, ...read.filter((r) => !swappedBad.has(r.code)));
@@ -232,7 +233,7 @@ export class DistrictImportService {
       }
       // Stations are re-placed in the new boundaries; the changed districts' series are recomputed and their
       // run state cleared, as for one boundary (DistrictsService.setBoundary).
-      const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS);
+      const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS, this.ctx.config.WEATHER_IDW_MAX_KM);
       await recomputeDistrictSeries(m, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
       await m.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...ids.values()]]);
       await recordAudits(m, read.map((r) => ({
@@ -249,4 +250,11 @@ export class DistrictImportService {
     });
     return report;
   }
+}
+
+/** An error's parameters as an import problem's (strings and numbers only; anything else is left out). */
+function wordParams(params: Record<string, unknown> | undefined): ImportProblem['params'] {
+  const out: ImportProblem['params'] = {};
+  for (const [k, v] of Object.entries(params ?? {})) if (typeof v === 'string' || typeof v === 'number') out[k] = v;
+  return out;
 }

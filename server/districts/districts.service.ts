@@ -123,7 +123,7 @@ export class DistrictsService {
           : [];
       if (!opts.confirm) checkPlausibility(centre, refs);
       await manager.update(DistrictEntity, { id }, { boundary: geometry, centroidLon: centre[0], centroidLat: centre[1] });
-      const touched = await refreshAssignments(manager, this.ctx.config.WEATHER_IDW_STATIONS);
+      const touched = await refreshAssignments(manager, this.ctx.config.WEATHER_IDW_STATIONS, this.ctx.config.WEATHER_IDW_MAX_KM);
       touched.add(id);
       await recomputeDistrictSeries(manager, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
       await manager.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...touched]]);

@@ -33,7 +33,7 @@ async function answer<T>(res: Response, run: () => Promise<T>): Promise<T | unde
         code: 'import_rejected',
         message: err.message,
         params: { problems: err.count },
-        fields: err.report.problems.slice(0, 20).map((p) => ({ path: `item ${p.index}${p.code ? ` (${p.code})` : ''}`, message: p.reason })),
+        fields: err.report.problems.slice(0, 20).map((p) => ({ path: `item ${p.index}${p.code ? ` (${p.code})` : ''}`, message: p.rule })),
       },
       report: err.report,
     });

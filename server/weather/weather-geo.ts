@@ -16,7 +16,7 @@ const km = (a: [number, number], b: [number, number]) => distance(point(a), poin
  * the `idwCount` nearest stations to its centroid with inverse-distance weights. Returns the districts
  * whose sources changed (their series must be recomputed).
  */
-export async function refreshAssignments(manager: EntityManager, idwCount: number): Promise<Set<string>> {
+export async function refreshAssignments(manager: EntityManager, idwCount: number, maxKm = Number.POSITIVE_INFINITY): Promise<Set<string>> {
   const stations: StationPos[] = await manager.query('SELECT id, latitude, longitude, elevation FROM weather_stations');
   const districts: DistrictGeo[] = await manager.query('SELECT id, boundary, centroid_lat, centroid_lon FROM districts');
   const inside = new Map<string, string[]>();
@@ -58,6 +58,9 @@ export async function refreshAssignments(manager: EntityManager, idwCount: numbe
     } else if (stations.length) {
       const nearest = stations
         .map((s) => ({ s, d: km(centre, [s.longitude, s.latitude]) }))
+        // Only stations within WEATHER_IDW_MAX_KM feed a district: a district with none that near gets no
+        // interpolated series ("not enough data") rather than another climate's weather.
+        .filter((n) => n.d <= maxKm)
         .sort((a, b) => a.d - b.d)
         .slice(0, idwCount);
       const weights = idwWeights(nearest.map((n) => n.d));

@@ -354,7 +354,7 @@ export class WeatherIntakeService {
     await insertConflicts(manager, conflicts, upload.id);
     stage('write');
 
-    const touched = await refreshAssignments(manager, config.WEATHER_IDW_STATIONS);
+    const touched = await refreshAssignments(manager, config.WEATHER_IDW_STATIONS, config.WEATHER_IDW_MAX_KM);
     for (const d of await districtsUsingStations(manager, [...seenStations])) touched.add(d);
     await recomputeDistrictSeries(manager, touched, config.WEATHER_FILL_MAX_DAYS);
     stage('series');

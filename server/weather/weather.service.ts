@@ -92,7 +92,7 @@ export class WeatherService {
 
   /** A station moved, appeared or changed: re-place stations in districts and recompute the districts concerned. */
   private async afterStationChange(manager: Parameters<typeof refreshAssignments>[0]) {
-    const touched = await refreshAssignments(manager, this.ctx.config.WEATHER_IDW_STATIONS);
+    const touched = await refreshAssignments(manager, this.ctx.config.WEATHER_IDW_STATIONS, this.ctx.config.WEATHER_IDW_MAX_KM);
     await recomputeDistrictSeries(manager, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
   }
 

@@ -39,6 +39,8 @@ export const meResponse = z.object({
   displayName: z.string(),
   role: z.enum(ROLES),
   districts: z.array(districtRef),
+  /** The regions the user is scoped to (their districts are in their session too). */
+  regions: z.array(districtRef).default([]),
   /** Language and display units (a server answer without them reads as the defaults). */
   preferences: preferencesDto.default({ ...DEFAULT_PREFERENCES }),
 });

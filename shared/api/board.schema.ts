@@ -24,6 +24,8 @@ export const ladderRow = z.object({
   code: z.string(),
   name: z.string(),
   isDemo: z.boolean(),
+  /** The region the district belongs to (one level above it), or null. */
+  region: z.object({ id: uuid, code: z.string(), name: z.string() }).nullable(),
   rank: z.number().int(),
   tier,
   tierLow: tier,

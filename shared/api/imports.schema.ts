@@ -40,9 +40,10 @@ export const csvImportFields = z.strictObject({ reason: z.string().trim().max(50
 export const importProblem = z.object({
   index: z.number().int(),
   code: z.string().nullable(),
-  /** A stable rule code the client words (e.g. `code_invalid`, `boundary_self_intersecting`). */
+  /** A stable rule code the client words in the person's language (e.g. `code_invalid`, `boundary_self_intersecting`). */
   rule: z.string(),
-  reason: z.string(),
+  /** The values the client words the rule with (a property name, another feature's index or line, distances). */
+  params: z.record(z.string(), z.union([z.string(), z.number()])).default({}),
 });
 export type ImportProblem = z.infer<typeof importProblem>;
 

@@ -12,4 +12,7 @@ export const queryKeys = {
     all: ['districts'] as const,
     detail: (id: string) => ['districts', id] as const,
   },
+  regions: {
+    all: ['regions'] as const,
+  },
 };

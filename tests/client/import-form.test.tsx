@@ -13,7 +13,7 @@ async function chooseFile(input: HTMLInputElement, name: string, text: string) {
 
 const report = (dryRun: boolean) => ({
   dryRun, total: 3, created: 2, updated: 0, skipped: 1, problemsNotListed: 0,
-  problems: [{ index: 2, code: 'C-3', rule: 'boundary_self_intersecting', reason: 'The boundary crosses itself' }],
+  problems: [{ index: 2, code: 'C-3', rule: 'boundary_self_intersecting', params: { points: 2, lon: 10.5, lat: 20.25 } }],
   preview: [{ index: 0, code: 'C-1', name: 'First', action: 'create' }, { index: 1, code: 'C-2', name: 'Second', action: 'create' }],
   regions: { created: 1, updated: 0 }, properties: ['ID', 'NAME'],
 });
@@ -40,7 +40,8 @@ describe('the import on the Districts screen', () => {
     await waitFor(() => expect(form.textContent).toContain('2 would be created'));
     calls.push('dry');
     expect(form.textContent).toContain('Second');
-    expect(form.textContent).toContain('Item 2 (C-3): The boundary crosses itself');
+    // The server sends the rule and its parameters; the panel words them in the person's language.
+    expect(form.textContent).toContain('Item 2 (C-3): the boundary crosses itself (2 crossing points, the first near 10.5, 20.25)');
     expect(form.textContent).toContain('Properties found in the file: ID, NAME');
     expect(getButton(form, 'Import').disabled).toBe(true);
     await click(getByLabel(form, 'Import the other items and leave these out'));
@@ -52,5 +53,19 @@ describe('the import on the Districts screen', () => {
     const body = (posts[1][1] as RequestInit).body as FormData;
     expect(body.get('codeProperty')).toBe('ID');
     expect(body.get('nameProperty')).toBe('NAME');
+  });
+});
+
+describe('import problems in four languages', () => {
+  it('when a problem comes as a rule with parameters, then each language words it, a CSV line names its line, and an unknown rule shows its code', async () => {
+    const { i18n } = await import('../../src/i18n');
+    const { problemText } = await import('../../src/features/districts/components/import.form');
+    const t = (lng: string) => i18n.getFixedT(lng);
+    expect(problemText(t('en'), { rule: 'code_repeated', params: { feature: 4 } })).toBe('the code is also used by item 4');
+    expect(problemText(t('en'), { rule: 'code_repeated', params: { line: 7 } })).toBe('the code is also on line 7');
+    expect(problemText(t('fr'), { rule: 'row_invalid', params: { field: 'latitude' } })).toBe('la valeur de «\u202flatitude\u202f» n’est pas valide');
+    expect(problemText(t('es'), { rule: 'unknown_district', params: {} })).toBe('ningún distrito tiene este código');
+    expect(problemText(t('pt'), { rule: 'name_too_long', params: { max: 120 } })).toBe('o nome tem mais de 120 caracteres');
+    expect(problemText(t('en'), { rule: 'a_new_rule', params: {} })).toBe('it breaks the rule “a_new_rule”');
   });
 });

@@ -9,6 +9,7 @@ import { CreateDistrictForm } from './components/create-district.form';
 import { ImportForm } from './components/import.form';
 import { DemoDataLabel } from './components/demo-data-label';
 import { DistrictsTable } from './components/districts.table';
+import { RemoveDemoPanel } from './components/remove-demo.panel';
 import { AssignProfilesForm } from '../profiles/components/assign-profiles.form';
 
 export function DistrictsAdminPage() {
@@ -40,6 +41,11 @@ export function DistrictsAdminPage() {
         <div className="card">
           <CreateDistrictForm />
         </div>
+        {districts.data?.some((d) => d.isDemo) ? (
+          <div className="card">
+            <RemoveDemoPanel />
+          </div>
+        ) : null}
       </div>
     </section>
   );

@@ -1,4 +1,4 @@
-import { lazy, Suspense, useEffect, useState } from 'react';
+import { lazy, Suspense, useEffect, useId, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Trans, useTranslation } from 'react-i18next';
 import { PageHeading } from '../../components/page-heading';
@@ -9,6 +9,8 @@ import { DemoDataLabel } from '../districts/components/demo-data-label';
 import { FirstRunTour, TourButton, useFirstRunTour } from '../help/first-run-tour';
 import { useBoard } from './api/board.api';
 import { LadderTable } from './components/ladder.table';
+import { RegionSummary } from './components/region-summary';
+import { groupByRegion, rowsInRegionOrder, rowsOfRegion, type RegionChoice } from './region-groups';
 import { useLadderWords } from './ladder-format';
 import { WorkerHome } from './worker-home';
 import './ladder.css';
@@ -42,12 +44,27 @@ function useAfterPaint(ready: boolean): boolean {
 
 /** The home screen: districts ranked by this week's tier, beside the region map, with the cautions in view. */
 export function LadderPage() {
-  const { t } = useTranslation('ladder');
+  const { t, i18n } = useTranslation('ladder');
   const words = useLadderWords();
   const board = useBoard();
   const me = useSession();
   const tour = useFirstRunTour(me.id, !board.isPending);
-  const rows = board.data?.rows ?? EMPTY;
+  const allRows = board.data?.rows ?? EMPTY;
+  const id = useId();
+  const myRegionIds = useMemo(() => (me.regions ?? []).map((r) => r.id), [me.regions]);
+  // A person scoped to regions opens the Ladder on their regions; everyone else on every district.
+  const [choice, setChoice] = useState<RegionChoice>(myRegionIds.length ? 'mine' : 'all');
+  const [grouped, setGrouped] = useState(false);
+  const regions = useMemo(() => {
+    const seen = new Map<string, { id: string; name: string }>();
+    for (const r of allRows) if (r.region && !seen.has(r.region.id)) seen.set(r.region.id, { id: r.region.id, name: r.region.name });
+    return [...seen.values()].sort((a, b) => a.name.localeCompare(b.name, i18n.language));
+  }, [allRows, i18n.language]);
+  const hasRegions = regions.length > 0;
+  const someWithout = useMemo(() => allRows.some((r) => r.region === null), [allRows]);
+  const chosen = useMemo(() => (hasRegions ? rowsOfRegion(allRows, choice, myRegionIds) : allRows), [allRows, choice, myRegionIds, hasRegions]);
+  const rows = useMemo(() => (hasRegions && grouped ? rowsInRegionOrder(chosen, i18n.language) : chosen), [chosen, grouped, hasRegions, i18n.language]);
+  const groups = useMemo(() => (hasRegions ? groupByRegion(chosen, i18n.language) : []), [chosen, hasRegions, i18n.language]);
   const tablePainted = useAfterPaint(board.isSuccess);
   const week = board.data ? words.week(board.data.epiYear, board.data.epiWeek) : null;
   const lead = board.data?.asOf
@@ -75,17 +92,48 @@ export function LadderPage() {
       ) : (
         <div className="grid gap-6">
           <div className="min-w-0" data-tour="ladder-table">
-            {rows.length === 0 && canUse(me.role, ['admin', 'officer']) ? (
+            {allRows.length === 0 && canUse(me.role, ['admin', 'officer']) ? (
               <FormMessage kind="info">
                 <Trans t={t} i18nKey="noTiersYet" components={{ run: <Link to="/season-runs" className="link" /> }} />
               </FormMessage>
             ) : null}
-            <LadderTable rows={rows} caption={week ? t('captionWeek', { week }) : t('caption')} />
+            {hasRegions ? <RegionSummary groups={groups} onChoose={setChoice} /> : null}
+            <LadderTable
+              key={grouped ? 'by-region' : 'by-rank'}
+              rows={rows}
+              showRegion={hasRegions}
+              caption={week ? t('captionWeek', { week }) : t('caption')}
+              toolbarStart={
+                hasRegions ? (
+                  <>
+                    <div className="field min-w-[10rem]">
+                      <label htmlFor={`${id}-region`} className="field-label">
+                        {t('region.filterLabel')}
+                      </label>
+                      <select id={`${id}-region`} className="input" value={choice} onChange={(e) => setChoice(e.currentTarget.value)}>
+                        <option value="all">{t('region.all')}</option>
+                        {myRegionIds.length ? <option value="mine">{t('region.mine')}</option> : null}
+                        {regions.map((r) => (
+                          <option key={r.id} value={r.id}>
+                            {r.name}
+                          </option>
+                        ))}
+                        {someWithout ? <option value="none">{t('region.none')}</option> : null}
+                      </select>
+                    </div>
+                    <label className="flex cursor-pointer items-center gap-2 pb-2">
+                      <input type="checkbox" className="checkbox" checked={grouped} onChange={(e) => setGrouped(e.currentTarget.checked)} />
+                      <span>{t('region.group')}</span>
+                    </label>
+                  </>
+                ) : null
+              }
+            />
           </div>
           <div className="min-w-0" data-tour="region-map">
             {tablePainted ? (
               <Suspense fallback={<RegionMapPending />}>
-                <RegionMap rows={rows} />
+                <RegionMap rows={rows} only={hasRegions && choice !== 'all' ? rows : undefined} />
               </Suspense>
             ) : (
               <RegionMapPending />

@@ -16,11 +16,17 @@ const RegionMapChart = lazy(() => import('./region-map-chart'));
  * the eye; the list under it gives every district as a link (keyboard and screen readers), and the Ladder
  * table is the same data as a table.
  */
-export function RegionMap({ rows }: { rows: LadderRow[] }) {
+export function RegionMap({ rows, only }: { rows: LadderRow[]; only?: LadderRow[] }) {
   const id = useId();
   const { t, i18n } = useTranslation('region-map');
   const words = useLadderWords();
-  const boundaries = useBoundaries();
+  const all = useBoundaries();
+  // With a region chosen on the Ladder, the map draws (and zooms to) that region's districts only.
+  const boundaries = useMemo(() => {
+    if (!only || !all.data) return all;
+    const keep = new Set(only.map((r) => r.districtId));
+    return { ...all, data: { ...all.data, features: all.data.features.filter((f) => keep.has(f.id)) } };
+  }, [all, only]);
   const byId = useMemo(() => new Map(rows.map((r) => [r.districtId, r])), [rows]);
   const listed = useMemo(
     () =>

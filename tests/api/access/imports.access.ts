@@ -6,4 +6,6 @@ export const importsAccess: AccessTable = {
   'POST /districts/import': ['admin'],
   'POST /districts/populations/import': ['admin'],
   'POST /weather/stations/import': ['admin'],
+  'GET /demo': ['admin'],
+  'POST /demo/remove': ['admin'],
 };

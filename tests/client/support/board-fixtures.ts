@@ -7,6 +7,7 @@ export const ladderRow = (n: number, over: Record<string, unknown> = {}) => ({
   code: `HV-${String(n).padStart(2, '0')}`,
   name: `District ${n}`,
   isDemo: true,
+  region: null,
   rank: n,
   tier: 'baseline',
   tierLow: 'baseline',

@@ -1,5 +1,7 @@
 import { useId, useRef, useState, type FormEvent } from 'react';
 import { useTranslation } from 'react-i18next';
+import type { TFunction } from 'i18next';
+import type { ImportProblem } from '../../../../shared/api/imports.schema';
 import type { DistrictImportReport } from '../../../../shared/api/imports.schema';
 import { FormMessage } from '../../../components/form';
 import { errorText } from '../../../lib/error-text';
@@ -99,7 +101,7 @@ export function ImportForm() {
               <p className="font-bold">{t('import.problems', { n: report.problems.length + report.problemsNotListed })}</p>
               <ul className="list-disc pl-5 text-sm">
                 {report.problems.slice(0, 50).map((p) => (
-                  <li key={`${p.index}-${p.rule}`}>{t('import.problem', { index: p.index, code: p.code ?? '—', reason: p.reason })}</li>
+                  <li key={`${p.index}-${p.rule}`}>{t('import.problem', { index: p.index, code: p.code ?? '—', reason: problemText(t, p) })}</li>
                 ))}
               </ul>
               <label className="mt-2 flex items-center gap-2 text-sm">
@@ -117,4 +119,14 @@ export function ImportForm() {
       ) : null}
     </form>
   );
+}
+
+/**
+ * An import problem in the person's language: the server sends only the rule code and its parameters. A CSV
+ * line's repeated code names a line, a feature's another feature; a rule this client does not know yet is
+ * still shown by its code.
+ */
+export function problemText(t: TFunction, p: Pick<ImportProblem, 'rule' | 'params'>): string {
+  const rule = p.rule === 'code_repeated' && 'line' in p.params ? 'code_repeated_csv' : p.rule;
+  return t([`districts:import.rules.${rule}`, 'districts:import.rules.other'], { ...p.params, rule: p.rule });
 }

@@ -91,6 +91,13 @@ function ladderColumns(w: LadderWords) {
         </span>
       ),
     }),
+    column.accessor((r) => r.region?.name ?? '', {
+      id: 'region',
+      header: t('region.columns.region'),
+      sortFn: 'alphanumeric',
+      meta: { label: t('region.columns.region'), csv: (r) => r.region?.name ?? '' },
+      cell: (c) => <span className="text-sm">{c.row.original.region?.name ?? '—'}</span>,
+    }),
     column.accessor('tier', {
       header: t('table.columns.tier'),
       sortFn: 'byTierThenScore',
@@ -247,7 +254,21 @@ const isNarrowScreen = () => typeof window !== 'undefined' && window.matchMedia?
  * The Ladder as a table: sortable by every column, one text filter, a column chooser, CSV of what is shown,
  * and a windowed body so thousands of districts scroll smoothly.
  */
-export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]; caption: ReactNode; toolbarExtra?: ReactNode }) {
+export function LadderTable({
+  rows,
+  caption,
+  toolbarExtra,
+  toolbarStart,
+  showRegion = false,
+}: {
+  rows: LadderRow[];
+  caption: ReactNode;
+  toolbarExtra?: ReactNode;
+  /** Controls before the text filter (the Ladder's region filter). */
+  toolbarStart?: ReactNode;
+  /** Whether the region column shows at first (districts belong to regions); on a phone it is one tap away. */
+  showRegion?: boolean;
+}) {
   const id = useId();
   const words = useLadderWords();
   const { t } = words;
@@ -265,7 +286,7 @@ export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]
     getColumnCanGlobalFilter: (c) => c.id === 'district',
     state: { globalFilter },
     // On a phone the Ladder opens with the columns that fit its width; the others are one tap away in "Columns".
-    initialState: { columnVisibility: isNarrowScreen() ? PHONE_HIDDEN_COLUMNS : {} },
+    initialState: { columnVisibility: isNarrowScreen() ? { ...PHONE_HIDDEN_COLUMNS, region: false } : { region: showRegion } },
     onGlobalFilterChange: setGlobalFilter,
     enableSortingRemoval: true,
   });
@@ -284,6 +305,7 @@ export function LadderTable({ rows, caption, toolbarExtra }: { rows: LadderRow[]
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end gap-3">
+        {toolbarStart}
         <div className="field min-w-[14rem] flex-1">
           <label htmlFor={`${id}-filter`} className="field-label">
             {t('table.filterLabel')}

@@ -6,12 +6,13 @@ import { userInviteBody, type UserDto, type UserUpdateBody } from '../../../../s
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
 import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../components/form';
 import { useUpdateUser } from '../api/update-user.api';
+import { RegionChoice } from './region-choice';
 import { useDistrictOptions } from './district-options';
 import { RoleOptions, useDistrictHint } from './role-options';
 
 /** The editable part of a user, checked with the same rules as the invitation. */
-const editUserForm = userInviteBody.pick({ displayName: true, role: true, districtIds: true });
-const FIELDS = ['displayName', 'role', 'districtIds'] as const;
+const editUserForm = userInviteBody.pick({ displayName: true, role: true, districtIds: true, regionIds: true });
+const FIELDS = ['displayName', 'role', 'districtIds', 'regionIds'] as const;
 
 const sameSet = (a: readonly string[], b: readonly string[]) =>
   a.length === b.length && a.every((x) => b.includes(x));
@@ -31,7 +32,7 @@ export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved
     formState: { errors, isSubmitting },
   } = useForm({
     resolver: zodResolver(editUserForm),
-    defaultValues: { displayName: user.displayName, role: user.role, districtIds: user.districts.map((d) => d.id) },
+    defaultValues: { displayName: user.displayName, role: user.role, districtIds: user.districts.map((d) => d.id), regionIds: user.regions.map((r) => r.id) },
   });
   const role = watch('role');
   const districtHint = useDistrictHint(role);
@@ -44,6 +45,7 @@ export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved
     if (values.displayName !== user.displayName) changes.displayName = values.displayName;
     if (values.role !== user.role) changes.role = values.role;
     if (!sameSet(values.districtIds, user.districts.map((d) => d.id))) changes.districtIds = values.districtIds;
+    if (!sameSet(values.regionIds, user.regions.map((r) => r.id))) changes.regionIds = values.regionIds;
     if (Object.keys(changes).length === 0) {
       setFormError(t('edit.nothingChanged'));
       return;
@@ -88,6 +90,11 @@ export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved
             error={fieldState.error?.message}
           />
         )}
+      />
+      <Controller
+        control={control}
+        name="regionIds"
+        render={({ field, fieldState }) => <RegionChoice value={field.value ?? []} onChange={field.onChange} error={fieldState.error?.message} />}
       />
       <div className="flex flex-wrap gap-2">
         <button type="submit" className="btn btn-primary" disabled={isSubmitting}>

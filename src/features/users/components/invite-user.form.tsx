@@ -7,11 +7,12 @@ import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors'
 import { errorText } from '../../../lib/error-text';
 import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../components/form';
 import { useInviteUser } from '../api/invite-user.api';
+import { RegionChoice } from './region-choice';
 import { useDistrictOptions } from './district-options';
 import { RoleOptions, useDistrictHint } from './role-options';
 import { LANGUAGES, LANGUAGE_NAMES } from '../../../../shared/languages';
 
-const FIELDS = ['email', 'displayName', 'role', 'language', 'districtIds'] as const;
+const FIELDS = ['email', 'displayName', 'role', 'language', 'districtIds', 'regionIds'] as const;
 
 export function InviteUserForm() {
   const { t } = useTranslation('users');
@@ -28,7 +29,7 @@ export function InviteUserForm() {
     formState: { errors, isSubmitting },
   } = useForm({
     resolver: zodResolver(userInviteBody),
-    defaultValues: { email: '', displayName: '', role: undefined, language: 'en' as const, districtIds: [] },
+    defaultValues: { email: '', displayName: '', role: undefined, language: 'en' as const, districtIds: [], regionIds: [] },
   });
   const role = watch('role');
   const districtHint = useDistrictHint(role);
@@ -36,7 +37,9 @@ export function InviteUserForm() {
   const onSubmit = handleSubmit(async (values) => {
     setMessage(null);
     try {
-      const user = await invite.mutateAsync(values);
+      // Regions go in the body only when some are ticked (an installation without regions sends what it always sent).
+      const { regionIds, ...rest } = values;
+      const user = await invite.mutateAsync(regionIds.length ? values : rest);
       reset();
       setMessage({ kind: 'success', text: t('invite.sent', { email: user.email }) });
     } catch (error) {
@@ -90,6 +93,11 @@ export function InviteUserForm() {
             error={fieldState.error?.message}
           />
         )}
+      />
+      <Controller
+        control={control}
+        name="regionIds"
+        render={({ field, fieldState }) => <RegionChoice value={field.value ?? []} onChange={field.onChange} error={fieldState.error?.message} />}
       />
       <button type="submit" className="btn btn-primary" disabled={isSubmitting}>
         {isSubmitting ? t('invite.submitting') : t('invite.submit')}

@@ -22,11 +22,20 @@ const baseColumns = (t: TFunction, roleLabel: (role: UserDto['role']) => string)
     id: 'districts',
     header: t('fields.districts'),
     cell: (c) => {
-      const districts = c.row.original.districts;
-      return districts.length === 0 ? (
-        <span className="text-ink-muted">{t('table.noDistricts')}</span>
-      ) : (
-        <span title={districts.map((d) => `${d.code} — ${d.name}`).join('\n')}>{c.getValue()}</span>
+      const { districts, regions } = c.row.original;
+      return (
+        <>
+          {regions.length > 0 ? (
+            <span className="block" title={regions.map((r) => `${r.code} — ${r.name}`).join('\n')}>
+              {t('table.regionsLine', { regions: regions.map((r) => r.name).join(', ') })}
+            </span>
+          ) : null}
+          {districts.length === 0 ? (
+            regions.length > 0 ? null : <span className="text-ink-muted">{t('table.noDistricts')}</span>
+          ) : (
+            <span title={districts.map((d) => `${d.code} — ${d.name}`).join('\n')}>{c.getValue()}</span>
+          )}
+        </>
       );
     },
   }),
