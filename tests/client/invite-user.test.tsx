@@ -40,7 +40,6 @@ describe('invite form', () => {
       role: 'officer',
       language: 'en', // the invitee's language, English unless the admin picks another
       districtIds: [],
-      regionIds: [],
     });
   });
 });
