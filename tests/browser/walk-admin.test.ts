@@ -41,6 +41,19 @@ describe("the admin's week", () => {
     await w.shot('invited');
     expect((await server.ds.query(`SELECT role, language FROM users WHERE email = 'lise.arnaud@halvern.example'`))[0]).toEqual({ role: 'worker', language: 'fr' });
 
+    // An epidemiologist gets one more district; their role stays what it was (the edit form's role select
+    // must open on the user's role, not on the first in the list).
+    const [epi] = await server.ds.query(`SELECT id, display_name AS name FROM users WHERE email = 'epi@halvern.example'`);
+    await page.getByRole('button', { name: `Edit ${epi.name}` }).click();
+    const userEditor = page.locator(`form[aria-labelledby="edit-${epi.id}"]`);
+    expect(await userEditor.getByLabel('Role').inputValue()).toBe('epidemiologist');
+    await userEditor.getByRole('checkbox', { name: /Lowmill/ }).check();
+    await userEditor.getByRole('button', { name: 'Save changes' }).click();
+    await expect.poll(async () => (await server.ds.query(
+      `SELECT count(*)::int AS n FROM user_districts ud JOIN districts d ON d.id = ud.district_id WHERE ud.user_id = $1 AND d.name = 'Lowmill'`, [epi.id]))[0].n,
+    { timeout: 15_000, message: await userEditor.innerText().catch(() => '') }).toBe(1);
+    expect((await server.ds.query(`SELECT role FROM users WHERE id = $1`, [epi.id]))[0].role).toBe('epidemiologist');
+
     // Hestfield gets its full name and this year's population.
     await w.go('Districts');
     await page.getByRole('button', { name: 'Edit HV-07 Hestfield' }).click();
