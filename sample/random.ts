@@ -1,15 +1,2 @@
-/**
- * A seeded pseudo-random generator (mulberry32) so the invented demo region is the same on every
- * machine. Hand-written because it is eight lines and the demo must not depend on a package's
- * sequence changing between versions.
- */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+/** The demo's seeded generator: the one in shared/stats/random.ts. */
+export { seededRandom } from '../shared/stats/random';

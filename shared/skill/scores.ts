@@ -8,6 +8,9 @@
  * "Forecast Verification", 2nd ed., ch. 3; Hanley & McNeil 1982, Radiology 143:29–36 (the area under
  * the ROC curve equals the Mann–Whitney U statistic divided by n₁·n₀, ties counted half).
  */
+import { seededRandom } from '../stats/random';
+
+export { seededRandom };
 
 /** One district-week: the warning score issued that week and whether an event happened that week. */
 export interface ScoredWeek {
@@ -152,21 +155,6 @@ export function leadTimes(weeks: readonly ScoredWeek[], threshold: number, maxLe
     leads.push(lead);
   }
   return leads;
-}
-
-/**
- * Small seeded PRNG (mulberry32, public domain, by Tommy Ettinger) for the bootstrap. Hand-written:
- * ten lines, where a package would add a dependency for the sake of determinism alone.
- */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 export interface BootstrapInterval {
