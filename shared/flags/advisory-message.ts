@@ -138,7 +138,11 @@ export function renderMessageWith(w: MessageWords, message: AdvisoryMessage): st
   else lines.push(w.t(`message.why.${p.reason === 'channel-above' ? 'channelAbove' : p.reason === 'case-alarm' ? 'caseAlarm' : 'manual'}`, { district }));
   if (!p.flag && p.reason !== 'tier-rise' && tierWords) lines.push(w.t('message.tierIs', { tier: tierWords }));
   lines.push(w.t(`message.situation.${SITUATION[code]}`));
-  if (p.shares.length) {
+  // "What weighs most" only where something does: at the Baseline tier, in diapause, with zero
+  // suitability or no signal, the largest share of a near-zero score points at nothing (a Baseline district
+  // with no cases read "Case signal (100 % of the score)").
+  const nothingWeighs = p.tier === 'baseline' || code === 'diapause' || code === 'zero-suitability' || code === 'no-signal';
+  if (p.shares.length && !nothingWeighs) {
     const list = p.shares
       .map((s, i) => w.t(i === 0 ? 'message.driverFirst' : 'message.driverOther', { driver: w.t(`message.drivers.${s.id}`), share: w.percent(s.share) }))
       .join(w.t('message.and'));

@@ -69,3 +69,14 @@ describe('the same words on both sides', () => {
     }
   });
 });
+
+describe('what weighs most, only where something does', () => {
+  it('when a Baseline district with no cases is flagged by hand, then the message names no driver as weighing most', () => {
+    // Found walking the product: "What weighs most this week: Case signal (100% of the score)" for 0 cases.
+    const m = composeMessage({ ...base, reason: 'manual', tier: 'baseline', previousTier: null, drivers: d({ cases: 0.12 }) });
+    expect(m.params.shares).toEqual([{ id: 'cases', share: 1 }]);
+    expect(renderMessage(m.code, m.params, 'en')).not.toMatch(/weighs most|% of the score/);
+    const high = composeMessage({ ...base, drivers: d({ cases: 0.3, climate: 0.1 }) });
+    expect(renderMessage(high.code, high.params, 'en')).toMatch(/75\s?% of the score/);
+  });
+});
