@@ -86,4 +86,21 @@ describe('a held row in the Intake report', () => {
     await click(getButton(view.container, 'Confirm'));
     await waitFor(() => expect(sent).toEqual({ station: 'HV-UP-07', date: '2026-12-02', reason: 'Checked with the observer' }));
   });
+
+  it('when a held day has since been corrected or confirmed, then the report says it is in use and offers no Confirm', async () => {
+    // Found walking the product: after a correction the report still said "Held (not used yet)".
+    fakeApi({
+      [`GET /api/weather/uploads/${upload.id}`]: () => json(200, upload),
+      [`GET /api/weather/uploads/${upload.id}/issues`]: () => json(200, { total: 1, issues: [{ ...held, stored: { ...held.stored!, tmin: 10.1, tmax: 15, held: false } }] }),
+    });
+    const view = await render(
+      <QueryClientProvider client={new QueryClient()}>
+        <UploadResult initial={upload} />
+      </QueryClientProvider>,
+    );
+    await waitFor(() => expect(view.container.textContent).toContain('Held at upload; confirmed or corrected since (in use)'));
+    expect(view.container.textContent).not.toContain('Held (not used yet)');
+    expect([...view.container.querySelectorAll('button')].some((b) => b.textContent === 'Confirm')).toBe(false);
+    view.unmount();
+  });
 });

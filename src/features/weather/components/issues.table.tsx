@@ -35,7 +35,12 @@ export function IssuesTable({ upload, onFix }: { upload: Pick<UploadDto, 'id' | 
         }),
         column.accessor('severity', {
           header: t('report.outcome'),
-          cell: (c) => <span className={c.getValue() === 'rejected' || c.getValue() === 'held' ? 'font-bold' : undefined}>{t(`report.severity.${c.getValue()}`)}</span>,
+          cell: (c) => {
+            // The report is what the upload found; a held day since confirmed or corrected is in use now.
+            const resolved = c.getValue() === 'held' && c.row.original.stored != null && !c.row.original.stored.held;
+            const bold = !resolved && (c.getValue() === 'rejected' || c.getValue() === 'held');
+            return <span className={bold ? 'font-bold' : undefined}>{t(resolved ? 'report.severity.heldResolved' : `report.severity.${c.getValue()}`)}</span>;
+          },
         }),
         column.accessor((i) => issueReason(i, units, format, t, i18n.language), {
           id: 'reason',
