@@ -125,12 +125,15 @@ export function rankingExcerpt(ranking: RankingRow[], top = RANKING_TOP): { rows
   return { rows, omitted: ranking.length - rows.length };
 }
 
+/** A ranked district's tier in words; one without enough data to estimate is not called Baseline. */
+const rankTier = (r: RankingRow, w: Words) => (r.confidence === 'insufficient' ? w.t('tierNotEstimated') : w.tier(r.tier));
+
 /** The region's ranking as plain-text lines; `marker` is written after the marked rows. */
 export function rankingTextLines(ranking: RankingRow[], w: Words, marker: string): string[] {
   const { rows, omitted } = rankingExcerpt(ranking);
   return [
     w.t('regionHeadingCount', { count: ranking.length }),
-    ...rows.map((r) => `${String(r.rank).padStart(3)}. ${r.name} (${r.code}) — ${w.tier(r.tier)}, ${w.score(r.score)}${r.isThis ? `  ${marker}` : ''}`),
+    ...rows.map((r) => `${String(r.rank).padStart(3)}. ${r.name} (${r.code}) — ${rankTier(r, w)}, ${w.score(r.score)}${r.isThis ? `  ${marker}` : ''}`),
     ...(omitted > 0 ? [w.t('regionOmitted', { count: omitted })] : []),
   ];
 }
@@ -206,7 +209,7 @@ export function rankingHtml(ranking: RankingRow[], w: Words, heading: string, le
   const parts = [`<h${level} style="font-size:16px">${e(heading)}</h${level}><table style="border-collapse:collapse"><tr><th ${td}>${e(t('table.rank'))}</th><th ${td}>${e(t('table.district'))}</th><th ${td}>${e(t('table.tier'))}</th><th ${td}>${e(t('table.score'))}</th></tr>`];
   const { rows, omitted } = rankingExcerpt(ranking);
   for (const r of rows)
-    parts.push(`<tr${r.isThis ? ' style="font-weight:bold"' : ''}><td ${td}>${r.rank}</td><td ${td}>${e(r.name)} (${e(r.code)})</td><td ${td}>${badgeHtml(r.tier, w)}</td><td ${td}>${w.score(r.score)}</td></tr>`);
+    parts.push(`<tr${r.isThis ? ' style="font-weight:bold"' : ''}><td ${td}>${r.rank}</td><td ${td}>${e(r.name)} (${e(r.code)})</td><td ${td}>${r.confidence === 'insufficient' ? e(rankTier(r, w)) : badgeHtml(r.tier, w)}</td><td ${td}>${w.score(r.score)}</td></tr>`);
   parts.push('</table>');
   if (omitted > 0) parts.push(`<p style="font-size:13px;color:#555">${e(t('regionOmitted', { count: omitted }))}</p>`);
   return parts;
@@ -333,7 +336,7 @@ export function drawRankingPdf(pw: PdfWriter, ranking: RankingRow[], heading: st
   const { rows, omitted } = rankingExcerpt(ranking);
   for (const r of rows) {
     doc.font(r.isThis ? 'Helvetica-Bold' : 'Helvetica').fillColor('#1d2026')
-      .text(pdfText(w.t('regionLinePdf', { rank: r.rank, district: r.name, code: r.code, tier: w.tier(r.tier), score: w.score(r.score) })), left, undefined, { width });
+      .text(pdfText(w.t('regionLinePdf', { rank: r.rank, district: r.name, code: r.code, tier: rankTier(r, w), score: w.score(r.score) })), left, undefined, { width });
   }
   if (omitted > 0) doc.font('Helvetica-Oblique').fillColor('#555555').text(pdfText(w.t('regionOmitted', { count: omitted })), left, undefined, { width });
 }

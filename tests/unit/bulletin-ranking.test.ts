@@ -25,4 +25,13 @@ describe('the ranking a bulletin prints', () => {
     expect(rankingExcerpt(ranking)).toEqual({ rows: ranking, omitted: 0 });
     expect(rankingTextLines(ranking, wordsFor('en'), '←')).toHaveLength(13);
   });
+
+  it('when a district has too little data for a tier, then the ranking says it is not estimated instead of calling it Baseline', () => {
+    // Found walking the product: imported districts without weather were mailed as "Baseline 0.00".
+    const ranking = [row(0), { ...row(1), confidence: 'insufficient' }];
+    const text = rankingTextLines(ranking, wordsFor('en'), '←').join('\n');
+    expect(text).toContain('District 2 (C-2) — not estimated (not enough data)');
+    expect(text).toContain('District 1 (C-1) — Baseline');
+    expect(rankingHtml(ranking, wordsFor('pt'), 'x').join('')).toContain('não estimado (dados insuficientes)');
+  });
 });
