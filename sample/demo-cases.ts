@@ -1,5 +1,5 @@
 /**
- * Invented weekly cases and larval surveys for the invented Halvern Region (DESIGN.md §6), seasons
+ * Invented weekly cases and larval surveys for the invented Halvern Region (docs/product.md § The demo region), seasons
  * 2020–2026, generated reproducibly from a seed. Nothing here is real.
  *
  * - coast (HV-01…03): dengue, peaking in the late wet season, with an epidemic in 2022;

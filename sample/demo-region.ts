@@ -1,5 +1,5 @@
 /**
- * The invented Halvern Region (DESIGN.md §6): twelve districts between 24° and 34° north, generated
+ * The invented Halvern Region (docs/product.md § The demo region): twelve districts between 24° and 34° north, generated
  * reproducibly from a seed. Every name, boundary and population here is made up; nothing is real.
  *
  * Four bands from south to north — warm humid coast (Aedes with dengue), a river valley (Anopheles

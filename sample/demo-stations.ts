@@ -1,5 +1,5 @@
 /**
- * Invented weather stations of the Halvern Region (DESIGN.md §6), placed reproducibly inside their
+ * Invented weather stations of the Halvern Region (docs/product.md § The demo region), placed reproducibly inside their
  * districts. A station's code carries its district's number (HVS-05 stands in HV-05; Saltmere's second
  * station is HVS-01B) and its name fits its ground: harbours and quays on the coast, mills and bridges
  * in the valleys, ridges on the plateau, passes in the highlands, at the zone's elevations. Lowmill

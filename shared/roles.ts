@@ -1,4 +1,4 @@
-/** The five roles of DESIGN.md §2. The ids are stored in the database; the labels are shown. */
+/** The five roles of docs/product.md § Roles. The ids are stored in the database; the labels are shown. */
 export const ROLES = ['admin', 'officer', 'epidemiologist', 'supervisor', 'worker'] as const;
 export type Role = (typeof ROLES)[number];
 
@@ -14,11 +14,11 @@ export const ROLE_LABELS: Record<Role, string> = {
 export const DISTRICT_SCOPED_ROLES: readonly Role[] = ['epidemiologist', 'worker'];
 
 /**
- * Who may use the Look-back (replayed past seasons and their scores, docs/skill.md): epidemiologists
- * and admins start one; officers and supervisors read them too. The routes, the menu and the route ×
+ * Who may use the Look-back (replayed past seasons and their scores, docs/skill.md): admins, health
+ * officers and epidemiologists start one; supervisors read them too (docs/product.md § Roles). The routes, the menu and the route ×
  * role test all read this.
  */
 export const LOOK_BACK_ROLES = {
-  start: ['admin', 'epidemiologist'],
+  start: ['admin', 'officer', 'epidemiologist'],
   read: ['admin', 'epidemiologist', 'officer', 'supervisor'],
 } as const satisfies Record<string, readonly Role[]>;

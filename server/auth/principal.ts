@@ -17,7 +17,7 @@ export interface Principal {
 
 export const isDistrictScoped = (p: Principal) => DISTRICT_SCOPED_ROLES.includes(p.role);
 
-/** Community workers see their own districts only; everybody else sees all (DESIGN.md §2). */
+/** Community workers see their own districts only; everybody else sees all (docs/product.md § Roles). */
 export const seesAllDistricts = (p: Principal) => p.role !== 'worker';
 
 export function assertDistrictVisible(p: Principal, districtId: string): void {

@@ -3,7 +3,7 @@ import { DEFAULT_LANGUAGE, textsFor, type Language } from '../i18n';
 const CAUTION_KEYS = ['estimate', 'authority', 'trainedStaff', 'clinicians'] as const;
 
 /**
- * Broodcast's cautions as every advisory and bulletin says them (DESIGN.md §5), in its own words and in
+ * Broodcast's cautions as every advisory and bulletin says them (docs/product.md § Cautions), in its own words and in
  * the reader's language (server/i18n/locales/<language>/common.json, "cautions").
  */
 export const cautionsFor = (language: Language): string[] => {

@@ -29,7 +29,7 @@ const ASSIGNED_SQL = `(EXISTS (SELECT 1 FROM user_districts ud WHERE ud.user_id 
    OR EXISTS (SELECT 1 FROM user_regions ur JOIN districts rd ON rd.region_id = ur.region_id WHERE ur.user_id = u.id AND rd.id = $1))`;
 
 /**
- * The role defaults of DESIGN.md §2 for a user who has chosen nothing yet: health officers and
+ * The role defaults of docs/product.md § Roles for a user who has chosen nothing yet: health officers and
  * supervisors receive every district (or, when scoped to regions, the districts of their regions and their
  * own), epidemiologists and community workers their assigned ones (own districts and those of their
  * regions), and admins nothing (they subscribe on the preferences page).

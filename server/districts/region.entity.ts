@@ -1,6 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 'typeorm';
 
-/** A named group of districts, one level above the district (DESIGN.md §3), for scoping people and rolling up. */
+/** A named group of districts, one level above the district (docs/product.md § Vocabulary), for scoping people and rolling up. */
 @Entity({ name: 'regions' })
 export class RegionEntity {
   @PrimaryGeneratedColumn('uuid')

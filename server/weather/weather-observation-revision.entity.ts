@@ -1,7 +1,7 @@
 import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn, JoinColumn, ManyToOne } from 'typeorm';
 import { WeatherStationEntity } from './weather-station.entity';
 
-/** The values a later intake replaced: a correction never overwrites silently (DESIGN.md §2). */
+/** The values a later intake replaced: a correction never overwrites silently (docs/product.md § Roles). */
 @Entity({ name: 'weather_observation_revisions' })
 @Index('weather_observation_revisions_key_idx', ['stationId', 'date'])
 export class WeatherObservationRevisionEntity {

@@ -41,7 +41,7 @@ export const workNeededFor = (leadingDriver: DriverId | null): readonly WorkKind
  */
 export const DAYS_NEEDED_BY_TIER: Record<Tier, number> = { baseline: 0, raised: 1, high: 2, critical: 3 };
 
-/** Permission table of the Field week (DESIGN.md §2): the routes and the screen read these rows. */
+/** Permission table of the Field week (docs/product.md § Roles): the routes and the screen read these rows. */
 export const FIELD_ACCESS = {
   /** keep the list of teams */
   manageTeams: ['officer'],

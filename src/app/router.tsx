@@ -248,7 +248,7 @@ export const routes: RouteObject[] = [
             })),
           },
           {
-            // Raise a flag by hand: health officers and epidemiologists (DESIGN.md §2).
+            // Raise a flag by hand: health officers and epidemiologists (docs/product.md § Roles).
             path: 'flags/new',
             lazy: screen('features/flags/raise-flag.page', () => import('../features/flags/raise-flag.page'), ({ RaiseFlagPage }) => ({
               element: guarded(['officer', 'epidemiologist'], <RaiseFlagPage />),

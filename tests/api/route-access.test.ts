@@ -15,7 +15,7 @@ import { fieldAccess } from './access/field.access';
 
 /**
  * Every API route × every role (and no session). The expected access is written here, from
- * DESIGN.md §2, not read from the routes: a route missing from this table fails the suite, and a
+ * docs/product.md § Roles, not read from the routes: a route missing from this table fails the suite, and a
  * route whose declared access differs from the table fails too.
  */
 type Who = Role | 'anonymous';

@@ -33,8 +33,8 @@ async function open(me: typeof adminMe, handlers: Parameters<typeof fakeApi>[0],
 }
 
 describe('the Look-back screen', () => {
-  it('when a Look-back has finished, then an officer sees hit rate and false-alarm ratio by lead time beside the null models, with the cautions, and no start form', async () => {
-    const c = await open(officerMe, {
+  it('when a Look-back has finished, then a supervisor sees hit rate and false-alarm ratio by lead time beside the null models, with the cautions, and no start form', async () => {
+    const c = await open({ ...officerMe, role: 'supervisor' }, {
       'GET /api/look-back/runs': () => json(200, { runs: [run()] }),
       [`GET /api/look-back/runs/${RUN_ID}`]: () => json(200, run()),
       [`GET /api/look-back/runs/${RUN_ID}/scores`]: () => json(200, scores(0.75)),

@@ -6,7 +6,7 @@ import en from '../../i18n/locales/en/cautions.json';
 const CAUTION_KEYS = ['estimate', 'limits', 'authority', 'vectorControl', 'clinical'] as const;
 
 /**
- * Broodcast's cautions, in its own words (DESIGN.md §5), in English; the panel shows them in the
+ * Broodcast's cautions, in its own words (docs/product.md § Cautions), in English; the panel shows them in the
  * interface language from the `cautions` namespace. Shown on the Ladder, every District file and the
  * other screens that show estimates. Keep the wording there only, so every screen says the same thing.
  */

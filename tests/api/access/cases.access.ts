@@ -1,6 +1,6 @@
 import { ALL_SIGNED_IN, type AccessTable } from './who';
 
-/** Routes of the cases feature and who may call them (DESIGN.md §2; docs/case-ledger.md). */
+/** Routes of the cases feature and who may call them (docs/product.md § Roles; docs/case-ledger.md). */
 export const casesAccess: AccessTable = {
   'GET /diseases': ALL_SIGNED_IN,
   'POST /diseases': ['admin'],

@@ -1,6 +1,6 @@
 import type { AccessTable } from './who';
 
-/** Routes of the Field week (issue 19) and who may call them (DESIGN.md §2: the officer plans; teams see theirs). */
+/** Routes of the Field week (issue 19) and who may call them (docs/product.md § Roles: the officer plans; teams see theirs). */
 export const fieldAccess: AccessTable = {
   'GET /field-teams': ['officer', 'supervisor', 'worker'],
   'GET /field-teams/candidates': ['officer'],

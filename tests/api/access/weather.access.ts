@@ -2,7 +2,7 @@ import { ALL_SIGNED_IN, type AccessTable } from './who';
 
 const EDITORS: AccessTable[string] = ['admin', 'officer'];
 
-/** Routes of the weather feature and who may call them (DESIGN.md §2: upload or correct weather, manage stations). */
+/** Routes of the weather feature and who may call them (docs/product.md § Roles: upload or correct weather, manage stations). */
 export const weatherAccess: AccessTable = {
   'GET /weather/stations': ALL_SIGNED_IN,
   'POST /weather/stations': EDITORS,
