@@ -56,8 +56,10 @@ export function guardPage(page: Page, context: BrowserContext): Guard {
     else if (status >= 400) clientErrors.push(`${status} ${where}`);
   });
   page.on('console', (m) => {
-    if (m.type() !== 'error') return;
     const text = m.text();
+    // A warning that a form wrote a value the input cannot hold ("The specified value 'NaN' cannot be parsed").
+    if (m.type() === 'warning' && /cannot be parsed/.test(text)) problems.push(`console warning on ${new URL(page.url()).pathname}: ${text}`);
+    if (m.type() !== 'error') return;
     if (/Failed to load resource: the server responded with a status of 4\d\d/.test(text)) return;
     if (/Failed to load resource: the server responded with a status of 5\d\d/.test(text)) return; // counted by status
     if (cutOff && offlineNoise.test(text)) return;

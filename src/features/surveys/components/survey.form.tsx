@@ -69,7 +69,9 @@ export function SurveyFormCard({ districts, onDistrictChange }: { districts: Dis
           ? { kind: 'success', text: t('form.sent', { locality: form.locality }) }
           : { kind: 'info', text: t('form.kept', { locality: form.locality }) },
       );
-      reset({ ...form, locality: '', housesInspected: NaN, housesPositive: NaN, containersInspected: NaN, containersPositive: NaN, pupae: null, containerTypes: [], notes: '' });
+      // The counts go back to empty (null shows as an empty field; NaN was written into the inputs as "NaN").
+      const empty = null as unknown as number;
+      reset({ ...form, locality: '', housesInspected: empty, housesPositive: empty, containersInspected: empty, containersPositive: empty, pupae: null, containerTypes: [], notes: '' });
     } catch (error) {
       setMessage({
         kind: 'error',
