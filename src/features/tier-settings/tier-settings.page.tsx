@@ -66,7 +66,7 @@ export function TierSettingsPage() {
               </div>
             </fieldset>
             <div className="flex flex-wrap gap-3">
-              <button type="button" className="btn" disabled={preview.isPending} onClick={() => preview.mutate({ settings: draft })}>
+              <button type="button" className="btn btn-secondary" disabled={preview.isPending} onClick={() => preview.mutate({ settings: draft })}>
                 {preview.isPending ? t('previewing') : t('preview')}
               </button>
             </div>
