@@ -66,7 +66,14 @@ async function chartsDrawn(page: Page, selector: string) {
 async function openLadder(page: Page) {
   await page.goto(server.baseUrl + '/');
   await page.locator('.ladder-table tbody tr[data-district]').first().waitFor();
+  await mapDrawn(page);
+}
+
+/** On a phone the region map loads only when scrolled near (src/lib/use-near-viewport.ts): scroll to it, wait, come back. */
+async function mapDrawn(page: Page) {
+  await page.locator('[data-tour="region-map"]').scrollIntoViewIfNeeded();
   await chartsDrawn(page, '[data-testid="region-map"]');
+  await page.evaluate(() => window.scrollTo(0, 0));
 }
 
 /** The district the Ladder ranks first: the highest tier of the week, so the file has something to show. */
@@ -126,7 +133,7 @@ describe('screenshots of the Ladder and a District file for the docs', () => {
     await page.goto(server.baseUrl + '/');
     await page.getByTestId('worker-home').waitFor();
     await page.locator('.ladder-table tbody tr[data-district]').first().waitFor();
-    await chartsDrawn(page, '[data-testid="region-map"]');
+    await mapDrawn(page);
     // The worker's district is in the first screenful; the cautions are folded, one tap away.
     const top = await page.getByRole('heading', { name: /Your district: Saltmere/ }).evaluate((h) => h.getBoundingClientRect().top);
     expect(top).toBeLessThan(SIZES.phone.viewport.height - 120);

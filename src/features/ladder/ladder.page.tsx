@@ -1,4 +1,4 @@
-import { lazy, Suspense, useEffect, useId, useMemo, useState } from 'react';
+import { lazy, Suspense, useEffect, useId, useMemo, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { Trans, useTranslation } from 'react-i18next';
 import { PageHeading } from '../../components/page-heading';
@@ -15,13 +15,16 @@ import { useLadderWords } from './ladder-format';
 import { WorkerHome } from './worker-home';
 import './ladder.css';
 import { errorText } from '../../lib/error-text';
+import { useNearViewport } from '../../lib/use-near-viewport';
 
 const EMPTY: never[] = [];
 
 /**
- * The region map (and, through it, ECharts) is its own chunk, fetched once the table has painted: the table
- * is what the officer reads first, so the map's code stays out of the Ladder's initial JavaScript. Its
- * boundaries are already on their way (src/app/router.tsx asks for them beside the board).
+ * The region map (and, through it, ECharts) is its own chunk, fetched once the table has painted and the map's
+ * place is near the viewport: the table is what the officer reads first, so the map's code stays out of the
+ * Ladder's initial JavaScript, and on a phone or tablet (under 64rem), where the map sits far below the table,
+ * it is fetched only when the reader scrolls towards it. Its boundaries are already on their way (src/app/router.tsx asks for them
+ * beside the board).
  */
 const RegionMap = lazy(() => import('../region-map/region-map').then((m) => ({ default: m.RegionMap })));
 
@@ -66,6 +69,8 @@ export function LadderPage() {
   const rows = useMemo(() => (hasRegions && grouped ? rowsInRegionOrder(chosen, i18n.language) : chosen), [chosen, grouped, hasRegions, i18n.language]);
   const groups = useMemo(() => (hasRegions ? groupByRegion(chosen, i18n.language) : []), [chosen, hasRegions, i18n.language]);
   const tablePainted = useAfterPaint(board.isSuccess);
+  const mapPlace = useRef<HTMLDivElement>(null);
+  const mapNear = useNearViewport(mapPlace, tablePainted, '(min-width: 64rem)');
   const week = board.data ? words.week(board.data.epiYear, board.data.epiWeek) : null;
   const lead = board.data?.asOf
     ? t('lead', { week: week ?? t('latestWeek'), asOf: words.day(board.data.asOf), computedAt: words.dateTime(board.data.computedAt) })
@@ -130,8 +135,8 @@ export function LadderPage() {
               }
             />
           </div>
-          <div className="min-w-0" data-tour="region-map">
-            {tablePainted ? (
+          <div className="min-w-0" data-tour="region-map" ref={mapPlace}>
+            {tablePainted && mapNear ? (
               <Suspense fallback={<RegionMapPending />}>
                 <RegionMap rows={rows} only={hasRegions && choice !== 'all' ? rows : undefined} />
               </Suspense>

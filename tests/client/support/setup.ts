@@ -4,6 +4,21 @@ import { i18n, i18nReady, missingKeys, NAMESPACES } from '../../../src/i18n';
 import './bundled-texts';
 import { unmountAll } from './render';
 
+// happy-dom's IntersectionObserver never reports; parts that wait to come near the viewport (the
+// Ladder's region map) would never load. Here every observed element is in view at once.
+class InViewObserver {
+  constructor(private readonly callback: IntersectionObserverCallback) {}
+  observe(target: Element) {
+    queueMicrotask(() => this.callback([{ isIntersecting: true, target } as IntersectionObserverEntry], this as unknown as IntersectionObserver));
+  }
+  unobserve() {}
+  disconnect() {}
+  takeRecords() {
+    return [];
+  }
+}
+globalThis.IntersectionObserver = InViewObserver as unknown as typeof IntersectionObserver;
+
 // Client tests read the English interface; a key that English lacks fails the test that rendered it.
 beforeAll(async () => {
   await i18nReady;
