@@ -20,11 +20,11 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
   const outbox = new OutboxService(ctx);
   return [
     defineRoute({
-      method: 'get', path: '/bulletins/preview', access: ['supervisor'], query: bulletinPreviewQuery,
+      method: 'get', path: '/bulletins/preview', access: 'bulletins.preview', query: bulletinPreviewQuery,
       handler: ({ query }) => bulletins.preview(query.districtId, query.language),
     }),
     defineRoute({
-      method: 'get', path: '/bulletins/preview/html', access: ['supervisor'], query: bulletinQuery,
+      method: 'get', path: '/bulletins/preview/html', access: 'bulletins.preview', query: bulletinQuery,
       handler: async ({ query }, _req, res) => {
         const html = await bulletins.previewHtml(query.districtId, query.language);
         res.setHeader('Content-Security-Policy', PREVIEW_CSP);
@@ -33,7 +33,7 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
       },
     }),
     defineRoute({
-      method: 'get', path: '/bulletins/preview/pdf', access: ['supervisor'], query: bulletinQuery,
+      method: 'get', path: '/bulletins/preview/pdf', access: 'bulletins.preview', query: bulletinQuery,
       handler: async ({ query }, _req, res) => {
         const { filename, pdf } = await bulletins.previewPdf(query.districtId, query.language);
         res.type('application/pdf').setHeader('Content-Disposition', `attachment; filename="${filename}"`);
@@ -69,7 +69,7 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
       },
     }),
     defineRoute({
-      method: 'post', path: '/bulletins/send', access: ['admin', 'supervisor'],
+      method: 'post', path: '/bulletins/send', access: 'bulletins.send',
       handler: ({ principal }) => bulletins.sendNow(principal),
     }),
     defineRoute({ method: 'get', path: '/subscriptions/me', access: 'signed-in', handler: ({ principal }) => subscriptions.mine(principal) }),
@@ -92,7 +92,7 @@ export function bulletinsRoutes(ctx: AppContext): RouteDef[] {
       handler: ({ params }) => subscriptions.undo(params.token),
     }),
     defineRoute({
-      method: 'get', path: '/outbox', access: ['admin', 'supervisor'], query: outboxQuery,
+      method: 'get', path: '/outbox', access: 'outbox.read', query: outboxQuery,
       handler: ({ query }) => outbox.log(query),
     }),
   ];

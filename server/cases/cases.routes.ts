@@ -28,7 +28,7 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
   return [
     defineRoute({ method: 'get', path: '/diseases', access: 'signed-in', handler: () => ledger.listDiseases() }),
     defineRoute({
-      method: 'post', path: '/diseases', access: ['admin'], body: diseaseCreateBody, status: 201,
+      method: 'post', path: '/diseases', access: 'diseases.manage', body: diseaseCreateBody, status: 201,
       handler: ({ principal, body }) => ledger.createDisease(principal, body),
     }),
     defineRoute({ method: 'get', path: '/cases/settings', access: 'signed-in', handler: () => ledger.settings() }),
@@ -37,7 +37,7 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
       handler: ({ principal, query }) => ledger.grid(principal, query),
     }),
     defineRoute({
-      method: 'post', path: '/cases/uploads', access: ['epidemiologist'], before: [uploadLimit(UPLOAD_MAX_BYTES), upload.single('file'), checkCsvUpload], body: caseUploadFields,
+      method: 'post', path: '/cases/uploads', access: 'cases.enter', before: [uploadLimit(UPLOAD_MAX_BYTES), upload.single('file'), checkCsvUpload], body: caseUploadFields,
       handler: async ({ principal, body }, req, res) => {
         if (!req.file) throw badRequest('file_missing', 'Attach a CSV file in the field "file".', [{ path: 'file', message: 'is required' }]);
         const report = await uploads.upload(principal, req.file, body.reason);
@@ -54,11 +54,11 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
       },
     }),
     defineRoute({
-      method: 'post', path: '/cases/counts/:id/void', access: ['epidemiologist'], params: idParams, body: voidBody,
+      method: 'post', path: '/cases/counts/:id/void', access: 'cases.enter', params: idParams, body: voidBody,
       handler: ({ principal, params, body }) => ledger.voidCount(principal, params.id, body.reason),
     }),
     defineRoute({
-      method: 'get', path: '/cases/counts/:id/revisions', access: ['admin', 'supervisor', 'epidemiologist'], params: idParams,
+      method: 'get', path: '/cases/counts/:id/revisions', access: 'cases.readHistory', params: idParams,
       handler: ({ principal, params }) => ledger.revisions(principal, params.id),
     }),
     defineRoute({
@@ -70,19 +70,19 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
       handler: ({ principal, params, query }) => ledger.storedCount(principal, params.id, query),
     }),
     defineRoute({
-      method: 'put', path: '/districts/:id/cases', access: ['epidemiologist'], params: idParams, body: caseCountBody,
+      method: 'put', path: '/districts/:id/cases', access: 'cases.enter', params: idParams, body: caseCountBody,
       handler: ({ principal, params, body }) => ledger.putCount(principal, params.id, body),
     }),
     defineRoute({
-      method: 'post', path: '/districts/:id/weeks/close', access: ['epidemiologist', 'supervisor'], params: idParams, body: closeWeekBody,
+      method: 'post', path: '/districts/:id/weeks/close', access: 'cases.closeWeek', params: idParams, body: closeWeekBody,
       handler: ({ principal, params, body }) => ledger.closeWeek(principal, params.id, body),
     }),
     defineRoute({
-      method: 'post', path: '/districts/:id/weeks/reopen', access: ['epidemiologist', 'supervisor'], params: idParams, body: reopenWeekBody,
+      method: 'post', path: '/districts/:id/weeks/reopen', access: 'cases.closeWeek', params: idParams, body: reopenWeekBody,
       handler: ({ principal, params, body }) => ledger.reopenWeek(principal, params.id, body),
     }),
     defineRoute({
-      method: 'put', path: '/districts/:id/channel-settings', access: ['admin', 'epidemiologist'], params: idParams, body: channelSettingsBody,
+      method: 'put', path: '/districts/:id/channel-settings', access: 'cases.channelSettings', params: idParams, body: channelSettingsBody,
       handler: ({ principal, params, body }) => ledger.setChannelSettings(principal, params.id, body),
     }),
     ...surveysRoutes(ctx),

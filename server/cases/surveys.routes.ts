@@ -10,7 +10,7 @@ export function surveysRoutes(ctx: AppContext) {
   const service = new LarvalSurveysService(ctx);
   return [
     defineRoute({
-      method: 'post', path: '/surveys', access: ['officer', 'worker'], body: surveyBody,
+      method: 'post', path: '/surveys', access: 'surveys.record', body: surveyBody,
       handler: async ({ principal, body }, _req, res) => {
         const { created, survey } = await service.submit(principal, body);
         // 201 the first time, 200 with the stored survey when the browser sends the same id again.
@@ -18,7 +18,7 @@ export function surveysRoutes(ctx: AppContext) {
       },
     }),
     defineRoute({
-      method: 'post', path: '/surveys/:id/void', access: ['officer', 'worker'], params: idParams, body: voidBody,
+      method: 'post', path: '/surveys/:id/void', access: 'surveys.record', params: idParams, body: voidBody,
       handler: ({ principal, params, body }) => service.voidSurvey(principal, params.id, body.reason),
     }),
     defineRoute({

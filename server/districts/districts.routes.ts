@@ -18,19 +18,19 @@ export function districtsRoutes(ctx: AppContext) {
       handler: ({ principal, params }) => service.get(principal, params.id),
     }),
     defineRoute({
-      method: 'post', path: '/districts', access: ['admin'], body: districtCreateBody, status: 201,
+      method: 'post', path: '/districts', access: 'districts.manage', body: districtCreateBody, status: 201,
       handler: ({ principal, body }) => service.create(principal, body),
     }),
     defineRoute({
-      method: 'patch', path: '/districts/:id', access: ['admin'], params: idParams, body: districtUpdateBody,
+      method: 'patch', path: '/districts/:id', access: 'districts.manage', params: idParams, body: districtUpdateBody,
       handler: ({ principal, params, body }) => service.update(principal, params.id, body),
     }),
     defineRoute({
-      method: 'put', path: '/districts/:id/populations', access: ['admin'], params: idParams, body: populationBody,
+      method: 'put', path: '/districts/:id/populations', access: 'districts.manage', params: idParams, body: populationBody,
       handler: ({ principal, params, body }) => service.setPopulation(principal, params.id, body),
     }),
     defineRoute({
-      method: 'put', path: '/districts/:id/boundary', access: ['admin'], params: idParams, query: boundaryQuery, body: boundaryBody,
+      method: 'put', path: '/districts/:id/boundary', access: 'districts.manage', params: idParams, query: boundaryQuery, body: boundaryBody,
       handler: ({ principal, params, query, body }) => service.setBoundary(principal, params.id, body, { confirm: query.confirm === 'true' }),
     }),
   ];

@@ -55,17 +55,17 @@ export function importsRoutes(ctx: AppContext): RouteDef[] {
   const csvUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: CSV_IMPORT_MAX_BYTES, files: 1, fields: 2 } });
   return [
     defineRoute({
-      method: 'post', path: '/districts/import', access: ['admin'], query: importQuery, body: districtImportFields,
+      method: 'post', path: '/districts/import', access: 'districts.manage', query: importQuery, body: districtImportFields,
       before: [uploadLimit(DISTRICT_IMPORT_MAX_BYTES), geoUpload.single('file'), checkGeoUpload],
       handler: ({ principal, body, query }, req, res) => answer(res, () => districts.import(principal, fileOf(req), body, optionsOf(query))),
     }),
     defineRoute({
-      method: 'post', path: '/districts/populations/import', access: ['admin'], query: importQuery, body: csvImportFields,
+      method: 'post', path: '/districts/populations/import', access: 'districts.manage', query: importQuery, body: csvImportFields,
       before: [uploadLimit(CSV_IMPORT_MAX_BYTES), csvUpload.single('file'), checkCsvUpload],
       handler: ({ principal, body, query }, req, res) => answer(res, () => csv.populations(principal, fileOf(req), body.reason, optionsOf(query))),
     }),
     defineRoute({
-      method: 'post', path: '/weather/stations/import', access: ['admin'], query: importQuery, body: csvImportFields,
+      method: 'post', path: '/weather/stations/import', access: 'districts.manage', query: importQuery, body: csvImportFields,
       before: [uploadLimit(CSV_IMPORT_MAX_BYTES), csvUpload.single('file'), checkCsvUpload],
       handler: ({ principal, body, query }, req, res) => answer(res, () => csv.stations(principal, fileOf(req), body.reason, optionsOf(query))),
     }),

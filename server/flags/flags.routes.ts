@@ -13,31 +13,31 @@ export function flagsRoutes(ctx: AppContext): RouteDef[] {
   const settings = new FlagSettingsService(ctx);
   return [
     defineRoute({
-      method: 'get', path: '/flags', access: ['admin', 'officer', 'epidemiologist', 'supervisor'], query: flagsQuery,
+      method: 'get', path: '/flags', access: 'flags.read', query: flagsQuery,
       handler: ({ query }) => flags.list(query),
     }),
     defineRoute({
-      method: 'post', path: '/flags', access: ['officer', 'epidemiologist'], body: raiseFlagBody, status: 201,
+      method: 'post', path: '/flags', access: 'flags.raise', body: raiseFlagBody, status: 201,
       handler: ({ principal, body }) => flags.raise(principal, body),
     }),
     defineRoute({
-      method: 'get', path: '/flags/:id', access: ['admin', 'officer', 'epidemiologist', 'supervisor'], params: idParams,
+      method: 'get', path: '/flags/:id', access: 'flags.read', params: idParams,
       handler: ({ params }) => flags.detail(params.id),
     }),
     defineRoute({
-      method: 'post', path: '/flags/:id/approve', access: ['supervisor'], params: idParams, body: approveFlagBody,
+      method: 'post', path: '/flags/:id/approve', access: 'flags.signOff', params: idParams, body: approveFlagBody,
       handler: ({ principal, params, body }) => flags.approve(principal, params.id, body),
     }),
     defineRoute({
-      method: 'post', path: '/flags/:id/reject', access: ['supervisor'], params: idParams, body: rejectFlagBody,
+      method: 'post', path: '/flags/:id/reject', access: 'flags.signOff', params: idParams, body: rejectFlagBody,
       handler: ({ principal, params, body }) => flags.reject(principal, params.id, body),
     }),
     defineRoute({
-      method: 'get', path: '/flag-settings', access: ['admin'],
+      method: 'get', path: '/flag-settings', access: 'flagSettings.manage',
       handler: () => settings.get(),
     }),
     defineRoute({
-      method: 'put', path: '/flag-settings', access: ['admin'], body: flagSettingsBody,
+      method: 'put', path: '/flag-settings', access: 'flagSettings.manage', body: flagSettingsBody,
       handler: ({ principal, body }) => settings.update(principal, body),
     }),
     defineRoute({

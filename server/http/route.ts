@@ -1,13 +1,24 @@
 import type { NextFunction, Request, Response, Router } from 'express';
 import type { ZodType } from 'zod';
+import { rolesWith, type Ability } from '../../shared/permissions';
 import type { Role } from '../../shared/roles';
 import type { Principal } from '../auth/principal';
 import { forbidden, unauthorized } from './errors';
 import { jsonBody } from './json-body';
 import { parseInput } from './validate';
 
-/** Who may call a route: anybody, any signed-in user, or the listed roles. Every route declares it. */
-export type Access = 'public' | 'signed-in' | readonly Role[];
+/**
+ * Who may call a route: anybody, any signed-in user, or the roles with an ability of the permission table
+ * (shared/permissions.ts). Every route declares it. A list of roles is still accepted so that a branch
+ * written before the table compiles, but tests/api/permission-table.test.ts fails on it: name an ability.
+ */
+export type Access = 'public' | 'signed-in' | Ability | readonly Role[];
+
+/** The roles an access admits; null for 'public' and 'signed-in'. */
+export function accessRoles(access: Access): readonly Role[] | null {
+  if (access === 'public' || access === 'signed-in') return null;
+  return typeof access === 'string' ? rolesWith(access) : access;
+}
 
 export interface RouteInput<B, Q, P> {
   body: B;
@@ -37,8 +48,8 @@ export const defineRoute = <B, Q, P>(def: RouteDef<B, Q, P>) => def as RouteDef;
 function checkAccess(access: Access, principal: Principal | null): void {
   if (access === 'public') return;
   if (!principal) throw unauthorized();
-  if (access === 'signed-in') return;
-  if (!access.includes(principal.role)) throw forbidden();
+  const roles = accessRoles(access);
+  if (roles && !roles.includes(principal.role)) throw forbidden();
 }
 
 /** Mount route definitions on a router; the caller keeps the list as the app's route table. */

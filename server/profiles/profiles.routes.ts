@@ -11,12 +11,12 @@ export function profilesRoutes(ctx: AppContext) {
   return [
     defineRoute({ method: 'get', path: '/profiles', access: 'signed-in', handler: () => service.list() }),
     defineRoute({
-      method: 'put', path: '/districts/profiles', access: ['admin'], body: assignProfilesBody,
+      method: 'put', path: '/districts/profiles', access: 'profiles.manage', body: assignProfilesBody,
       handler: ({ principal, body }) => service.assign(principal, body),
     }),
     // No PUT/PATCH on /profiles/:id: a published profile is never edited in place, only copied.
     defineRoute({
-      method: 'post', path: '/profiles/:id/variants', access: ['admin'], params: profileIdParams, body: profileVariantBody, status: 201,
+      method: 'post', path: '/profiles/:id/variants', access: 'profiles.manage', params: profileIdParams, body: profileVariantBody, status: 201,
       handler: ({ principal, params, body }) => service.createVariant(principal, params.id, body),
     }),
   ];

@@ -12,15 +12,15 @@ export function seasonRoutes(ctx: AppContext) {
   const settings = new TierSettingsService(ctx.ds);
   return [
     defineRoute({
-      method: 'get', path: '/season-runs', access: ['admin', 'officer'],
+      method: 'get', path: '/season-runs', access: 'seasonRuns.start',
       handler: async () => ({ runs: (await runs.list()).map(presentSeasonRun) }),
     }),
     defineRoute({
-      method: 'post', path: '/season-runs', access: ['admin', 'officer'], body: startSeasonRunBody, status: 202,
+      method: 'post', path: '/season-runs', access: 'seasonRuns.start', body: startSeasonRunBody, status: 202,
       handler: async ({ body, principal }) => presentSeasonRun(await runs.start({ kind: 'manual', full: body.full, requestedBy: principal.userId })),
     }),
     defineRoute({
-      method: 'get', path: '/season-runs/:id', access: ['admin', 'officer'], params: idParams,
+      method: 'get', path: '/season-runs/:id', access: 'seasonRuns.start', params: idParams,
       handler: async ({ params }) => presentSeasonRun(await runs.get(params.id)),
     }),
     defineRoute({
@@ -28,12 +28,12 @@ export function seasonRoutes(ctx: AppContext) {
       handler: async () => ({ ...(await settings.current()), history: await settings.history() }),
     }),
     defineRoute({
-      method: 'put', path: '/tier-settings', access: ['admin'], body: tierSettingsBody,
+      method: 'put', path: '/tier-settings', access: 'tierSettings.manage', body: tierSettingsBody,
       handler: async ({ body, principal }) => settings.update(principal, body.settings, body.reason),
     }),
     defineRoute({
       // The dry run before saving: how this week's Ladder would change. Writes nothing.
-      method: 'post', path: '/tier-settings/preview', access: ['admin'], body: tierSettingsPreviewBody,
+      method: 'post', path: '/tier-settings/preview', access: 'tierSettings.manage', body: tierSettingsPreviewBody,
       handler: async ({ body }) => settings.preview(body.settings),
     }),
   ];

@@ -7,9 +7,9 @@ import { DemoRemovalService } from './demo-removal.service';
 export function setupRoutes(ctx: AppContext) {
   const demo = new DemoRemovalService(ctx);
   return [
-    defineRoute({ method: 'get', path: '/demo', access: ['admin'], handler: () => demo.summary() }),
+    defineRoute({ method: 'get', path: '/demo', access: 'demo.manage', handler: () => demo.summary() }),
     defineRoute({
-      method: 'post', path: '/demo/remove', access: ['admin'], body: demoRemoveBody,
+      method: 'post', path: '/demo/remove', access: 'demo.manage', body: demoRemoveBody,
       handler: ({ principal, body }) => demo.remove(principal, body.reason),
     }),
   ];

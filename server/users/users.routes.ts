@@ -7,13 +7,13 @@ import { UsersService } from './users.service';
 export function usersRoutes(ctx: AppContext) {
   const service = new UsersService(ctx);
   return [
-    defineRoute({ method: 'get', path: '/users', access: ['admin'], handler: () => service.list() }),
+    defineRoute({ method: 'get', path: '/users', access: 'users.manage', handler: () => service.list() }),
     defineRoute({
-      method: 'post', path: '/users', access: ['admin'], body: userInviteBody, status: 201,
+      method: 'post', path: '/users', access: 'users.manage', body: userInviteBody, status: 201,
       handler: ({ principal, body }) => service.invite(principal, body),
     }),
     defineRoute({
-      method: 'patch', path: '/users/:id', access: ['admin'], params: idParams, body: userUpdateBody,
+      method: 'patch', path: '/users/:id', access: 'users.manage', params: idParams, body: userUpdateBody,
       handler: ({ principal, params, body }) => service.update(principal, params.id, body),
     }),
     defineRoute({
