@@ -100,7 +100,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
   api.use('/districts/:id/boundary', jsonBody(LIMITS.JSON_BOUNDARY_MAX_BYTES));
   api.use(cookieParser());
   api.use(sessionMiddleware(auth));
-  mountRoutes(api, routes);
+  mountRoutes(api, routes, { checkResponses: ctx.config.CHECK_RESPONSES ?? ctx.config.NODE_ENV === 'test', logger: ctx.logger });
   api.use(apiNotFound);
   api.use(errorMiddleware(ctx.logger));
   app.use('/api', api);

@@ -4,6 +4,7 @@ import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
 import { FieldTeamsService } from './field-teams.service';
 import { FieldWeeksService } from './field-weeks.service';
+import { fieldTeamCandidatesResponse, fieldTeamDto, fieldTeamsResponse, fieldWeekDto, fieldWeekResponse } from '../../shared/api/field.schema';
 
 /** Field teams and the Field week (issue 19). Who may call what: the field.* rows of shared/permissions.ts. */
 export function fieldRoutes(ctx: AppContext) {
@@ -11,39 +12,39 @@ export function fieldRoutes(ctx: AppContext) {
   const weeks = new FieldWeeksService(ctx);
   return [
     defineRoute({
-      method: 'get', path: '/field-teams', access: 'field.seeTeams',
+      method: 'get', path: '/field-teams', access: 'field.seeTeams', response: fieldTeamsResponse,
       handler: ({ principal }) => teams.list(principal),
     }),
     defineRoute({
-      method: 'get', path: '/field-teams/candidates', access: 'field.manageTeams',
+      method: 'get', path: '/field-teams/candidates', access: 'field.manageTeams', response: fieldTeamCandidatesResponse,
       handler: () => teams.candidates(),
     }),
     defineRoute({
-      method: 'post', path: '/field-teams', access: 'field.manageTeams', body: fieldTeamBody, status: 201,
+      method: 'post', path: '/field-teams', access: 'field.manageTeams', response: fieldTeamDto, body: fieldTeamBody, status: 201,
       handler: ({ principal, body }) => teams.create(principal, body),
     }),
     defineRoute({
-      method: 'put', path: '/field-teams/:id', access: 'field.manageTeams', params: idParams, body: fieldTeamBody,
+      method: 'put', path: '/field-teams/:id', access: 'field.manageTeams', response: fieldTeamDto, params: idParams, body: fieldTeamBody,
       handler: ({ principal, params, body }) => teams.update(principal, params.id, body),
     }),
     defineRoute({
-      method: 'delete', path: '/field-teams/:id', access: 'field.manageTeams', params: idParams,
+      method: 'delete', path: '/field-teams/:id', access: 'field.manageTeams', response: 'empty', params: idParams,
       handler: async ({ principal, params }) => { await teams.remove(principal, params.id); },
     }),
     defineRoute({
-      method: 'get', path: '/field-weeks', access: 'field.seeWeek', query: fieldWeekQuery,
+      method: 'get', path: '/field-weeks', access: 'field.seeWeek', response: fieldWeekResponse, query: fieldWeekQuery,
       handler: ({ principal, query }) => weeks.get(principal, query.weekStart),
     }),
     defineRoute({
-      method: 'post', path: '/field-weeks/proposal', access: 'field.plan', body: fieldWeekProposalBody,
+      method: 'post', path: '/field-weeks/proposal', access: 'field.plan', response: fieldWeekDto, body: fieldWeekProposalBody,
       handler: ({ principal, body }) => weeks.propose(principal, body),
     }),
     defineRoute({
-      method: 'put', path: '/field-weeks/:id/days', access: 'field.plan', params: idParams, body: fieldWeekDaysBody,
+      method: 'put', path: '/field-weeks/:id/days', access: 'field.plan', response: fieldWeekDto, params: idParams, body: fieldWeekDaysBody,
       handler: ({ principal, params, body }) => weeks.saveDays(principal, params.id, body),
     }),
     defineRoute({
-      method: 'post', path: '/field-weeks/:id/publish', access: 'field.plan', params: idParams,
+      method: 'post', path: '/field-weeks/:id/publish', access: 'field.plan', response: fieldWeekDto, params: idParams,
       handler: ({ principal, params }) => weeks.publish(principal, params.id),
     }),
   ];
