@@ -19,7 +19,8 @@ import { apiNotFound, errorMiddleware } from './http/error-middleware';
 import { jsonBody } from './http/json-body';
 import { LIMITS } from './http/limits';
 import { requestLog } from './http/request-log';
-import { mountRoutes, type RouteDef } from './http/route';
+import { defineRoute, mountRoutes, type RouteDef } from './http/route';
+import { buildOpenApi, openApiResponse } from './http/openapi';
 import { usersRoutes } from './users/users.routes';
 import { casesRoutes } from './cases/cases.routes';
 import { weatherRoutes } from './weather/weather.routes';
@@ -83,6 +84,8 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...lookBackRoutes(ctx),
     ...fieldRoutes(ctx),
   ];
+  // The OpenAPI document of this very table (server/http/openapi.ts), for admins.
+  routes.push(defineRoute({ method: 'get', path: '/openapi.json', access: 'api.describe', response: openApiResponse, handler: () => buildOpenApi(routes) }));
   app.locals.routes = routes;
 
   const api = express.Router();
@@ -100,7 +103,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
   api.use('/districts/:id/boundary', jsonBody(LIMITS.JSON_BOUNDARY_MAX_BYTES));
   api.use(cookieParser());
   api.use(sessionMiddleware(auth));
-  mountRoutes(api, routes);
+  mountRoutes(api, routes, { checkResponses: ctx.config.CHECK_RESPONSES ?? ctx.config.NODE_ENV === 'test', logger: ctx.logger });
   api.use(apiNotFound);
   api.use(errorMiddleware(ctx.logger));
   app.use('/api', api);

@@ -20,6 +20,11 @@ export const configSchema = z.object({
   REGION_NAME: z.string().trim().min(1, { message: 'must name the region' }).max(80).default('Halvern'),
   CLIENT_DIST: z.string().default('dist/client'),
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
+  /**
+   * Check every JSON answer of the API against its route's response schema (server/http/route.ts) and answer
+   * 500 response_contract_violation when it does not match. On by default in tests, off otherwise.
+   */
+  CHECK_RESPONSES: z.enum(['true', 'false']).optional().transform((v) => (v === undefined ? undefined : v === 'true')),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   TRUST_PROXY: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
   SIGN_IN_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(10),

@@ -14,6 +14,7 @@ import { preferencesOf } from '../users/user.presenter';
 import { UsersRepository } from '../users/users.repository';
 import type { AuthService } from './auth.service';
 import { sessionCookieOptions } from './session.middleware';
+import { passwordResetRequestedResponse } from '../../shared/api/auth.schema';
 
 /**
  * Sign-in attempts are limited per address (every attempt counts) and per account (failed attempts
@@ -58,7 +59,7 @@ export function authRoutes(ctx: AppContext, auth: AuthService) {
     defineRoute({
       method: 'post',
       path: '/auth/sign-in',
-      access: 'public',
+      access: 'public', response: meResponse,
       body: signInBody,
       before: attemptLimiters(ctx, 'sign-in'),
       handler: async ({ body }, req, res) => {
@@ -73,7 +74,7 @@ export function authRoutes(ctx: AppContext, auth: AuthService) {
     defineRoute({
       method: 'post',
       path: '/auth/sign-out',
-      access: 'public',
+      access: 'public', response: 'empty',
       handler: async (_input, req, res) => {
         await auth.signOut(req.cookies?.[auth.cookieName]);
         res.clearCookie(auth.cookieName, sessionCookieOptions(ctx.config));
@@ -83,13 +84,13 @@ export function authRoutes(ctx: AppContext, auth: AuthService) {
     defineRoute({
       method: 'get',
       path: '/me',
-      access: 'signed-in',
+      access: 'signed-in', response: meResponse,
       handler: async ({ principal }) => presentMe((await users.findWithDistricts(principal.userId))!),
     }),
     defineRoute({
       method: 'post',
       path: '/auth/password-reset',
-      access: 'public',
+      access: 'public', response: passwordResetRequestedResponse,
       body: passwordResetRequestBody,
       before: attemptLimiters(ctx, 'password-reset'),
       status: 202,
@@ -101,14 +102,14 @@ export function authRoutes(ctx: AppContext, auth: AuthService) {
     defineRoute({
       method: 'post',
       path: '/auth/password-reset/confirm',
-      access: 'public',
+      access: 'public', response: 'empty',
       body: passwordResetConfirmBody,
       handler: async ({ body }) => auth.confirmPasswordReset(body.token, body.password),
     }),
     defineRoute({
       method: 'post',
       path: '/auth/invite/accept',
-      access: 'public',
+      access: 'public', response: 'empty',
       body: inviteAcceptBody,
       handler: async ({ body }) => auth.acceptInvite(body.token, body.password),
     }),

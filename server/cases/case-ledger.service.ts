@@ -29,6 +29,7 @@ import { currentWeek, deadlineOf, firstOpenWeek, isDue, isOpenWeek, todayIn, wee
 import { CaseWeekClosureEntity } from './case-week-closure.entity';
 import { DiseaseEntity } from './disease.entity';
 import { isUniqueViolation } from '../platform/database-errors';
+import { mayIn } from '../../shared/permissions';
 
 
 /** The new values of one count as an entry or upload gives them; `undefined` keeps what is recorded. */
@@ -410,7 +411,7 @@ export class CaseLedgerService {
       weeks,
       rows: districts.map((d) => ({
         district: { id: d.id, code: d.code, name: d.name },
-        editable: p.role === 'epidemiologist' && p.districtIds.includes(d.id),
+        editable: mayIn(p.role, 'cases.enter', p.districtIds.includes(d.id)),
         completeness: completeness.get(d.id)!,
         cells: weeks.map((w) => {
           const key = `${d.id}:${weekKey(w.year, w.week)}`;
@@ -485,9 +486,9 @@ export class CaseLedgerService {
       deadlineDays: this.ctx.config.CASE_REPORT_DEADLINE_DAYS,
       completeness,
       notes,
-      canEnter: p.role === 'epidemiologist' && assigned,
-      canReadHistory: p.role === 'admin' || p.role === 'supervisor' || (p.role === 'epidemiologist' && assigned),
-      canClose: p.role === 'supervisor' || (p.role === 'epidemiologist' && assigned),
+      canEnter: mayIn(p.role, 'cases.enter', assigned),
+      canReadHistory: mayIn(p.role, 'cases.readHistory', assigned),
+      canClose: mayIn(p.role, 'cases.closeWeek', assigned),
       weeks: result.weeks.map((w) => {
         const row = rowsThisYear.get(w.week);
         return {

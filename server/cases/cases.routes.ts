@@ -18,6 +18,7 @@ import { checkCsvUpload, uploadLimit } from '../http/uploads';
 import { CaseLedgerService } from './case-ledger.service';
 import { CaseUploadService, UPLOAD_MAX_BYTES } from './case-upload.service';
 import { surveysRoutes } from './surveys.routes';
+import { caseCountResult, casesSettingsResponse, closureResponse, countResponse, diseaseDto, diseasesResponse, gridResponse, reopenResponse, revisionsResponse, signalsResponse, uploadReport, voidCountResponse } from '../../shared/api/cases.schema';
 
 /** Case ledger and field survey routes. */
 export function casesRoutes(ctx: AppContext): RouteDef[] {
@@ -26,18 +27,18 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
   // Memory storage: the file is parsed and dropped; it never touches the disk (the size limit bounds memory).
   const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: UPLOAD_MAX_BYTES, files: 1, fields: 5 } });
   return [
-    defineRoute({ method: 'get', path: '/diseases', access: 'signed-in', handler: () => ledger.listDiseases() }),
+    defineRoute({ method: 'get', path: '/diseases', access: 'signed-in', response: diseasesResponse, handler: () => ledger.listDiseases() }),
     defineRoute({
-      method: 'post', path: '/diseases', access: ['admin'], body: diseaseCreateBody, status: 201,
+      method: 'post', path: '/diseases', access: 'diseases.manage', response: diseaseDto, body: diseaseCreateBody, status: 201,
       handler: ({ principal, body }) => ledger.createDisease(principal, body),
     }),
-    defineRoute({ method: 'get', path: '/cases/settings', access: 'signed-in', handler: () => ledger.settings() }),
+    defineRoute({ method: 'get', path: '/cases/settings', access: 'signed-in', response: casesSettingsResponse, handler: () => ledger.settings() }),
     defineRoute({
-      method: 'get', path: '/cases/grid', access: 'signed-in', query: gridQuery,
+      method: 'get', path: '/cases/grid', access: 'signed-in', response: gridResponse, query: gridQuery,
       handler: ({ principal, query }) => ledger.grid(principal, query),
     }),
     defineRoute({
-      method: 'post', path: '/cases/uploads', access: ['epidemiologist'], before: [uploadLimit(UPLOAD_MAX_BYTES), upload.single('file'), checkCsvUpload], body: caseUploadFields,
+      method: 'post', path: '/cases/uploads', access: 'cases.enter', response: uploadReport, before: [uploadLimit(UPLOAD_MAX_BYTES), upload.single('file'), checkCsvUpload], body: caseUploadFields,
       handler: async ({ principal, body }, req, res) => {
         if (!req.file) throw badRequest('file_missing', 'Attach a CSV file in the field "file".', [{ path: 'file', message: 'is required' }]);
         const report = await uploads.upload(principal, req.file, body.reason);
@@ -54,35 +55,35 @@ export function casesRoutes(ctx: AppContext): RouteDef[] {
       },
     }),
     defineRoute({
-      method: 'post', path: '/cases/counts/:id/void', access: ['epidemiologist'], params: idParams, body: voidBody,
+      method: 'post', path: '/cases/counts/:id/void', access: 'cases.enter', response: voidCountResponse, params: idParams, body: voidBody,
       handler: ({ principal, params, body }) => ledger.voidCount(principal, params.id, body.reason),
     }),
     defineRoute({
-      method: 'get', path: '/cases/counts/:id/revisions', access: ['admin', 'supervisor', 'epidemiologist'], params: idParams,
+      method: 'get', path: '/cases/counts/:id/revisions', access: 'cases.readHistory', response: revisionsResponse, params: idParams,
       handler: ({ principal, params }) => ledger.revisions(principal, params.id),
     }),
     defineRoute({
-      method: 'get', path: '/districts/:id/cases', access: 'signed-in', params: idParams, query: districtCasesQuery,
+      method: 'get', path: '/districts/:id/cases', access: 'signed-in', response: signalsResponse, params: idParams, query: districtCasesQuery,
       handler: ({ principal, params, query }) => ledger.signals(principal, params.id, query),
     }),
     defineRoute({
-      method: 'get', path: '/districts/:id/cases/count', access: 'signed-in', params: idParams, query: countQuery,
+      method: 'get', path: '/districts/:id/cases/count', access: 'signed-in', response: countResponse, params: idParams, query: countQuery,
       handler: ({ principal, params, query }) => ledger.storedCount(principal, params.id, query),
     }),
     defineRoute({
-      method: 'put', path: '/districts/:id/cases', access: ['epidemiologist'], params: idParams, body: caseCountBody,
+      method: 'put', path: '/districts/:id/cases', access: 'cases.enter', response: caseCountResult, params: idParams, body: caseCountBody,
       handler: ({ principal, params, body }) => ledger.putCount(principal, params.id, body),
     }),
     defineRoute({
-      method: 'post', path: '/districts/:id/weeks/close', access: ['epidemiologist', 'supervisor'], params: idParams, body: closeWeekBody,
+      method: 'post', path: '/districts/:id/weeks/close', access: 'cases.closeWeek', response: closureResponse, params: idParams, body: closeWeekBody,
       handler: ({ principal, params, body }) => ledger.closeWeek(principal, params.id, body),
     }),
     defineRoute({
-      method: 'post', path: '/districts/:id/weeks/reopen', access: ['epidemiologist', 'supervisor'], params: idParams, body: reopenWeekBody,
+      method: 'post', path: '/districts/:id/weeks/reopen', access: 'cases.closeWeek', response: reopenResponse, params: idParams, body: reopenWeekBody,
       handler: ({ principal, params, body }) => ledger.reopenWeek(principal, params.id, body),
     }),
     defineRoute({
-      method: 'put', path: '/districts/:id/channel-settings', access: ['admin', 'epidemiologist'], params: idParams, body: channelSettingsBody,
+      method: 'put', path: '/districts/:id/channel-settings', access: 'cases.channelSettings', params: idParams, body: channelSettingsBody,
       handler: ({ principal, params, body }) => ledger.setChannelSettings(principal, params.id, body),
     }),
     ...surveysRoutes(ctx),

@@ -8,6 +8,7 @@ import { checkCsvUpload, uploadLimit } from '../http/uploads';
 import { CSV_IMPORT_MAX_BYTES, CsvImportsService } from './csv-imports.service';
 import { DISTRICT_IMPORT_MAX_BYTES, DistrictImportService } from './district-import.service';
 import { ImportRejected } from './import-common';
+import { districtImportReport, importReport } from '../../shared/api/imports.schema';
 
 const GEO_EXTENSIONS = /\.(geojson|json|topojson)$/i;
 
@@ -55,17 +56,17 @@ export function importsRoutes(ctx: AppContext): RouteDef[] {
   const csvUpload = multer({ storage: multer.memoryStorage(), limits: { fileSize: CSV_IMPORT_MAX_BYTES, files: 1, fields: 2 } });
   return [
     defineRoute({
-      method: 'post', path: '/districts/import', access: ['admin'], query: importQuery, body: districtImportFields,
+      method: 'post', path: '/districts/import', access: 'districts.manage', response: districtImportReport, query: importQuery, body: districtImportFields,
       before: [uploadLimit(DISTRICT_IMPORT_MAX_BYTES), geoUpload.single('file'), checkGeoUpload],
       handler: ({ principal, body, query }, req, res) => answer(res, () => districts.import(principal, fileOf(req), body, optionsOf(query))),
     }),
     defineRoute({
-      method: 'post', path: '/districts/populations/import', access: ['admin'], query: importQuery, body: csvImportFields,
+      method: 'post', path: '/districts/populations/import', access: 'districts.manage', response: importReport, query: importQuery, body: csvImportFields,
       before: [uploadLimit(CSV_IMPORT_MAX_BYTES), csvUpload.single('file'), checkCsvUpload],
       handler: ({ principal, body, query }, req, res) => answer(res, () => csv.populations(principal, fileOf(req), body.reason, optionsOf(query))),
     }),
     defineRoute({
-      method: 'post', path: '/weather/stations/import', access: ['admin'], query: importQuery, body: csvImportFields,
+      method: 'post', path: '/weather/stations/import', access: 'districts.manage', response: importReport, query: importQuery, body: csvImportFields,
       before: [uploadLimit(CSV_IMPORT_MAX_BYTES), csvUpload.single('file'), checkCsvUpload],
       handler: ({ principal, body, query }, req, res) => answer(res, () => csv.stations(principal, fileOf(req), body.reason, optionsOf(query))),
     }),

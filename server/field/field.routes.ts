@@ -1,50 +1,50 @@
 import { idParams } from '../../shared/api/common.schema';
 import { fieldTeamBody, fieldWeekDaysBody, fieldWeekProposalBody, fieldWeekQuery } from '../../shared/api/field.schema';
-import { FIELD_ACCESS } from '../../shared/field/work-kinds';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
 import { FieldTeamsService } from './field-teams.service';
 import { FieldWeeksService } from './field-weeks.service';
+import { fieldTeamCandidatesResponse, fieldTeamDto, fieldTeamsResponse, fieldWeekDto, fieldWeekResponse } from '../../shared/api/field.schema';
 
-/** Field teams and the Field week (issue 19). Who may call what: FIELD_ACCESS in shared/field/work-kinds.ts. */
+/** Field teams and the Field week (issue 19). Who may call what: the field.* rows of shared/permissions.ts. */
 export function fieldRoutes(ctx: AppContext) {
   const teams = new FieldTeamsService(ctx);
   const weeks = new FieldWeeksService(ctx);
   return [
     defineRoute({
-      method: 'get', path: '/field-teams', access: FIELD_ACCESS.seeTeams,
+      method: 'get', path: '/field-teams', access: 'field.seeTeams', response: fieldTeamsResponse,
       handler: ({ principal }) => teams.list(principal),
     }),
     defineRoute({
-      method: 'get', path: '/field-teams/candidates', access: FIELD_ACCESS.manageTeams,
+      method: 'get', path: '/field-teams/candidates', access: 'field.manageTeams', response: fieldTeamCandidatesResponse,
       handler: () => teams.candidates(),
     }),
     defineRoute({
-      method: 'post', path: '/field-teams', access: FIELD_ACCESS.manageTeams, body: fieldTeamBody, status: 201,
+      method: 'post', path: '/field-teams', access: 'field.manageTeams', response: fieldTeamDto, body: fieldTeamBody, status: 201,
       handler: ({ principal, body }) => teams.create(principal, body),
     }),
     defineRoute({
-      method: 'put', path: '/field-teams/:id', access: FIELD_ACCESS.manageTeams, params: idParams, body: fieldTeamBody,
+      method: 'put', path: '/field-teams/:id', access: 'field.manageTeams', response: fieldTeamDto, params: idParams, body: fieldTeamBody,
       handler: ({ principal, params, body }) => teams.update(principal, params.id, body),
     }),
     defineRoute({
-      method: 'delete', path: '/field-teams/:id', access: FIELD_ACCESS.manageTeams, params: idParams,
+      method: 'delete', path: '/field-teams/:id', access: 'field.manageTeams', response: 'empty', params: idParams,
       handler: async ({ principal, params }) => { await teams.remove(principal, params.id); },
     }),
     defineRoute({
-      method: 'get', path: '/field-weeks', access: FIELD_ACCESS.seeWeek, query: fieldWeekQuery,
+      method: 'get', path: '/field-weeks', access: 'field.seeWeek', response: fieldWeekResponse, query: fieldWeekQuery,
       handler: ({ principal, query }) => weeks.get(principal, query.weekStart),
     }),
     defineRoute({
-      method: 'post', path: '/field-weeks/proposal', access: FIELD_ACCESS.planWeek, body: fieldWeekProposalBody,
+      method: 'post', path: '/field-weeks/proposal', access: 'field.plan', response: fieldWeekDto, body: fieldWeekProposalBody,
       handler: ({ principal, body }) => weeks.propose(principal, body),
     }),
     defineRoute({
-      method: 'put', path: '/field-weeks/:id/days', access: FIELD_ACCESS.planWeek, params: idParams, body: fieldWeekDaysBody,
+      method: 'put', path: '/field-weeks/:id/days', access: 'field.plan', response: fieldWeekDto, params: idParams, body: fieldWeekDaysBody,
       handler: ({ principal, params, body }) => weeks.saveDays(principal, params.id, body),
     }),
     defineRoute({
-      method: 'post', path: '/field-weeks/:id/publish', access: FIELD_ACCESS.planWeek, params: idParams,
+      method: 'post', path: '/field-weeks/:id/publish', access: 'field.plan', response: fieldWeekDto, params: idParams,
       handler: ({ principal, params }) => weeks.publish(principal, params.id),
     }),
   ];

@@ -5,6 +5,7 @@ import type { AppContext } from '../app-context';
 import { defineRoute, type RouteDef } from '../http/route';
 import { FlagSettingsService } from './flag-settings.service';
 import { FlagsService } from './flags.service';
+import { advisoriesResponse, flagDetailResponse, flagDto, flagSettingsDto, flagsResponse } from '../../shared/api/flags.schema';
 
 /** Flags (raise by hand, the sign-off queue, approve / reject) and the advisories they became. */
 export function flagsRoutes(ctx: AppContext): RouteDef[] {
@@ -13,35 +14,35 @@ export function flagsRoutes(ctx: AppContext): RouteDef[] {
   const settings = new FlagSettingsService(ctx);
   return [
     defineRoute({
-      method: 'get', path: '/flags', access: ['admin', 'officer', 'epidemiologist', 'supervisor'], query: flagsQuery,
+      method: 'get', path: '/flags', access: 'flags.read', response: flagsResponse, query: flagsQuery,
       handler: ({ query }) => flags.list(query),
     }),
     defineRoute({
-      method: 'post', path: '/flags', access: ['officer', 'epidemiologist'], body: raiseFlagBody, status: 201,
+      method: 'post', path: '/flags', access: 'flags.raise', response: flagDto, body: raiseFlagBody, status: 201,
       handler: ({ principal, body }) => flags.raise(principal, body),
     }),
     defineRoute({
-      method: 'get', path: '/flags/:id', access: ['admin', 'officer', 'epidemiologist', 'supervisor'], params: idParams,
+      method: 'get', path: '/flags/:id', access: 'flags.read', response: flagDetailResponse, params: idParams,
       handler: ({ params }) => flags.detail(params.id),
     }),
     defineRoute({
-      method: 'post', path: '/flags/:id/approve', access: ['supervisor'], params: idParams, body: approveFlagBody,
+      method: 'post', path: '/flags/:id/approve', access: 'flags.signOff', response: flagDto, params: idParams, body: approveFlagBody,
       handler: ({ principal, params, body }) => flags.approve(principal, params.id, body),
     }),
     defineRoute({
-      method: 'post', path: '/flags/:id/reject', access: ['supervisor'], params: idParams, body: rejectFlagBody,
+      method: 'post', path: '/flags/:id/reject', access: 'flags.signOff', response: flagDto, params: idParams, body: rejectFlagBody,
       handler: ({ principal, params, body }) => flags.reject(principal, params.id, body),
     }),
     defineRoute({
-      method: 'get', path: '/flag-settings', access: ['admin'],
+      method: 'get', path: '/flag-settings', access: 'flagSettings.manage', response: flagSettingsDto,
       handler: () => settings.get(),
     }),
     defineRoute({
-      method: 'put', path: '/flag-settings', access: ['admin'], body: flagSettingsBody,
+      method: 'put', path: '/flag-settings', access: 'flagSettings.manage', response: flagSettingsDto, body: flagSettingsBody,
       handler: ({ principal, body }) => settings.update(principal, body),
     }),
     defineRoute({
-      method: 'get', path: '/advisories', access: 'signed-in', query: advisoriesQuery,
+      method: 'get', path: '/advisories', access: 'signed-in', response: advisoriesResponse, query: advisoriesQuery,
       handler: ({ principal, query }) => advisories.list(principal, query),
     }),
   ];

@@ -1,12 +1,13 @@
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
+import { healthResponse } from '../../shared/api/common.schema';
 
 export function healthRoutes(ctx: AppContext) {
   return [
     defineRoute({
       method: 'get',
       path: '/health',
-      access: 'public',
+      access: 'public', response: healthResponse,
       handler: async (_input, _req, res) => {
         try {
           await ctx.ds.query('SELECT 1');

@@ -12,8 +12,7 @@ import { checkCsvUpload, uploadLimit } from '../http/uploads';
 import { WeatherFeedService } from './weather-feed.service';
 import { uploadFolder } from './upload-dir';
 import { WeatherService } from './weather.service';
-
-const EDITORS = ['admin', 'officer'] as const;
+import { confirmResponse, conflictsResponse, districtSeriesResponse, feedPullResponse, heldResponse, issuesResponse, resolveConflictResponse, revisionsResponse, stationDaysResponse, stationDto, stationsResponse, uploadDto, uploadsResponse } from '../../shared/api/weather.schema';
 
 /** Weather intake routes (stations, uploads, corrections, the feed, district series). */
 export function weatherRoutes(ctx: AppContext) {
@@ -36,35 +35,35 @@ export function weatherRoutes(ctx: AppContext) {
   };
 
   return [
-    defineRoute({ method: 'get', path: '/weather/stations', access: 'signed-in', handler: ({ principal }) => service.stations(principal) }),
+    defineRoute({ method: 'get', path: '/weather/stations', access: 'signed-in', response: stationsResponse, handler: ({ principal }) => service.stations(principal) }),
     defineRoute({
-      method: 'post', path: '/weather/stations', access: EDITORS, body: stationCreateBody, status: 201,
+      method: 'post', path: '/weather/stations', access: 'weather.upload', response: stationDto, body: stationCreateBody, status: 201,
       handler: ({ principal, body }) => service.createStation(principal, body),
     }),
     defineRoute({
-      method: 'patch', path: '/weather/stations/:id', access: EDITORS, params: idParams, body: stationUpdateBody,
+      method: 'patch', path: '/weather/stations/:id', access: 'weather.upload', response: stationDto, params: idParams, body: stationUpdateBody,
       handler: ({ principal, params, body }) => service.updateStation(principal, params.id, body),
     }),
     defineRoute({
-      method: 'get', path: '/weather/stations/:id/days', access: 'signed-in', params: idParams, query: rangeQuery,
+      method: 'get', path: '/weather/stations/:id/days', access: 'signed-in', response: stationDaysResponse, params: idParams, query: rangeQuery,
       handler: ({ principal, params, query }) => service.stationDays(principal, params.id, query),
     }),
     defineRoute({
-      method: 'get', path: '/weather/stations/:id/revisions', access: EDITORS, params: idParams, query: revisionsQuery,
+      method: 'get', path: '/weather/stations/:id/revisions', access: 'weather.upload', response: revisionsResponse, params: idParams, query: revisionsQuery,
       handler: ({ params, query }) => service.revisions(params.id, query.date),
     }),
     defineRoute({
-      method: 'post', path: '/weather/uploads', access: EDITORS, query: uploadQuery, body: uploadForm, status: 201,
+      method: 'post', path: '/weather/uploads', access: 'weather.upload', response: uploadDto, query: uploadQuery, body: uploadForm, status: 201,
       before: [dropUntaken, uploadLimit(ctx.config.WEATHER_UPLOAD_MAX_BYTES), upload, checkCsvUpload],
       handler: ({ principal, body, query }, req) => service.acceptFile(principal, req.file, body, query.wait === 'true'),
     }),
-    defineRoute({ method: 'get', path: '/weather/uploads', access: EDITORS, handler: () => service.uploads() }),
+    defineRoute({ method: 'get', path: '/weather/uploads', access: 'weather.upload', response: uploadsResponse, handler: () => service.uploads() }),
     defineRoute({
-      method: 'get', path: '/weather/uploads/:id', access: EDITORS, params: idParams,
+      method: 'get', path: '/weather/uploads/:id', access: 'weather.upload', response: uploadDto, params: idParams,
       handler: ({ params }) => service.upload(params.id),
     }),
     defineRoute({
-      method: 'get', path: '/weather/uploads/:id/issues', access: EDITORS, params: idParams,
+      method: 'get', path: '/weather/uploads/:id/issues', access: 'weather.upload', response: issuesResponse, params: idParams,
       query: issuesReportQuery,
       handler: ({ params, query }, _req, res) =>
         query.format === 'csv'
@@ -72,29 +71,29 @@ export function weatherRoutes(ctx: AppContext) {
           : service.issues(params.id, query.offset, query.limit),
     }),
     defineRoute({
-      method: 'put', path: '/weather/observations', access: EDITORS, body: correctionBody,
+      method: 'put', path: '/weather/observations', access: 'weather.upload', response: uploadDto, body: correctionBody,
       handler: ({ principal, body }) => service.correct(principal, body),
     }),
     defineRoute({
-      method: 'post', path: '/weather/observations/void', access: EDITORS, body: voidDayBody,
+      method: 'post', path: '/weather/observations/void', access: 'weather.upload', body: voidDayBody,
       handler: ({ principal, body }) => service.voidDay(principal, body),
     }),
     defineRoute({
-      method: 'post', path: '/weather/observations/confirm', access: EDITORS, body: confirmBody,
+      method: 'post', path: '/weather/observations/confirm', access: 'weather.upload', response: confirmResponse, body: confirmBody,
       handler: ({ principal, body }) => service.confirm(principal, body),
     }),
-    defineRoute({ method: 'get', path: '/weather/held', access: EDITORS, handler: () => service.held() }),
-    defineRoute({ method: 'get', path: '/weather/conflicts', access: EDITORS, handler: () => service.conflicts() }),
+    defineRoute({ method: 'get', path: '/weather/held', access: 'weather.upload', response: heldResponse, handler: () => service.held() }),
+    defineRoute({ method: 'get', path: '/weather/conflicts', access: 'weather.upload', response: conflictsResponse, handler: () => service.conflicts() }),
     defineRoute({
-      method: 'post', path: '/weather/conflicts/:id/resolve', access: EDITORS, params: conflictParams, body: resolveConflictBody,
+      method: 'post', path: '/weather/conflicts/:id/resolve', access: 'weather.upload', response: resolveConflictResponse, params: conflictParams, body: resolveConflictBody,
       handler: ({ principal, params, body }) => service.resolveConflict(principal, params.id, body),
     }),
     defineRoute({
-      method: 'post', path: '/weather/feed/pull', access: EDITORS, status: 201,
+      method: 'post', path: '/weather/feed/pull', access: 'weather.upload', response: feedPullResponse, status: 201,
       handler: async ({ principal }) => service.pulled(await feed.pull(principal.userId)),
     }),
     defineRoute({
-      method: 'get', path: '/weather/districts/:id/series', access: 'signed-in', params: idParams, query: rangeQuery,
+      method: 'get', path: '/weather/districts/:id/series', access: 'signed-in', response: districtSeriesResponse, params: idParams, query: rangeQuery,
       handler: ({ principal, params, query }) => service.districtSeries(principal, params.id, query),
     }),
   ];

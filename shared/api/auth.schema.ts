@@ -53,3 +53,6 @@ export const passwordResetConfirmBody = z.strictObject({
 });
 export const inviteAcceptBody = passwordResetConfirmBody;
 export type PasswordResetConfirmBody = z.infer<typeof passwordResetConfirmBody>;
+
+/** `POST /api/auth/password-reset` (202): the same answer whether or not the address is known. */
+export const passwordResetRequestedResponse = z.object({ status: z.literal('sent-if-known') });

@@ -354,3 +354,6 @@ export type SignalsResponse = z.infer<typeof signalsResponse>;
 
 /** The text fields sent with an uploaded file (multipart/form-data). */
 export const caseUploadFields = z.strictObject({ reason: reason.optional() });
+
+/** `POST /api/cases/counts/:id/void`: the count, now voided. */
+export const voidCountResponse = z.object({ count: caseCountDto });

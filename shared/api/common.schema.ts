@@ -57,3 +57,6 @@ export function uniqueArray<T extends z.ZodType>(
 
 /** A list of ids (UUIDs) without repeats. */
 export const uniqueIds = (max: number) => uniqueArray(uuid, { max });
+
+/** `GET /api/health`: 200 when the database answers (a 503 names it down). */
+export const healthResponse = z.object({ status: z.enum(['ok', 'degraded']), database: z.enum(['up', 'down']) });

@@ -1,5 +1,5 @@
 import type { DriverId, Tier } from '../tier/tier-settings';
-import type { Role } from '../roles';
+import { rolesWith } from '../permissions';
 
 /** The kinds of field work a team can be trained for (terms of the trade). */
 export const WORK_KINDS = [
@@ -41,14 +41,13 @@ export const workNeededFor = (leadingDriver: DriverId | null): readonly WorkKind
  */
 export const DAYS_NEEDED_BY_TIER: Record<Tier, number> = { baseline: 0, raised: 1, high: 2, critical: 3 };
 
-/** Permission table of the Field week (docs/product.md § Roles): the routes and the screen read these rows. */
+/**
+ * @deprecated The Field week's rows now live in the permission table (shared/permissions.ts, field.*);
+ * this alias is read from it and stays only so that code written against it still compiles.
+ */
 export const FIELD_ACCESS = {
-  /** keep the list of teams */
-  manageTeams: ['officer'],
-  /** see the teams: the officer, the supervisor who may approve, and team members (their own teams) */
-  seeTeams: ['officer', 'supervisor', 'worker'],
-  /** propose, edit and publish the Field week */
-  planWeek: ['officer'],
-  /** see a Field week: planners and approvers all of it, a community worker their own teams' days */
-  seeWeek: ['officer', 'supervisor', 'worker'],
-} as const satisfies Record<string, readonly Role[]>;
+  manageTeams: rolesWith('field.manageTeams'),
+  seeTeams: rolesWith('field.seeTeams'),
+  planWeek: rolesWith('field.plan'),
+  seeWeek: rolesWith('field.seeWeek'),
+} as const;

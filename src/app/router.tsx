@@ -4,6 +4,7 @@ import { loadNamespaces } from '../i18n';
 import { SCREEN_TEXTS, type ScreenModule } from '../i18n/screen-texts';
 import { meQueryOptions } from '../features/auth/api/me.api';
 import { loadAuthSchemas } from '../features/auth/api/auth-schemas';
+import { rolesWith } from '../../shared/permissions';
 import { rolesFor } from './navigation';
 import { NotFoundPage } from './not-found.page';
 import { queryClient } from './query-client';
@@ -251,13 +252,13 @@ export const routes: RouteObject[] = [
             // Raise a flag by hand: health officers and epidemiologists (docs/product.md § Roles).
             path: 'flags/new',
             lazy: screen('features/flags/raise-flag.page', () => import('../features/flags/raise-flag.page'), ({ RaiseFlagPage }) => ({
-              element: guarded(['officer', 'epidemiologist'], <RaiseFlagPage />),
+              element: guarded(rolesWith('flags.raise'), <RaiseFlagPage />),
             })),
           },
           {
             path: 'flags/:id',
             lazy: screen('features/flags/flag.page', () => import('../features/flags/flag.page'), ({ FlagPage }) => ({
-              element: guarded(['admin', 'officer', 'epidemiologist', 'supervisor'], <FlagPage />),
+              element: guarded(rolesWith('flags.read'), <FlagPage />),
             })),
           },
           {

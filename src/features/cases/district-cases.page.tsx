@@ -17,6 +17,7 @@ import { useDistrictSignals } from './api/district-signals.api';
 import { useCaseFormat } from './case-format';
 import { EpidemicYearsForm } from './components/epidemic-years.form';
 import { SignalsTable } from './components/signals.table';
+import { mayIn } from '../../../shared/permissions';
 
 const ChannelChart = lazy(() => import('./components/channel-chart').then((m) => ({ default: m.ChannelChart })));
 
@@ -153,7 +154,7 @@ export function DistrictCasesPage() {
           <CautionsPanel />
           {/* Keyed by district and disease only: a key holding the saved years remounted the form when its
               own save came back, and the "Left out: …" confirmation vanished before it could be read. */}
-          {data && (data.canEnter || me.role === 'admin') ? <EpidemicYearsForm key={`${data.district.id}-${data.disease.id}`} data={data} /> : null}
+          {data && mayIn(me.role, 'cases.channelSettings', data.canEnter) ? <EpidemicYearsForm key={`${data.district.id}-${data.disease.id}`} data={data} /> : null}
         </div>
       </div>
     </section>

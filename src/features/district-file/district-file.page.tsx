@@ -20,6 +20,7 @@ import { profileLabel, weatherSourceText } from './district-file-format';
 import { useLadderWords } from '../ladder/ladder-format';
 import './district-file.css';
 import { errorText } from '../../lib/error-text';
+import { may } from '../../../shared/permissions';
 
 const seasonParam = (v: string | null) => (v && /^\d{4}$/.test(v) ? Number(v) : null);
 const byWeek = (a: { epiYear: number; epiWeek: number }, b: { epiYear: number; epiWeek: number }) => a.epiYear - b.epiYear || a.epiWeek - b.epiWeek;
@@ -113,7 +114,7 @@ function DistrictFileView({
       <div className="flex flex-wrap items-start justify-between gap-3">
         <PageHeading lead={t('lead', { code: district.code, season: seasonYear })}>{district.name}</PageHeading>
         <span className="flex flex-wrap gap-2">
-          {me.role === 'officer' || me.role === 'epidemiologist' ? (
+          {may(me.role, 'flags.raise') ? (
             <Link to={`/flags/new?district=${district.id}`} className="btn btn-secondary btn-small">
               {t('flags:raise.raiseHere')}
             </Link>

@@ -3,8 +3,8 @@ import { useTranslation } from 'react-i18next';
 import type { FieldWeekDto } from '../../../shared/api/field.schema';
 import { FormMessage, TextField } from '../../components/form';
 import { PageHeading } from '../../components/page-heading';
-import { FIELD_ACCESS } from '../../../shared/field/work-kinds';
-import { canUse, useSession } from '../../app/session';
+import { may } from '../../../shared/permissions';
+import { useSession } from '../../app/session';
 import { errorText } from '../../lib/error-text';
 import { useFormat } from '../../i18n/format';
 import { downloadCsv } from '../../lib/csv';
@@ -28,7 +28,7 @@ export function FieldWeekPage() {
   const { t } = useTranslation('field-week');
   const f = useFormat();
   // Supervisors and team members read the week; only the health officer keeps teams and plans.
-  const plans = canUse(useSession().role, FIELD_ACCESS.planWeek);
+  const plans = may(useSession().role, 'field.plan');
   const id = useId();
   const [weekStart, setWeekStart] = useState('');
   const [travel, setTravel] = useState('150');

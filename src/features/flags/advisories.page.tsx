@@ -8,6 +8,7 @@ import { useAdvisories } from './api/advisories.api';
 import { useFlagFormat } from './flag-format';
 import { useRenderMessage } from './message';
 import { errorText } from '../../lib/error-text';
+import { may } from '../../../shared/permissions';
 
 /** Every advisory sent (a community worker: their district's), newest first, with the current ones marked. */
 export function AdvisoriesPage() {
@@ -23,7 +24,7 @@ export function AdvisoriesPage() {
         <Link className="link inline-block py-1" to="/preferences">
           {t('advisories.preferences')}
         </Link>
-        {me.role === 'officer' || me.role === 'epidemiologist' ? (
+        {may(me.role, 'flags.raise') ? (
           <Link className="link inline-block py-1" to="/flags/new">
             {t('advisories.raise')}
           </Link>
@@ -50,7 +51,7 @@ export function AdvisoriesPage() {
                 {t('advisories.sent', { when: f.formatWhen(a.issuedAt) })}
                 {a.issuedBy ? t('advisories.signedOffBy', { who: a.issuedBy.displayName }) : ''}
                 {t('advisories.recipients', { count: a.recipients })}
-                {me.role !== 'worker' ? (
+                {may(me.role, 'flags.read') ? (
                   <>
                     {' '}·{' '}
                     <Link className="link" to={`/flags/${a.flagId}`}>

@@ -7,6 +7,7 @@ import { DecisionForm } from './components/decision.form';
 import { FlagSummary } from './components/flag-summary';
 import { useFlagFormat } from './flag-format';
 import { errorText } from '../../lib/error-text';
+import { may } from '../../../shared/permissions';
 
 /** One flag with its whole history (who raised, approved or rejected it, when, and what changed). */
 export function FlagPage() {
@@ -26,7 +27,7 @@ export function FlagPage() {
         <div className="space-y-6">
           <div className="card space-y-3">
             <FlagSummary flag={detail.data.flag} />
-            {me.role === 'supervisor' ? <DecisionForm flag={detail.data.flag} /> : null}
+            {may(me.role, 'flags.signOff') ? <DecisionForm flag={detail.data.flag} /> : null}
             <p className="text-sm">
               <Link className="link" to={`/districts/${detail.data.flag.districtId}`}>
                 {t('flag.openFile')}

@@ -3,7 +3,8 @@ import { Link } from 'react-router-dom';
 import { Trans, useTranslation } from 'react-i18next';
 import { PageHeading } from '../../components/page-heading';
 import { FormMessage } from '../../components/form';
-import { canUse, useSession } from '../../app/session';
+import { may } from '../../../shared/permissions';
+import { useSession } from '../../app/session';
 import { CautionsPanel } from '../cautions/cautions-panel';
 import { DemoDataLabel } from '../districts/components/demo-data-label';
 import { FirstRunTour, TourButton, useFirstRunTour } from '../help/first-run-tour';
@@ -97,7 +98,7 @@ export function LadderPage() {
       ) : (
         <div className="grid gap-6">
           <div className="min-w-0" data-tour="ladder-table">
-            {allRows.length === 0 && canUse(me.role, ['admin', 'officer']) ? (
+            {allRows.length === 0 && may(me.role, 'seasonRuns.start') ? (
               <FormMessage kind="info">
                 <Trans t={t} i18nKey="noTiersYet" components={{ run: <Link to="/season-runs" className="link" /> }} />
               </FormMessage>

@@ -18,6 +18,8 @@ export const foundationAccess: AccessTable = {
   'PATCH /districts/:id': ['admin'],
   'PUT /districts/:id/populations': ['admin'],
   'PUT /districts/:id/boundary': ['admin'],
+  // The API's OpenAPI document (issue 15): admins.
+  'GET /openapi.json': ['admin'],
 };
 
 export const signOutAccess: AccessTable = { 'POST /auth/sign-out': EVERYBODY };

@@ -13,6 +13,8 @@ import { VoidAction } from '../../../components/void-dialog';
 import { useCaseFormat } from '../case-format';
 import { RevisionHistory } from './revision-history';
 import './case-grid.css';
+import { mayIn } from '../../../../shared/permissions';
+import type { Role } from '../../../../shared/roles';
 
 type Selected = { row: GridRow; index: number; pending?: number };
 
@@ -165,7 +167,7 @@ function CellPanel({
   selected: Selected;
   week: WeekRef;
   today: string;
-  role: string;
+  role: Role;
   onDone: () => void;
   onSaved: (text: string) => void;
 }) {
@@ -182,8 +184,8 @@ function CellPanel({
   const [reopenReason, setReopenReason] = useState('');
   const [showHistory, setShowHistory] = useState(false);
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
-  const canReadHistory = role === 'admin' || role === 'supervisor' || row.editable;
-  const mayClose = role === 'supervisor' || row.editable;
+  const canReadHistory = mayIn(role, 'cases.readHistory', row.editable);
+  const mayClose = mayIn(role, 'cases.closeWeek', row.editable);
   const canClose = mayClose && !cell.closed && week.end < today;
   const canReopen = mayClose && cell.closed;
 

@@ -7,6 +7,7 @@ import { errorText } from '../../../lib/error-text';
 import { useSession } from '../../../app/session';
 import { VoidAction } from '../../../components/void-dialog';
 import { useVoidSurvey } from '../api/void-survey.api';
+import { mayIn } from '../../../../shared/permissions';
 
 /** A district's larval indices per epidemiological week (counts pooled) and its latest surveys. */
 export function DistrictSurveys({ districtId, limit = 10 }: { districtId: string; limit?: number }) {
@@ -16,7 +17,7 @@ export function DistrictSurveys({ districtId, limit = 10 }: { districtId: string
   const me = useSession();
   const voidSurvey = useVoidSurvey();
   // The roles that enter surveys may void one in their own districts (an officer sees all districts).
-  const canVoid = me.role === 'officer' || (me.role === 'worker' && me.districts.some((d) => d.id === districtId));
+  const canVoid = mayIn(me.role, 'surveys.record', me.districts.some((d) => d.id === districtId));
   if (surveys.isPending) return <p className="text-ink-muted">{t('district.loading')}</p>;
   if (surveys.isError) return <FormMessage kind="error">{errorText(surveys.error)}</FormMessage>;
   const { weeks, surveys: list } = surveys.data;
