@@ -10,8 +10,9 @@ export const oneLine = (s: string) => s.replace(/[\p{Cc}\u2028\u2029]+/gu, ' ').
 function linkMail(language: Language, subject: string, greeting: string, lines: string[], link: string, linkLabel: string) {
   const signature = textsFor(language, 'common')('signature');
   const text = [greeting, '', ...lines, '', `${linkLabel}: ${link}`, '', signature].join('\n');
-  const html = `<p>${escapeHtml(greeting)}</p>${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}
-<p><a href="${escapeHtml(link)}">${escapeHtml(linkLabel)}</a></p><p>${escapeHtml(signature)}</p>`;
+  // A whole document with its language and character set (as the bulletins' htmlStart), so accented names arrive whole.
+  const html = `<!doctype html><html lang="${language}"><head><meta charset="utf-8"></head><body><p>${escapeHtml(greeting)}</p>${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}
+<p><a href="${escapeHtml(link)}">${escapeHtml(linkLabel)}</a></p><p>${escapeHtml(signature)}</p></body></html>`;
   // Content-Language (RFC 3282) says which language the mail is written in.
   return { subject, text, html, headers: { 'Content-Language': language } };
 }

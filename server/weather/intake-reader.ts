@@ -157,6 +157,7 @@ export class RecordChecker {
       rowNumber: this.rowNo, station: capText(rec[0] ?? null, LIMITS.VALUE_MAX_CHARS), date: capText(rec[1] ?? null, LIMITS.VALUE_MAX_CHARS),
       column: capText(this.header![k], LIMITS.VALUE_MAX_CHARS), value: capText(rec[k], LIMITS.VALUE_MAX_CHARS), severity: 'rejected', rule: 'field-too-long',
       reason: `${REJECT_RULES['field-too-long']} (${rec[k].length.toLocaleString('en')} characters).`,
+      params: { length: rec[k].length, max: LIMITS.CSV_FIELD_MAX_CHARS },
     });
     return true;
   }
@@ -164,7 +165,8 @@ export class RecordChecker {
   private rejectShort(rec: string[], n: number) {
     this.batch.rejected++;
     this.note({ rowNumber: n, station: capText(rec[0] ?? null, LIMITS.VALUE_MAX_CHARS), date: capText(rec[1] ?? null, LIMITS.VALUE_MAX_CHARS), column: '(row)', value: capText(rec.join(','), LIMITS.VALUE_MAX_CHARS),
-      severity: 'rejected', rule: 'column-count', reason: `${REJECT_RULES['column-count']} (${rec.length} of ${this.header!.length}).` });
+      severity: 'rejected', rule: 'column-count', reason: `${REJECT_RULES['column-count']} (${rec.length} of ${this.header!.length}).`,
+      params: { fields: rec.length, expected: this.header!.length } });
   }
 }
 

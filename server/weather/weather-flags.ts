@@ -30,7 +30,10 @@ export interface FlagFinding {
 /**
  * The flag rules (docs/weather-intake.md § Flag) on the days of an intake (`rows[i]` ≠ 0: the file's row
  * number of day i), read against the merged values of every loaded year (`years`, by stationYearKey):
- * - jump: the station has a value the day before and Tmin or Tmax moved more than `jumpC`;
+ * - jump: the station has a value in use the day before and Tmin or Tmax moved more than `jumpC`. A held
+ *   day (docs/weather-intake.md § Plausibility) is not in use, so the day after it is compared with the
+ *   last value before the held days (a day after a held °F day is not flagged against the held value);
+ *   `held[k][i]` = 1 says day i of merged[k] is held after this intake (null: read the stored flags);
  * - run: the day is in a run of at least `runDays` consecutive days with the same Tmin and Tmax (the run
  *   is measured within `runDays` days either side of the year, which decides the rule exactly);
  * - spatial: at least two neighbours have a value that day, and Tmin or Tmax is more than `spatialC` from
@@ -42,6 +45,7 @@ export function flagStationYears(
   years: Map<string, StationYear>,
   nb: Neighbour[],
   limits: FlagLimits,
+  held: (Uint8Array | null)[] = [],
 ): { bits: Int16Array[]; findings: FlagFinding[] } {
   const byStation = new Map<string, Neighbour[]>();
   for (const n of nb) {
@@ -56,7 +60,10 @@ export function flagStationYears(
   let extMin = new Float64Array(0);
   let extMax = new Float64Array(0);
   let runLen = new Int32Array(0);
-  for (const { y, rows } of merged) {
+  let extHeld = new Uint8Array(0);
+  for (let k = 0; k < merged.length; k++) {
+    const { y, rows } = merged[k];
+    const heldNow = held[k] ?? null;
     const n = y.tmin.length;
     const out = new Int16Array(n);
     bits.push(out);
@@ -68,14 +75,19 @@ export function flagStationYears(
       extMin = new Float64Array(len);
       extMax = new Float64Array(len);
       runLen = new Int32Array(len);
+      extHeld = new Uint8Array(len);
     }
     // The year itself in the middle, then R days of the years either side (NaN where not loaded).
     extMin.fill(Number.NaN, 0, len);
     extMax.fill(Number.NaN, 0, len);
     extMin.set(y.tmin, R);
     extMax.set(y.tmax, R);
+    // Whether each day is held (not in use): the intake's verdict for its days, the stored flag elsewhere.
+    extHeld.fill(0, 0, len);
+    for (let i = 0; i < n; i++) extHeld[i + R] = heldNow && rows[i] !== 0 ? heldNow[i] : (y.flags[i] & FLAG_BITS.held) !== 0 ? 1 : 0;
     if (prev) {
       const from = Math.max(0, prev.tmin.length - R);
+      for (let d = from; d < prev.tmin.length; d++) extHeld[R - (prev.tmin.length - d)] = (prev.flags[d] & FLAG_BITS.held) !== 0 ? 1 : 0;
       extMin.set(prev.tmin.subarray(from), R - (prev.tmin.length - from));
       extMax.set(prev.tmax.subarray(from), R - (prev.tmax.length - from));
     }
@@ -97,8 +109,11 @@ export function flagStationYears(
       if (rows[i] === 0) continue;
       const tmin = y.tmin[i];
       const tmax = y.tmax[i];
-      const ptmin = extMin[i + R - 1];
-      const ptmax = extMax[i + R - 1];
+      // The day before, or the last day before it that is in use when it is held (within the R days kept).
+      let p = i + R - 1;
+      while (p > 0 && extHeld[p] && extMin[p] === extMin[p]) p--;
+      const ptmin = extHeld[p] ? Number.NaN : extMin[p];
+      const ptmax = extMax[p];
       const jump = ptmin === ptmin && (Math.abs(tmax - ptmax) > limits.jumpC || Math.abs(tmin - ptmin) > limits.jumpC);
       const run = runLen[i + R] >= R;
       let spatial = false;

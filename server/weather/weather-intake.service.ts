@@ -208,7 +208,7 @@ export class WeatherIntakeService {
         if (first !== 0) {
           rejected++;
           note({ rowNumber: b.row[k], station: codes[st], date: iso(day), column: '(row)', value: null, severity: 'rejected',
-            rule: 'duplicate-row', reason: `The same station and date are on row ${first}; that first row was kept.` });
+            rule: 'duplicate-row', reason: `The same station and date are on row ${first}; that first row was kept.`, params: { first } });
           continue;
         }
         accepted++;
@@ -317,12 +317,6 @@ export class WeatherIntakeService {
     }
     stage('merge');
 
-    // The flag rules (docs/weather-intake.md § Flag) on this intake's days, against the merged values.
-    const { bits: newBits, findings } = flagStationYears(merged, years, nb, {
-      runDays: config.WEATHER_QC_RUN_DAYS, jumpC: config.WEATHER_QC_JUMP_C, spatialC: config.WEATHER_QC_SPATIAL_C,
-    });
-    stage('flags');
-
     // Plausibility (docs/weather-intake.md § Plausibility): implausible days are held. A correction is a
     // person's own value and is not held (correcting a held day releases it).
     // It reads stored history on this connection, so the early COPY must have ended.
@@ -331,13 +325,28 @@ export class WeatherIntakeService {
       ? { held: merged.map(() => null), rows: [] as HeldRow[] }
       : await judgePlausibility(manager, merged, years, nb, storedKeys, { tempUnit: upload.tempUnit, historyYears: config.WEATHER_PLAUS_HISTORY_YEARS });
     stage('plausibility');
+    // Each intake day's held state after this intake: an unchanged day keeps its own, the others take the verdict.
+    const heldNow = merged.map(({ y, rows, unchanged }, k) => {
+      const out = new Uint8Array(rows.length);
+      const heldDays = plaus.held[k];
+      for (let i = 0; i < rows.length; i++)
+        if (rows[i] !== 0) out[i] = unchanged?.[i] ? (y.flags[i] & FLAG_BITS.held ? 1 : 0) : heldDays?.[i] ? 1 : 0;
+      return out;
+    });
+
+    // The flag rules (docs/weather-intake.md § Flag) on this intake's days, against the merged values in use
+    // (after the plausibility verdict, so a day after a held day is compared with the last value in use).
+    const { bits: newBits, findings } = flagStationYears(merged, years, nb, {
+      runDays: config.WEATHER_QC_RUN_DAYS, jumpC: config.WEATHER_QC_JUMP_C, spatialC: config.WEATHER_QC_SPATIAL_C,
+    }, heldNow);
+    stage('flags');
+
     const reflag = new Set<StationYear>();
     for (let k = 0; k < merged.length; k++) {
       const { y, rows } = merged[k];
-      const heldDays = plaus.held[k];
       for (let i = 0; i < rows.length; i++) {
         if (rows[i] === 0) continue;
-        const held = merged[k].unchanged?.[i] ? y.flags[i] & FLAG_BITS.held : heldDays?.[i] ? FLAG_BITS.held : 0;
+        const held = heldNow[k][i] ? FLAG_BITS.held : 0;
         const bits = newBits[k][i] | held;
         if (bits !== y.flags[i]) {
           y.flags[i] = bits;
@@ -537,11 +546,14 @@ function flagIssues(findings: FlagFinding[], codeOf: Map<string, string>, config
     const base = { rowNumber: f.rowNumber, station: codeOf.get(f.stationId) ?? null, date: iso(f.day), column: 'tmax', value: String(f.tmax), severity: 'flagged' as const };
     const lines: RowIssue[] = [];
     if (f.jump)
-      lines.push({ ...base, rule: 'jump', reason: `Tmin ${f.ptmin} → ${f.tmin}, Tmax ${f.ptmax} → ${f.tmax} °C from the day before (limit ${config.WEATHER_QC_JUMP_C} °C).` });
+      lines.push({ ...base, rule: 'jump', reason: `Tmin ${f.ptmin} → ${f.tmin}, Tmax ${f.ptmax} → ${f.tmax} °C from the day before (limit ${config.WEATHER_QC_JUMP_C} °C).`,
+        params: { ptmin: f.ptmin, tmin: f.tmin, ptmax: f.ptmax, tmax: f.tmax, limit: config.WEATHER_QC_JUMP_C } });
     if (f.run)
-      lines.push({ ...base, rule: 'run', reason: `Tmin ${f.tmin} and Tmax ${f.tmax} °C repeated on ${f.runLength} days in a row (limit ${config.WEATHER_QC_RUN_DAYS}).` });
+      lines.push({ ...base, rule: 'run', reason: `Tmin ${f.tmin} and Tmax ${f.tmax} °C repeated on ${f.runLength} days in a row (limit ${config.WEATHER_QC_RUN_DAYS}).`,
+        params: { tmin: f.tmin, tmax: f.tmax, days: f.runLength, limit: config.WEATHER_QC_RUN_DAYS } });
     if (f.spatial)
-      lines.push({ ...base, rule: 'spatial', reason: `Tmin ${f.tmin} / Tmax ${f.tmax} °C against ${f.etmin!.toFixed(1)} / ${f.etmax!.toFixed(1)} °C estimated from the neighbouring stations (limit ${config.WEATHER_QC_SPATIAL_C} °C).` });
+      lines.push({ ...base, rule: 'spatial', reason: `Tmin ${f.tmin} / Tmax ${f.tmax} °C against ${f.etmin!.toFixed(1)} / ${f.etmax!.toFixed(1)} °C estimated from the neighbouring stations (limit ${config.WEATHER_QC_SPATIAL_C} °C).`,
+        params: { tmin: f.tmin, tmax: f.tmax, etmin: Math.round(f.etmin! * 10) / 10, etmax: Math.round(f.etmax! * 10) / 10, limit: config.WEATHER_QC_SPATIAL_C } });
     for (const line of lines) {
       if (issues.length < take) issues.push(line);
       else dropped++;

@@ -17,7 +17,7 @@ export const SCREEN_TEXTS = {
   'features/ladder/ladder.page': ['cautions', 'districts', 'flags', 'help', 'ladder', 'region-map'],
   'features/users/users-admin.page': ['users'],
   'features/districts/districts-admin.page': ['districts', 'profiles'],
-  'features/profiles/profiles.page': ['profiles'],
+  'features/profiles/profiles.page': ['district-file', 'ladder', 'profiles'],
   'features/tier-settings/tier-settings.page': ['tier-settings'],
   'features/cases/case-ledger.page': ['cases', 'districts'],
   'features/cases/district-cases.page': ['cases', 'cautions', 'districts', 'surveys'],

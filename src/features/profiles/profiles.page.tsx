@@ -7,6 +7,10 @@ import { NotAllowedPage } from '../../app/not-allowed.page';
 import type { ProfileParameterDto } from '../../../shared/api/profiles.schema';
 import { useProfiles } from './api/profiles.api';
 import { VariantForm } from './components/variant.form';
+import { useFormat } from '../../i18n/format';
+import { profileLabel } from '../district-file/district-file-format';
+import { monthDayText } from './components/profile-assignment';
+import { parameterName, parameterValue } from './parameter-words';
 
 function sourceText(p: ProfileParameterDto): string {
   if (!p.source) return '';
@@ -14,14 +18,11 @@ function sourceText(p: ProfileParameterDto): string {
   return [`${s.author} (${s.year})`, s.title, s.journal, s.where].filter(Boolean).join(', ');
 }
 
-function valueText(p: ProfileParameterDto): string {
-  const v = Array.isArray(p.value) ? p.value.join(', ') : p.value === null ? '' : String(p.value);
-  return p.unit ? `${v} ${p.unit}` : v;
-}
 
 /** The profile library: every profile with each parameter, its value(s) and where the value comes from. */
 export function ProfilesPage() {
-  const { t } = useTranslation('profiles');
+  const { t } = useTranslation(['profiles', 'district-file']);
+  const f = useFormat();
   const profiles = useProfiles();
   if (isForbidden(profiles.error)) return <NotAllowedPage />;
   return (
@@ -37,10 +38,10 @@ export function ProfilesPage() {
           {profiles.data.map((p) => (
             <article key={p.id} className="card" aria-labelledby={`profile-${p.id}`}>
               <h2 id={`profile-${p.id}`} className="text-lg font-bold">
-                {p.name} <span className="text-sm text-ink-muted">({p.kind === 'published' ? t('kind.published') : t('kind.variant', { base: p.baseProfileId })})</span>
+                {profileLabel({ t }, { profileId: p.kind === 'published' ? p.id : '', profileName: p.name })} <span className="text-sm text-ink-muted">({p.kind === 'published' ? t('kind.published') : t('kind.variant', { base: p.baseProfileId ? profileLabel({ t }, { profileId: p.baseProfileId, profileName: p.baseProfileId }) : '' })})</span>
               </h2>
               <p className="text-sm">{p.summary}</p>
-              <p className="text-sm text-ink-muted">{t('page.defaultBiofix', { date: p.defaultBiofix })}</p>
+              <p className="text-sm text-ink-muted">{t('page.defaultBiofix', { date: monthDayText(p.defaultBiofix, f.locale) })}</p>
               <div className="overflow-x-auto">
                 <table className="table">
                   <thead>
@@ -56,10 +57,13 @@ export function ProfilesPage() {
                   <tbody>
                     {p.parameters.map((x) => (
                       <tr key={x.path}>
-                        <th scope="row"><code>{x.path}</code></th>
-                        <td>{valueText(x)}</td>
-                        <td>{x.low ?? ''}</td>
-                        <td>{x.high ?? ''}</td>
+                        <th scope="row">
+                          {parameterName(t, x.path)}
+                          <code className="block text-xs font-normal text-ink-muted">{x.path}</code>
+                        </th>
+                        <td>{parameterValue(t, f, x)}</td>
+                        <td>{x.low === null ? '' : f.number(x.low, 4)}</td>
+                        <td>{x.high === null ? '' : f.number(x.high, 4)}</td>
                         <td>{t(`tag.${x.tag}`)}</td>
                         <td>{sourceText(x)}{x.note ? <span className="block text-xs text-ink-muted">{x.note}</span> : null}</td>
                       </tr>

@@ -31,6 +31,8 @@ const KNOWN_RULES = { ...REJECT_RULES, ...FLAG_RULES } as Record<string, string>
  */
 export function issueReason(issue: IssueDto, units: Units, f: Formatters, t: TFunction<'weather'>, language: string): { text: string; detail: string | null } {
   if (issue.severity === 'held') return { text: heldReasonText(issue, units, f, t), detail: null };
+  const worded = issue.params ? detailText(issue, units, f, t) : null;
+  if (worded) return { text: worded, detail: null };
   const generic = KNOWN_RULES[issue.rule];
   if (!generic) return { text: issue.reason, detail: null };
   const specific = issue.reason !== generic;
@@ -59,5 +61,31 @@ export function heldReasonText(issue: IssueDto, units: Units, f: Formatters, t: 
     z: f.number(num(p.z), 1),
     alternative: p.alternative === null || p.alternative === undefined ? '' : temp(p.alternative),
     defaultValue: t('report.held.unlike_station_history', { median: isTemp ? temp(p.median) : `${f.number(num(p.median), 0)} %`, z: f.number(num(p.z), 1) }),
+  });
+}
+
+/** The rules whose line carries its figures as params (server/weather/weather-intake.service.ts, intake-reader.ts). */
+const DETAILED_RULES = new Set(['jump', 'run', 'spatial', 'duplicate-row', 'column-count', 'field-too-long']);
+
+/**
+ * A flagged or rejected line's own figures worded in the interface language (temperatures stored in °C,
+ * shown in the user's units, numbers by locale), or null when the line has no figures (older intakes:
+ * their English sentence is then shown as it was).
+ */
+export function detailText(issue: IssueDto, units: Units, f: Formatters, t: TFunction<'weather'>): string | null {
+  const p = issue.params ?? {};
+  if (!DETAILED_RULES.has(issue.rule)) return null;
+  const num = (x: unknown) => (typeof x === 'number' ? x : Number.NaN);
+  if (Object.values(p).some((v) => typeof v !== 'number')) return null;
+  const temp = (x: unknown) => `${f.number(units.toTemperature(num(x)), 1)} ${units.temperatureSymbol}`;
+  // A limit is a difference of temperatures: scaled, not shifted.
+  const diff = (x: unknown) => `${f.number(units.toTemperatureDelta(num(x)), 1)} ${units.temperatureSymbol}`;
+  return t(`report.detail.${issue.rule}`, {
+    ptmin: temp(p.ptmin), tmin: temp(p.tmin), ptmax: temp(p.ptmax), tmax: temp(p.tmax), etmin: temp(p.etmin), etmax: temp(p.etmax),
+    limit: issue.rule === 'run' ? f.number(num(p.limit), 0) : diff(p.limit),
+    days: f.number(num(p.days), 0), count: num(p.days),
+    first: f.number(num(p.first), 0),
+    fields: f.number(num(p.fields), 0), expected: f.number(num(p.expected), 0),
+    length: f.number(num(p.length), 0), max: f.number(num(p.max), 0),
   });
 }

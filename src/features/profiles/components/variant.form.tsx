@@ -5,10 +5,14 @@ import { profileDto, type ProfileDto, type ProfileVariantBody } from '../../../.
 import { FormMessage, SelectField, TextField } from '../../../components/form';
 import { api, isApiError } from '../../../lib/api-client';
 import { formErrorText } from '../../../lib/form-errors';
+import { useFormat } from '../../../i18n/format';
+import { profileLabel } from '../../district-file/district-file-format';
+import { parameterOption } from '../parameter-words';
 
 /** POST /api/profiles/:id/variants (admin) — a local copy of a published profile with one sourced change. */
 export function VariantForm({ profiles }: { profiles: ProfileDto[] }) {
-  const { t } = useTranslation('profiles');
+  const { t } = useTranslation(['profiles', 'district-file']);
+  const f = useFormat();
   const queryClient = useQueryClient();
   const published = profiles.filter((p) => p.kind === 'published');
   const [baseId, setBaseId] = useState(published[0]?.id ?? '');
@@ -54,12 +58,12 @@ export function VariantForm({ profiles }: { profiles: ProfileDto[] }) {
       <p className="text-sm text-ink-muted">{t('variant.lead')}</p>
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
       <SelectField label={t('variant.base')} value={baseId} onChange={(e) => { setBaseId(e.currentTarget.value); setPath(''); }}>
-        {published.map((p) => <option key={p.id} value={p.id}>{p.name}</option>)}
+        {published.map((p) => <option key={p.id} value={p.id}>{profileLabel({ t }, { profileId: p.id, profileName: p.name })}</option>)}
       </SelectField>
       <TextField label={t('variant.id')} hint={t('variant.idHint')} value={form.id} onChange={set('id')} error={errors.id} />
       <TextField label={t('variant.name')} value={form.name} onChange={set('name')} error={errors.name} />
       <SelectField label={t('variant.parameter')} value={chosenPath} onChange={(e) => setPath(e.currentTarget.value)} error={errors.path}>
-        {numeric.map((p) => <option key={p.path} value={p.path}>{`${p.path} (${p.value}${p.unit ? ` ${p.unit}` : ''})`}</option>)}
+        {numeric.map((p) => <option key={p.path} value={p.path}>{parameterOption(t, f, p)}</option>)}
       </SelectField>
       <TextField label={t('variant.value')} type="number" step="any" value={form.value} onChange={set('value')} error={errors.value} />
       <TextField label={t('variant.source')} hint={t('variant.sourceHint')} value={form.source} onChange={set('source')} error={errors.source} />
