@@ -189,7 +189,7 @@ function cannon(url: string, headers: Record<string, string>, paths: string[]) {
   return autocannon({
     url, connections: 50, duration: DURATION, headers,
     requests: [{ setupRequest: (req: Record<string, unknown>) => ({ ...req, path: paths[i++ % paths.length] }) }],
-  } as autocannon.Options);
+  } as unknown as autocannon.Options);
 }
 
 const figures: Record<string, unknown> = { districts: features.length, counties: Math.min(real.length, DISTRICTS), fileMb: fileText.length / 1e6, loadStart };
