@@ -7,7 +7,7 @@
  *   npm run bench                 full sizes (several minutes of both cores: run it on a quiet machine)
  *   npm run bench -- --quick      small sizes (model 500 districts, intake 500 stations, board 200 districts,
  *                                 fewer drill repetitions, 10 s of load) for a quick look
- *   npm run bench -- --only model,drills   a subset (model, intake, board, drills, load, phone); --out FILE elsewhere
+ *   npm run bench -- --only model,drills   a subset (model, intake, board, drills, load, phone, national); --out FILE elsewhere
  * Each benchmark runs in its own process; its figures are the JSON object on the last line of its output.
  */
 import { execFileSync } from 'node:child_process';
@@ -174,6 +174,24 @@ if (want('phone')) {
   } else notes.push('phone: no figures read from its last line.');
 }
 
+// ---- a country at national scale (issue 17, item 5): import, stations and weather, the map's answer, the District file
+if (want('national')) {
+  const r = await run('national', path.join(here, 'national.bench.ts'), QUICK ? ['--districts', '500', '--days', '60', '--duration', '5'] : []);
+  const f = r.figures;
+  if (f?.importSeconds !== undefined) {
+    const judged = !QUICK;
+    const load = `load ${fmt(f.loadStart, 1)}→${fmt(f.loadEnd, 1)}`;
+    rows.push({ benchmark: `district import, dry run (${fmt(f.districts)} polygons, ${fmt(f.counties)} us-atlas counties + synthetic, ${fmt(f.fileMb, 1)} MB)`, figure: `${fmt(f.drySeconds, 1)} s (${load})`, peer: `JSON.parse of the file ${fmt(f.parseSeconds, 2)} s`, ratio: `${fmt(f.drySeconds / f.parseSeconds, 0)}×`, goal: '< 60 s', met: judged ? yes(f.drySeconds < 60) : '—' });
+    rows.push({ benchmark: `district import, real (${fmt(f.created)} created, ${fmt(f.problems)} refused)`, figure: `${fmt(f.importSeconds, 1)} s; stages ms ${Object.entries(f.importStages ?? {}).map(([k, v]) => `${k} ${v}`).join(', ')}`, peer: `JSON.parse ${fmt(f.parseSeconds, 2)} s`, ratio: `${fmt(f.importSeconds / f.parseSeconds, 0)}×`, goal: '< 60 s', met: judged ? yes(f.importSeconds < 60) : '—' });
+    rows.push({ benchmark: `weather upload into ${fmt(f.districts)} districts (${fmt(f.stations)} stations, ${fmt(f.weatherRows)} rows, ${fmt(f.seriesDays)} series days)`, figure: `${fmt(f.weatherSeconds, 1)} s (${fmt(f.weatherRows / f.weatherSeconds)} rows/s)`, peer: '—', ratio: '—', goal: 'recorded (the 1,825,000-row goal is bench:intake)', met: '—' });
+    rows.push({ benchmark: `re-upload of ${fmt(f.reuploadRows)} unchanged rows into ${fmt(f.districts)} districts`, figure: `${fmt(f.reuploadSeconds, 2)} s end to end`, peer: `first upload ${fmt(f.weatherSeconds, 1)} s`, ratio: fmt(f.reuploadSeconds / f.weatherSeconds, 2), goal: '< 5 s', met: judged ? yes(f.reuploadSeconds < 5) : '—' });
+    rows.push({ benchmark: `GET /api/districts/boundaries (${fmt(f.districts)} districts)`, figure: `${fmt(f.boundariesBytes / 1e6, 2)} MB ${f.boundariesEncoding} in ${fmt(f.boundariesSeconds, 2)} s`, peer: `${fmt(f.boundariesIdentityBytes / 1e6, 2)} MB unpacked`, ratio: fmt(f.boundariesBytes / f.boundariesIdentityBytes, 2), goal: '≤ 1 MB gzip', met: judged ? yes(f.boundariesEncoding === 'gzip' && f.boundariesBytes <= 1e6) : '—' });
+    const b = f.file?.broodcast;
+    const p = f.file?.bare;
+    if (b && p) rows.push({ benchmark: 'GET /api/districts/:id/file, 50 connections, random districts', figure: `${fmt(b.rps)} req/s, p50 ${b.p50} ms, p99 ${b.p99} ms, errors ${b.errors + b.non2xx}`, peer: `bare node:http, same bytes: ${fmt(p.rps)} req/s, p99 ${p.p99} ms`, ratio: `p99 ${fmt(b.p99 / Math.max(1, p.p99), 1)}×`, goal: 'p99 < 250 ms', met: judged ? yes(b.p99 < 250) : '—' });
+  } else notes.push('national: no figures read from its last line.');
+}
+
 // ---- the report
 const machine = await describeMachine();
 const md = [
@@ -185,7 +203,7 @@ const md = [
   '',
   'Each figure is measured beside its floor or bare peer in the same run, on the same machine. Reproduce with `npm run bench`',
   '(or `npm run bench -- --quick`); each line also has its own command: `npm run bench:model`, `bench:intake`, `bench:board`,',
-  '`bench:drills`, `bench:load`, `bench:phone`. Each drill says what it does at the top of its script in bench/drills/; the fuzz tests run with `npm test`.',
+  '`bench:drills`, `bench:load`, `bench:phone`, `bench:national`. Each drill says what it does at the top of its script in bench/drills/; the fuzz tests run with `npm test`.',
   '',
   '| benchmark | figure | floor / peer | ratio | goal | met? |',
   '|---|---|---|---|---|---|',

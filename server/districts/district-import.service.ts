@@ -117,7 +117,16 @@ export class DistrictImportService {
    * districts whose sources changed recomputed, in the same transaction.
    */
   async import(actor: Principal, buffer: Buffer, fields: DistrictImportFields, opts: { dryRun: boolean; skipProblems: boolean }): Promise<DistrictImportReport> {
+    // Milliseconds per stage, logged at the end (bench/national.bench.ts reads them from the log).
+    const stages: Record<string, number> = {};
+    let mark = performance.now();
+    const stage = (name: string) => {
+      const now = performance.now();
+      stages[name] = Math.round(now - mark);
+      mark = now;
+    };
     const { features, topology, objectKey } = readFeatureFile(buffer, fields.objectName);
+    stage('parse');
     if (features.length > DISTRICT_IMPORT_MAX_FEATURES)
       throw new HttpError(413, 'import_too_many_items', `The file holds ${features.length} features, more than the limit of ${DISTRICT_IMPORT_MAX_FEATURES}.`,
         [{ path: 'file', message: `holds more than ${DISTRICT_IMPORT_MAX_FEATURES} features` }], { limit: DISTRICT_IMPORT_MAX_FEATURES, count: features.length });
@@ -132,6 +141,7 @@ export class DistrictImportService {
 
     // Display geometry follows the topology's own order: in a GeoJSON file only the polygon features are in it.
     const display = displayGeometries(topology, objectKey);
+    stage('simplify');
     let displayAt = 0;
     features.forEach((f, index) => {
       const isPolygon = !!f && typeof f === 'object' && (f.geometry?.type === 'Polygon' || f.geometry?.type === 'MultiPolygon');
@@ -172,6 +182,7 @@ export class DistrictImportService {
       }
     });
 
+    stage('checks');
     // Coordinates swapped (latitude, longitude): the centre lies far from every other district but would lie
     // among them once swapped. Compared with the file's other features and the districts already stored.
     const stored = await this.repo.centres(read.map((r) => r.code));
@@ -213,7 +224,12 @@ export class DistrictImportService {
         geometry: r.geometry.type, action: existing.has(r.code) ? 'update' : 'create',
       })),
     };
-    if (opts.dryRun) return report;
+    stage('plausibility');
+    const logStages = () => this.ctx.logger.info({ stagesMs: stages, features: features.length, dryRun: opts.dryRun }, 'district import stages');
+    if (opts.dryRun) {
+      logStages();
+      return report;
+    }
     if (problems.length > 0 && !opts.skipProblems) throw new ImportRejected(report, problems.length);
     if (read.length === 0) return report;
 
@@ -227,6 +243,7 @@ export class DistrictImportService {
       }));
       const before = await this.repo.snapshot(m, read.map((r) => r.code));
       const ids = await this.repo.upsertDistricts(m, rows);
+      stage('writeDistricts');
       if (fields.populationProperty && fields.populationYear !== undefined) {
         const year = fields.populationYear;
         await this.repo.upsertPopulations(m, read.filter((r) => r.population !== null).map((r) => ({ districtId: ids.get(r.code)!, year, population: r.population! })));
@@ -234,7 +251,9 @@ export class DistrictImportService {
       // Stations are re-placed in the new boundaries; the changed districts' series are recomputed and their
       // run state cleared, as for one boundary (DistrictsService.setBoundary).
       const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS, this.ctx.config.WEATHER_IDW_MAX_KM);
+      stage('stationAssignment');
       await recomputeDistrictSeries(m, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
+      stage('series');
       await m.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...ids.values()]]);
       await recordAudits(m, read.map((r) => ({
         actorId: actor.userId, action: existing.has(r.code) ? 'district.imported-updated' : 'district.imported-created',
@@ -247,7 +266,10 @@ export class DistrictImportService {
         after: { total: report.total, created: report.created, updated: report.updated, skipped: report.skipped, regions: report.regions, fields: { ...fields, reason: undefined } },
         reason: fields.reason ?? null,
       });
+      stage('audit');
     });
+    stage('commit');
+    logStages();
     return report;
   }
 }
