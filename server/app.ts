@@ -26,6 +26,7 @@ import { weatherRoutes } from './weather/weather.routes';
 import { boardRoutes } from './board/board.routes';
 import { seasonRoutes } from './season/season.routes';
 import { lookBackRoutes } from './skill/look-back.routes';
+import { outlookRoutes } from './outlook/outlook.routes';
 import { flagsRoutes } from './flags/flags.routes';
 import { bulletinsRoutes } from './bulletins/bulletins.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
@@ -81,6 +82,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...bulletinsRoutes(ctx),
     ...profilesRoutes(ctx),
     ...lookBackRoutes(ctx),
+    ...outlookRoutes(ctx),
     ...fieldRoutes(ctx),
   ];
   app.locals.routes = routes;
