@@ -27,6 +27,7 @@ import { weatherRoutes } from './weather/weather.routes';
 import { boardRoutes } from './board/board.routes';
 import { seasonRoutes } from './season/season.routes';
 import { lookBackRoutes } from './skill/look-back.routes';
+import { outlookRoutes } from './outlook/outlook.routes';
 import { flagsRoutes } from './flags/flags.routes';
 import { bulletinsRoutes } from './bulletins/bulletins.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
@@ -82,6 +83,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...bulletinsRoutes(ctx),
     ...profilesRoutes(ctx),
     ...lookBackRoutes(ctx),
+    ...outlookRoutes(ctx),
     ...fieldRoutes(ctx),
   ];
   // The OpenAPI document of this very table (server/http/openapi.ts), for admins.

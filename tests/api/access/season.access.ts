@@ -10,4 +10,5 @@ export const seasonAccess: AccessTable = {
   'POST /tier-settings/preview': ['admin'],
   'GET /board': ALL_SIGNED_IN,
   'GET /districts/:id/file': ALL_SIGNED_IN,
+  'GET /districts/:id/outlook': ALL_SIGNED_IN,
 };
