@@ -30,6 +30,7 @@ import { flagsRoutes } from './flags/flags.routes';
 import { bulletinsRoutes } from './bulletins/bulletins.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
 import { fieldRoutes } from './field/field.routes';
+import { fieldRecordsRoutes } from './field/field-records.routes';
 
 export interface BroodcastApp extends Express {
   locals: Express['locals'] & { routes: RouteDef[] };
@@ -82,6 +83,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...profilesRoutes(ctx),
     ...lookBackRoutes(ctx),
     ...fieldRoutes(ctx),
+    ...fieldRecordsRoutes(ctx),
   ];
   app.locals.routes = routes;
 
