@@ -32,6 +32,7 @@ import { flagsRoutes } from './flags/flags.routes';
 import { bulletinsRoutes } from './bulletins/bulletins.routes';
 import { profilesRoutes } from './profiles/profiles.routes';
 import { fieldRoutes } from './field/field.routes';
+import { fieldRecordsRoutes } from './field/field-records.routes';
 
 export interface BroodcastApp extends Express {
   locals: Express['locals'] & { routes: RouteDef[] };
@@ -85,6 +86,7 @@ export function createApp(ctx: AppContext): BroodcastApp {
     ...lookBackRoutes(ctx),
     ...outlookRoutes(ctx),
     ...fieldRoutes(ctx),
+    ...fieldRecordsRoutes(ctx),
   ];
   // The OpenAPI document of this very table (server/http/openapi.ts), for admins.
   routes.push(defineRoute({ method: 'get', path: '/openapi.json', access: 'api.describe', response: openApiResponse, handler: () => buildOpenApi(routes) }));

@@ -14,6 +14,7 @@ import { flagsEntities } from '../flags/flags.entities';
 import { profilesEntities } from '../profiles/profiles.entities';
 import { skillEntities } from '../skill/skill.entities';
 import { fieldEntities } from '../field/field.entities';
+import { FieldRecordEntity } from '../field/field-record.entity';
 
 /** Every entity, listed by hand so the DataSource works the same under tsx, vitest and the CLI. */
 export const entities = [
@@ -33,4 +34,5 @@ export const entities = [
   ...profilesEntities,
   ...skillEntities,
   ...fieldEntities,
+  FieldRecordEntity,
 ];

@@ -12,6 +12,7 @@ import { profilesAccess } from './access/profiles.access';
 import { importsAccess } from './access/imports.access';
 import { lookBackAccess } from './access/look-back.access';
 import { fieldAccess } from './access/field.access';
+import { fieldRecordsAccess } from './access/field-records.access';
 
 /**
  * Every API route × every role (and no session). The expected access is written here, from
@@ -23,7 +24,7 @@ const EVERYBODY: Who[] = ['anonymous', ...ROLES];
 
 // One table per feature (tests/api/access/*.access.ts), merged; the sign-out row goes last because it
 // ends the sessions the other rows use.
-const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...profilesAccess, ...importsAccess, ...lookBackAccess, ...fieldAccess, ...signOutAccess };
+const EXPECTED: Record<string, Who[]> = { ...foundationAccess, ...weatherAccess, ...casesAccess, ...seasonAccess, ...flagsAccess, ...profilesAccess, ...importsAccess, ...lookBackAccess, ...fieldAccess, ...fieldRecordsAccess, ...signOutAccess };
 
 let t: TestApp;
 const agents = new Map<Who, ReturnType<typeof request.agent>>();

@@ -11,6 +11,7 @@ import { profilesMigrations } from '../../profiles/profiles.migrations';
 import { districtsMigrations } from '../../districts/districts.migrations';
 import { skillMigrations } from '../../skill/skill.migrations';
 import { fieldMigrations } from '../../field/field.migrations';
+import { FieldRecords1796601400000 } from '../../field/migrations/1796601400000-FieldRecords';
 
 // Each feature keeps its own list; TypeORM runs them all in timestamp order.
-export const migrations: Function[] = [Foundation1796164188542, ...weatherMigrations, ...casesMigrations, ...seasonMigrations, ...flagsMigrations, ...usersMigrations, ...profilesMigrations, ...districtsMigrations, ...skillMigrations, ...fieldMigrations];
+export const migrations: Function[] = [Foundation1796164188542, ...weatherMigrations, ...casesMigrations, ...seasonMigrations, ...flagsMigrations, ...usersMigrations, ...profilesMigrations, ...districtsMigrations, ...skillMigrations, ...fieldMigrations, FieldRecords1796601400000];

@@ -14,8 +14,21 @@ import { errorFromResponse } from '../../lib/api-client';
 
 export const OUTBOX_KEY = 'broodcast.surveys.outbox.v1';
 
-export type OutboxItem = {
-  survey: SurveyBody;
+/**
+ * What one outbox carries: where it keeps its items, where it sends them and how it reads the answer.
+ * The surveys and the Field log's records (issue 19) are two outboxes of this one queue.
+ */
+export interface OutboxConfig<D> {
+  storageKey: string;
+  url: string;
+  dto: { safeParse(value: unknown): { success: true; data: D } | { success: false } };
+}
+
+const SURVEYS: OutboxConfig<SurveyDto> = { storageKey: OUTBOX_KEY, url: '/api/surveys', dto: surveyDto };
+
+export type OutboxItem<B extends { id: string } = SurveyBody> = {
+  /** The body to send. Named `survey` since surveys were the first to use the queue; kept so outboxes already on devices still read. */
+  survey: B;
   queuedAt: string;
   attempts: number;
   /**
@@ -31,32 +44,33 @@ export type OutboxItem = {
   } | null;
 };
 
-export type FlushResult = { sent: SurveyDto[]; kept: number };
+export type FlushResult<D = SurveyDto> = { sent: D[]; kept: number };
 
 type Storage = Pick<globalThis.Storage, 'getItem' | 'setItem'>;
 type Fetch = typeof fetch;
 
-export class SurveyOutbox {
-  private flushing: Promise<FlushResult> | null = null;
+export class Outbox<B extends { id: string }, D> {
+  private flushing: Promise<FlushResult<D>> | null = null;
   private readonly listeners = new Set<() => void>();
 
   constructor(
+    readonly config: OutboxConfig<D>,
     private readonly storage: Storage = globalThis.localStorage,
     private readonly fetchFn: Fetch = (...args) => globalThis.fetch(...args),
   ) {}
 
-  items(): OutboxItem[] {
+  items(): OutboxItem<B>[] {
     try {
-      const raw = this.storage.getItem(OUTBOX_KEY);
-      const parsed = raw ? (JSON.parse(raw) as OutboxItem[]) : [];
+      const raw = this.storage.getItem(this.config.storageKey);
+      const parsed = raw ? (JSON.parse(raw) as OutboxItem<B>[]) : [];
       return Array.isArray(parsed) ? parsed : [];
     } catch {
       return [];
     }
   }
 
-  private write(items: OutboxItem[]) {
-    this.storage.setItem(OUTBOX_KEY, JSON.stringify(items));
+  private write(items: OutboxItem<B>[]) {
+    this.storage.setItem(this.config.storageKey, JSON.stringify(items));
     for (const l of this.listeners) l();
   }
 
@@ -66,7 +80,7 @@ export class SurveyOutbox {
   }
 
   /** Keep a survey (before any network). Adding the same id twice keeps one copy, the newer. */
-  add(survey: SurveyBody): void {
+  add(survey: B): void {
     const others = this.items().filter((i) => i.survey.id !== survey.id);
     this.write([...others, { survey, queuedAt: new Date().toISOString(), attempts: 0, problem: null }]);
   }
@@ -79,22 +93,22 @@ export class SurveyOutbox {
    * Send every kept survey, oldest first. One flush at a time: a second call while one runs gets the
    * same promise, so an `online` event and a button press never send a survey twice at once.
    */
-  flush(): Promise<FlushResult> {
+  flush(): Promise<FlushResult<D>> {
     this.flushing ??= this.run().finally(() => {
       this.flushing = null;
     });
     return this.flushing;
   }
 
-  private async run(): Promise<FlushResult> {
-    const sent: SurveyDto[] = [];
+  private async run(): Promise<FlushResult<D>> {
+    const sent: D[] = [];
     for (const item of this.items()) {
       const id = item.survey.id;
-      const update = (problem: OutboxItem['problem']) =>
+      const update = (problem: OutboxItem<B>['problem']) =>
         this.write(this.items().map((i) => (i.survey.id === id ? { ...i, attempts: i.attempts + 1, problem } : i)));
       let response: Response;
       try {
-        response = await this.fetchFn('/api/surveys', {
+        response = await this.fetchFn(this.config.url, {
           method: 'POST',
           headers: { 'Content-Type': 'application/json', Accept: 'application/json' },
           body: JSON.stringify(item.survey),
@@ -105,7 +119,7 @@ export class SurveyOutbox {
         break; // no point trying the rest while offline
       }
       if (response.status === 200 || response.status === 201) {
-        const parsed = surveyDto.safeParse(await response.json().catch(() => null));
+        const parsed = this.config.dto.safeParse(await response.json().catch(() => null));
         this.write(this.items().filter((i) => i.survey.id !== id));
         if (parsed.success) sent.push(parsed.data);
         continue;
@@ -125,6 +139,13 @@ export class SurveyOutbox {
   }
 }
 
+/** The outbox of larval surveys. */
+export class SurveyOutbox extends Outbox<SurveyBody, SurveyDto> {
+  constructor(storage?: Storage, fetchFn?: Fetch) {
+    super(SURVEYS, storage, fetchFn);
+  }
+}
+
 let shared: SurveyOutbox | null = null;
-/** The browser's one outbox. */
+/** The browser's outbox of surveys. */
 export const surveyOutbox = () => (shared ??= new SurveyOutbox());
