@@ -51,4 +51,8 @@ export const FIELD_ACCESS = {
   planWeek: ['officer'],
   /** see a Field week: planners and approvers all of it, a community worker their own teams' days */
   seeWeek: ['officer', 'supervisor', 'worker'],
+  /** approve a week, or send it back with a reason, when the field settings require approval */
+  approveWeek: ['supervisor'],
+  /** whether a supervisor must approve the week before it is published */
+  settings: ['admin'],
 } as const satisfies Record<string, readonly Role[]>;
