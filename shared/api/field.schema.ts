@@ -35,7 +35,7 @@ export const fieldTeamDto = z.object({
   daysPerWeek: z.number().int(),
   updatedAt: z.string(),
   /** Set once the team is retired. */
-  retiredAt: z.string().nullable(),
+  retiredAt: z.string().nullable().default(null),
 });
 export type FieldTeamDto = z.infer<typeof fieldTeamDto>;
 
@@ -113,10 +113,10 @@ export const fieldWeekDto = fieldWeekProposalRecord.extend({
   days: z.array(plannedDay),
   publishedAt: z.string().nullable(),
   /** When approval is required: who sent the week to the supervisors and when. */
-  submittedAt: z.string().nullable(),
-  submittedBy: z.string().nullable(),
+  submittedAt: z.string().nullable().default(null),
+  submittedBy: z.string().nullable().default(null),
   /** The supervisor's last decision (approved, or sent back with its reason). */
-  review: z.object({ decision: z.enum(['approved', 'sent_back']), by: z.string().nullable(), at: z.string(), reason: z.string().nullable() }).nullable(),
+  review: z.object({ decision: z.enum(['approved', 'sent_back']), by: z.string().nullable(), at: z.string(), reason: z.string().nullable() }).nullable().default(null),
   /** Mails queued to team members when it was published. */
   mailed: z.number().int().optional(),
 });

@@ -71,10 +71,16 @@ describe('Field week screen', () => {
     const { container: c } = await renderRoutes('/field-week');
     await waitFor(() => expect(c.textContent).toContain('No plan for this week yet.'), 5000);
     await typeInto(getByLabel(c, 'Team name'), 'Harbour team');
-    await waitFor(() => expect(c.querySelectorAll('option').length).toBeGreaterThan(1));
-    await selectOption(getByLabel<HTMLSelectElement>(c, 'Base district'), id(1));
+    // The base and the members are searchable pickers: type part of a name, pick a match.
+    await waitFor(() => expect(c.textContent).toContain('Type part of the district name'));
+    await typeInto(getByLabel(c, 'Base district'), 'salt');
+    await waitFor(() => getButton(c, 'Saltmarsh Coast · HV-01'));
+    await click(getButton(c, 'Saltmarsh Coast · HV-01'));
     await click(getByLabel(c, 'larviciding'));
-    await click(getByLabel(c, 'Wen Worker'));
+    await typeInto(getByLabel(c, 'Members (health officers and community workers)'), 'wen');
+    await waitFor(() => getButton(c, 'Wen Worker · Community worker'));
+    await click(getButton(c, 'Wen Worker · Community worker'));
+    expect(c.querySelector('[aria-label="Remove Wen Worker"]')).not.toBeNull();
     await click(getButton(c, 'Add the team'));
     await waitFor(() => expect(c.textContent).toContain('is taken by another team'));
     expect(sent).toEqual({ name: 'Harbour team', baseDistrictId: id(1), kinds: ['larviciding'], daysPerWeek: 4, memberIds: [id(102)] });
