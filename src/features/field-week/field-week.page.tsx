@@ -41,7 +41,8 @@ export function FieldWeekPage() {
   const [picks, setPicks] = useState<Picks>({});
   useEffect(() => setPicks(data ? picksOf(data) : {}), [data]);
   const dirty = useMemo(() => (data ? JSON.stringify(picks) !== JSON.stringify(picksOf(data)) : false), [picks, data]);
-  const published = data?.status === 'published' || !plans;
+  // A week waiting for a supervisor's approval is as fixed as a published one until it is sent back.
+  const published = (data !== null && data.status !== 'draft') || !plans;
   const byRank = useMemo(() => (data ? [...data.districts].sort((a, b) => a.rank - b.rank) : []), [data]);
 
   const onPropose = () => propose.mutate({ ...(weekStart ? { weekStart } : {}), maxTravelKm: Number(travel) });
@@ -163,7 +164,7 @@ export function FieldWeekPage() {
             </button>
           </p>
 
-          {!plans ? null : published ? (
+          {!plans || data.status === 'awaiting_approval' ? null : published ? (
             <FormMessage kind="success">{t('publishedAt', { at: f.dateTime(data.publishedAt) })}{data.mailed !== undefined ? ` ${t('mailed', { count: data.mailed })}` : ''}</FormMessage>
           ) : (
             <div className="mb-6 flex flex-wrap gap-3">
