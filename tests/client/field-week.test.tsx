@@ -120,3 +120,25 @@ describe('Field week CSV', () => {
     expect(lines[2]).toBe('2026-12-08,Harbour team,HV-02,Orrin Valley,raised,case investigation');
   });
 });
+
+describe('Field week for a supervisor', () => {
+  it('when a week waits for approval and the supervisor sends it back without a reason, then the reason field says so; approving publishes it', async () => {
+    let approved = false;
+    fakeApi({
+      'GET /api/me': () => json(200, { ...officerMe, role: 'supervisor', email: 'supervisor@halvern.example' }),
+      'GET /api/field-weeks': () => json(200, { week: week({ status: 'awaiting_approval', submittedAt: '2026-12-05T09:00:00.000Z', submittedBy: 'Olu Officer' }) }),
+      'POST /api/field-weeks/00000000-0000-4000-8000-000000000900/send-back': () => json(400, { error: { code: 'validation_failed', message: 'Invalid request.', fields: [{ path: 'reason', message: 'must say why (3 characters or more)' }] } }),
+      'POST /api/field-weeks/00000000-0000-4000-8000-000000000900/approve': () => {
+        approved = true;
+        return json(200, week({ status: 'published', publishedAt: '2026-12-05T10:00:00.000Z', mailed: 1, review: { decision: 'approved', by: 'Sam Supervisor', at: '2026-12-05T10:00:00.000Z', reason: null } }));
+      },
+    });
+    const { container: c } = await renderRoutes('/field-week');
+    await waitFor(() => expect(c.textContent).toContain("Waiting for a supervisor’s approval"), 5000);
+    await click(getButton(c, 'Send back to the health officer'));
+    await waitFor(() => expect(c.textContent).toContain('must say why'));
+    await click(getButton(c, 'Approve and send to the teams'));
+    await waitFor(() => expect(c.textContent).toContain('Published'));
+    expect(approved).toBe(true);
+  });
+});

@@ -14,6 +14,7 @@ import { useProposeFieldWeek } from './api/propose-field-week.api';
 import { usePublishFieldWeek } from './api/publish-field-week.api';
 import { useSaveFieldWeekDays } from './api/save-field-week-days.api';
 import { FieldTeamsSection } from './components/field-teams.section';
+import { ReviewFieldWeek } from './components/review-field-week';
 
 type Picks = Record<string, string>; // `${teamId}|${day}` → districtId ('' = no district)
 const cell = (teamId: string, day: string) => `${teamId}|${day}`;
@@ -28,7 +29,9 @@ export function FieldWeekPage() {
   const { t } = useTranslation('field-week');
   const f = useFormat();
   // Supervisors and team members read the week; only the health officer keeps teams and plans.
-  const plans = canUse(useSession().role, FIELD_ACCESS.planWeek);
+  const role = useSession().role;
+  const plans = canUse(role, FIELD_ACCESS.planWeek);
+  const approves = canUse(role, FIELD_ACCESS.approveWeek);
   const id = useId();
   const [weekStart, setWeekStart] = useState('');
   const [travel, setTravel] = useState('150');
@@ -87,11 +90,14 @@ export function FieldWeekPage() {
           <div className="card mb-6 space-y-2" aria-live="polite">
             <h2 className="section-title">{t('weekOf', { start: f.date(data.workingDays[0]), end: f.date(data.workingDays[data.workingDays.length - 1]) })}</h2>
             <p className="font-bold">{t(`status.${data.status}`)}{data.edited ? ` · ${t('edited')}` : ''}</p>
+            {data.status === 'draft' && data.review?.decision === 'sent_back' ? <p role="note">{t('review.sentBack', { by: data.review.by ?? '—', reason: data.review.reason ?? '' })}</p> : null}
             <p>{t('covered', { covered: f.number(data.coveredRisk, 0), total: f.number(data.totalRisk, 0), ladder: f.number(data.ladderOrderRisk, 0) })}</p>
             <p className="text-sm">{data.ladderWeek ? t('ladderWeek', { year: data.ladderWeek.year, week: data.ladderWeek.week }) : t('noLadder')}</p>
             <p className="text-sm">{t('method', { km: f.number(data.maxTravelKm, 0) })}</p>
             <p className="text-sm">{t('visitWeight')}</p>
           </div>
+
+          {approves && data.status === 'awaiting_approval' ? <ReviewFieldWeek id={data.id} weekStart={key} /> : null}
 
           {data.teams.length === 0 ? <p>{t('noTeams')}</p> : !plans ? (
             <div className="mb-4 space-y-4">
