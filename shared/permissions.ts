@@ -84,6 +84,10 @@ export const PERMISSIONS = {
   'field.plan': ['officer'],
   /** see a Field week: planners and approvers all of it, a community worker their own teams' days */
   'field.seeWeek': ['officer', 'supervisor', 'worker'],
+  /** approve a week, or send it back with a reason, when the field settings require approval */
+  'field.approve': ['supervisor'],
+  /** whether a supervisor must approve the week before it is published */
+  'field.settings': ['admin'],
 
   // — every signed-in role —
   /** the ladder, district files, advisories, settings: every signed-in role (workers: their districts) */

@@ -28,6 +28,10 @@ export class FieldTeamEntity {
   @Column({ name: 'days_per_week', type: 'integer' })
   daysPerWeek: number;
 
+  /** Set when the officer retires the team: kept for the weeks that name it, left out of new proposals. */
+  @Column({ name: 'retired_at', type: 'timestamptz', nullable: true })
+  retiredAt: Date | null;
+
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz' })
   createdAt: Date;
 

@@ -8,6 +8,7 @@ interface TeamRow {
   kinds: WorkKind[];
   days_per_week: number;
   updated_at: Date;
+  retired_at: Date | null;
   base_id: string;
   base_code: string;
   base_name: string;
@@ -24,17 +25,18 @@ export class FieldTeamsRepository {
   constructor(private readonly manager: EntityManager) {}
 
   /** Teams with their base and members, by name; `ids` or `memberId` narrows the list. */
-  async list(filter: { ids?: string[]; memberId?: string } = {}): Promise<TeamRecord[]> {
+  async list(filter: { ids?: string[]; memberId?: string; activeOnly?: boolean } = {}): Promise<TeamRecord[]> {
     const rows: TeamRow[] = await this.manager.query(
-      `SELECT t.id, t.name, t.kinds, t.days_per_week, t.updated_at, d.id AS base_id, d.code AS base_code, d.name AS base_name,
+      `SELECT t.id, t.name, t.kinds, t.days_per_week, t.updated_at, t.retired_at, d.id AS base_id, d.code AS base_code, d.name AS base_name,
               coalesce((SELECT json_agg(json_build_object('id', u.id, 'displayName', u.display_name, 'role', u.role,
                                                           'language', u.language, 'email', u.email) ORDER BY u.display_name, u.id)
                           FROM field_team_members m JOIN users u ON u.id = m.user_id WHERE m.team_id = t.id), '[]') AS members
          FROM field_teams t JOIN districts d ON d.id = t.base_district_id
         WHERE ($1::uuid[] IS NULL OR t.id = ANY($1))
           AND ($2::uuid IS NULL OR EXISTS (SELECT 1 FROM field_team_members m WHERE m.team_id = t.id AND m.user_id = $2))
-        ORDER BY t.name`,
-      [filter.ids ?? null, filter.memberId ?? null],
+          AND (NOT $3::boolean OR t.retired_at IS NULL)
+        ORDER BY t.retired_at IS NOT NULL, t.name`,
+      [filter.ids ?? null, filter.memberId ?? null, filter.activeOnly ?? false],
     );
     return rows.map((r) => ({
       id: r.id,
@@ -44,6 +46,7 @@ export class FieldTeamsRepository {
       kinds: r.kinds,
       daysPerWeek: r.days_per_week,
       updatedAt: new Date(r.updated_at).toISOString(),
+      retiredAt: r.retired_at ? new Date(r.retired_at).toISOString() : null,
       memberEmails: new Map(r.members.map((m) => [m.id, m.email])),
     }));
   }

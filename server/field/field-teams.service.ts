@@ -54,6 +54,20 @@ export class FieldTeamsService {
     });
   }
 
+  /** Retire a team: it stays on the weeks that name it and leaves new proposals. Retiring twice changes nothing more. */
+  async retire(p: Principal, id: string) {
+    return this.ctx.ds.transaction(async (manager) => {
+      const repo = new FieldTeamsRepository(manager);
+      const [before] = await repo.list({ ids: [id] });
+      if (!before) throw notFound('The team');
+      if (!before.retiredAt) {
+        await manager.update(FieldTeamEntity, { id }, { retiredAt: new Date(), updatedAt: new Date() });
+        await recordAudit(manager, { actorId: p.userId, action: 'field-team.retired', entity: 'field_team', entityId: id, before: { retiredAt: null }, after: { retired: true } });
+      }
+      return presentTeam((await repo.list({ ids: [id] }))[0]);
+    });
+  }
+
   async remove(p: Principal, id: string) {
     await this.ctx.ds.transaction(async (manager) => {
       const [before] = await new FieldTeamsRepository(manager).list({ ids: [id] });

@@ -34,6 +34,8 @@ export const fieldTeamDto = z.object({
   kinds: z.array(workKind),
   daysPerWeek: z.number().int(),
   updatedAt: z.string(),
+  /** Set once the team is retired. */
+  retiredAt: z.string().nullable().default(null),
 });
 export type FieldTeamDto = z.infer<typeof fieldTeamDto>;
 
@@ -48,6 +50,7 @@ export const fieldTeamCandidatesResponse = z.object({
 
 // ── The Field week ──────────────────────────────────────────────────────────────────────────────
 
+export const FIELD_WEEK_STATUSES = ['draft', 'awaiting_approval', 'published'] as const;
 const tierEnum = z.enum(TIERS);
 const reasonCode = z.enum(['planned', 'partly_planned', 'no_tier', 'not_needed', 'no_population', 'no_location', 'no_teams', 'no_trained_team', 'out_of_reach', 'capacity_spent']);
 
@@ -103,11 +106,17 @@ export const fieldWeekDto = fieldWeekProposalRecord.extend({
   weekStart: z.string(),
   /** The working days of the week (Monday–Friday). */
   workingDays: z.array(z.string()),
-  status: z.enum(['draft', 'published']),
+  /** `awaiting_approval`: published by the officer while approval is required, waiting for a supervisor. */
+  status: z.enum(FIELD_WEEK_STATUSES),
   edited: z.boolean(),
   teams: z.array(z.object({ id: uuid, name: z.string(), baseDistrict: districtRef, kinds: z.array(workKind), daysPerWeek: z.number().int() })),
   days: z.array(plannedDay),
   publishedAt: z.string().nullable(),
+  /** When approval is required: who sent the week to the supervisors and when. */
+  submittedAt: z.string().nullable().default(null),
+  submittedBy: z.string().nullable().default(null),
+  /** The supervisor's last decision (approved, or sent back with its reason). */
+  review: z.object({ decision: z.enum(['approved', 'sent_back']), by: z.string().nullable(), at: z.string(), reason: z.string().nullable() }).nullable().default(null),
   /** Mails queued to team members when it was published. */
   mailed: z.number().int().optional(),
 });
@@ -115,3 +124,30 @@ export type FieldWeekDto = z.infer<typeof fieldWeekDto>;
 
 export const fieldWeekResponse = z.object({ week: fieldWeekDto.nullable() });
 export type FieldWeekResponse = z.infer<typeof fieldWeekResponse>;
+
+/** POST /api/field-weeks/:id/send-back (supervisor): the reason the officer reads. */
+export const sendBackFieldWeekBody = z.strictObject({
+  reason: z.string().trim().min(3, { message: 'must say why (3 characters or more)' }).max(500, { message: 'is too long (500 characters at most)' }),
+});
+export type SendBackFieldWeekBody = z.infer<typeof sendBackFieldWeekBody>;
+
+/** GET /api/field-weeks/awaiting (supervisor): the weeks waiting for approval, oldest first. */
+export const awaitingFieldWeeksResponse = z.object({
+  weeks: z.array(z.object({ id: uuid, weekStart: z.string(), submittedAt: z.string().nullable(), submittedBy: z.string().nullable(), days: z.number().int(), teams: z.number().int() })),
+});
+export type AwaitingFieldWeeksResponse = z.infer<typeof awaitingFieldWeeksResponse>;
+
+/** GET/PUT /api/field-settings (admin): whether a supervisor must approve the week's plan before it is published. */
+export const fieldSettingsDto = z.object({
+  approvalRequired: z.boolean(),
+  updatedAt: z.string().nullable(),
+  updatedBy: z.object({ id: uuid, displayName: z.string() }).nullable(),
+});
+export type FieldSettingsDto = z.infer<typeof fieldSettingsDto>;
+
+export const fieldSettingsBody = z.strictObject({
+  approvalRequired: z.boolean({ message: 'must be true or false' }),
+  /** Why the setting changes (kept with the audit event, as every admin change). */
+  reason: z.string().trim().min(3, { message: 'must say why (3 characters or more)' }).max(500, { message: 'is too long (500 characters at most)' }),
+});
+export type FieldSettingsBody = z.infer<typeof fieldSettingsBody>;

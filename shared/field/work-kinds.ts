@@ -50,4 +50,6 @@ export const FIELD_ACCESS = {
   seeTeams: rolesWith('field.seeTeams'),
   planWeek: rolesWith('field.plan'),
   seeWeek: rolesWith('field.seeWeek'),
+  approveWeek: rolesWith('field.approve'),
+  settings: rolesWith('field.settings'),
 } as const;

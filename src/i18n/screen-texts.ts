@@ -18,7 +18,7 @@ export const SCREEN_TEXTS = {
   'features/users/users-admin.page': ['users'],
   'features/districts/districts-admin.page': ['districts', 'profiles'],
   'features/profiles/profiles.page': ['district-file', 'ladder', 'profiles'],
-  'features/tier-settings/tier-settings.page': ['tier-settings'],
+  'features/tier-settings/tier-settings.page': ['field-week', 'tier-settings'],
   'features/cases/case-ledger.page': ['cases', 'districts'],
   'features/cases/district-cases.page': ['cases', 'cautions', 'districts', 'surveys'],
   'features/surveys/surveys.page': ['cautions', 'surveys'],

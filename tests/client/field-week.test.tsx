@@ -71,10 +71,16 @@ describe('Field week screen', () => {
     const { container: c } = await renderRoutes('/field-week');
     await waitFor(() => expect(c.textContent).toContain('No plan for this week yet.'), 5000);
     await typeInto(getByLabel(c, 'Team name'), 'Harbour team');
-    await waitFor(() => expect(c.querySelectorAll('option').length).toBeGreaterThan(1));
-    await selectOption(getByLabel<HTMLSelectElement>(c, 'Base district'), id(1));
+    // The base and the members are searchable pickers: type part of a name, pick a match.
+    await waitFor(() => expect(c.textContent).toContain('Type part of the district name'));
+    await typeInto(getByLabel(c, 'Base district'), 'salt');
+    await waitFor(() => getButton(c, 'Saltmarsh Coast · HV-01'));
+    await click(getButton(c, 'Saltmarsh Coast · HV-01'));
     await click(getByLabel(c, 'larviciding'));
-    await click(getByLabel(c, 'Wen Worker'));
+    await typeInto(getByLabel(c, 'Members (health officers and community workers)'), 'wen');
+    await waitFor(() => getButton(c, 'Wen Worker · Community worker'));
+    await click(getButton(c, 'Wen Worker · Community worker'));
+    expect(c.querySelector('[aria-label="Remove Wen Worker"]')).not.toBeNull();
     await click(getButton(c, 'Add the team'));
     await waitFor(() => expect(c.textContent).toContain('is taken by another team'));
     expect(sent).toEqual({ name: 'Harbour team', baseDistrictId: id(1), kinds: ['larviciding'], daysPerWeek: 4, memberIds: [id(102)] });
@@ -112,5 +118,27 @@ describe('Field week CSV', () => {
     expect(lines[0]).toBe('Day,Team,Code,District,Tier,Work');
     expect(lines[1]).toBe('2026-12-07,Harbour team,HV-01,Saltmarsh Coast,High,larviciding');
     expect(lines[2]).toBe('2026-12-08,Harbour team,HV-02,Orrin Valley,raised,case investigation');
+  });
+});
+
+describe('Field week for a supervisor', () => {
+  it('when a week waits for approval and the supervisor sends it back without a reason, then the reason field says so; approving publishes it', async () => {
+    let approved = false;
+    fakeApi({
+      'GET /api/me': () => json(200, { ...officerMe, role: 'supervisor', email: 'supervisor@halvern.example' }),
+      'GET /api/field-weeks': () => json(200, { week: week({ status: 'awaiting_approval', submittedAt: '2026-12-05T09:00:00.000Z', submittedBy: 'Olu Officer' }) }),
+      'POST /api/field-weeks/00000000-0000-4000-8000-000000000900/send-back': () => json(400, { error: { code: 'validation_failed', message: 'Invalid request.', fields: [{ path: 'reason', message: 'must say why (3 characters or more)' }] } }),
+      'POST /api/field-weeks/00000000-0000-4000-8000-000000000900/approve': () => {
+        approved = true;
+        return json(200, week({ status: 'published', publishedAt: '2026-12-05T10:00:00.000Z', mailed: 1, review: { decision: 'approved', by: 'Sam Supervisor', at: '2026-12-05T10:00:00.000Z', reason: null } }));
+      },
+    });
+    const { container: c } = await renderRoutes('/field-week');
+    await waitFor(() => expect(c.textContent).toContain("Waiting for a supervisor’s approval"), 5000);
+    await click(getButton(c, 'Send back to the health officer'));
+    await waitFor(() => expect(c.textContent).toContain('must say why'));
+    await click(getButton(c, 'Approve and send to the teams'));
+    await waitFor(() => expect(c.textContent).toContain('Published'));
+    expect(approved).toBe(true);
   });
 });

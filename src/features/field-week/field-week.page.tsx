@@ -14,6 +14,7 @@ import { useProposeFieldWeek } from './api/propose-field-week.api';
 import { usePublishFieldWeek } from './api/publish-field-week.api';
 import { useSaveFieldWeekDays } from './api/save-field-week-days.api';
 import { FieldTeamsSection } from './components/field-teams.section';
+import { ReviewFieldWeek } from './components/review-field-week';
 
 type Picks = Record<string, string>; // `${teamId}|${day}` → districtId ('' = no district)
 const cell = (teamId: string, day: string) => `${teamId}|${day}`;
@@ -28,7 +29,9 @@ export function FieldWeekPage() {
   const { t } = useTranslation('field-week');
   const f = useFormat();
   // Supervisors and team members read the week; only the health officer keeps teams and plans.
-  const plans = may(useSession().role, 'field.plan');
+  const role = useSession().role;
+  const plans = may(role, 'field.plan');
+  const approves = may(role, 'field.approve');
   const id = useId();
   const [weekStart, setWeekStart] = useState('');
   const [travel, setTravel] = useState('150');
@@ -41,7 +44,8 @@ export function FieldWeekPage() {
   const [picks, setPicks] = useState<Picks>({});
   useEffect(() => setPicks(data ? picksOf(data) : {}), [data]);
   const dirty = useMemo(() => (data ? JSON.stringify(picks) !== JSON.stringify(picksOf(data)) : false), [picks, data]);
-  const published = data?.status === 'published' || !plans;
+  // A week waiting for a supervisor's approval is as fixed as a published one until it is sent back.
+  const published = (data !== null && data.status !== 'draft') || !plans;
   const byRank = useMemo(() => (data ? [...data.districts].sort((a, b) => a.rank - b.rank) : []), [data]);
 
   const onPropose = () => propose.mutate({ ...(weekStart ? { weekStart } : {}), maxTravelKm: Number(travel) });
@@ -86,11 +90,14 @@ export function FieldWeekPage() {
           <div className="card mb-6 space-y-2" aria-live="polite">
             <h2 className="section-title">{t('weekOf', { start: f.date(data.workingDays[0]), end: f.date(data.workingDays[data.workingDays.length - 1]) })}</h2>
             <p className="font-bold">{t(`status.${data.status}`)}{data.edited ? ` · ${t('edited')}` : ''}</p>
+            {data.status === 'draft' && data.review?.decision === 'sent_back' ? <p role="note">{t('review.sentBack', { by: data.review.by ?? '—', reason: data.review.reason ?? '' })}</p> : null}
             <p>{t('covered', { covered: f.number(data.coveredRisk, 0), total: f.number(data.totalRisk, 0), ladder: f.number(data.ladderOrderRisk, 0) })}</p>
             <p className="text-sm">{data.ladderWeek ? t('ladderWeek', { year: data.ladderWeek.year, week: data.ladderWeek.week }) : t('noLadder')}</p>
             <p className="text-sm">{t('method', { km: f.number(data.maxTravelKm, 0) })}</p>
             <p className="text-sm">{t('visitWeight')}</p>
           </div>
+
+          {approves && data.status === 'awaiting_approval' ? <ReviewFieldWeek id={data.id} weekStart={key} /> : null}
 
           {data.teams.length === 0 ? <p>{t('noTeams')}</p> : !plans ? (
             <div className="mb-4 space-y-4">
@@ -163,7 +170,7 @@ export function FieldWeekPage() {
             </button>
           </p>
 
-          {!plans ? null : published ? (
+          {!plans || data.status === 'awaiting_approval' ? null : published ? (
             <FormMessage kind="success">{t('publishedAt', { at: f.dateTime(data.publishedAt) })}{data.mailed !== undefined ? ` ${t('mailed', { count: data.mailed })}` : ''}</FormMessage>
           ) : (
             <div className="mb-6 flex flex-wrap gap-3">

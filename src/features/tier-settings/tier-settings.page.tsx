@@ -7,6 +7,7 @@ import { errorText } from '../../lib/error-text';
 import { usePreviewTierSettings } from './api/preview-tier-settings.api';
 import { useSaveTierSettings } from './api/save-tier-settings.api';
 import { useTierSettings } from './api/tier-settings.api';
+import { FieldApprovalForm } from '../field-week/components/field-approval.form';
 import { FlagLapseForm } from './components/flag-lapse.form';
 
 const CUTS = ['raised', 'high', 'critical'] as const;
@@ -101,6 +102,7 @@ export function TierSettingsPage() {
             </button>
           </form>
           <FlagLapseForm />
+          <FieldApprovalForm />
           <section aria-labelledby="history-title" className="card">
             <h2 id="history-title" className="text-lg font-bold">{t('history')}</h2>
             {current.data!.history.length === 0 ? (
