@@ -29,6 +29,8 @@ export interface LookBackOptions extends StartLookBackBody {
   requestedBy: string | null;
   /** The last day that may be replayed; default today in the deployment's time zone. */
   today?: string;
+  /** Only these districts (service-level, for tests and the demo check); default every district. */
+  districtIds?: readonly string[];
   /** For fault-injection tests: a throw here is that district's failure, as bad data would be. */
   districtHook?: (districtId: string) => void;
 }
@@ -113,7 +115,7 @@ export class LookBackService {
       const weatherFrom = `${Number(firstAsOf.slice(0, 4)) - PRIOR_SEASONS}-01-01`;
       const casesFrom = Number(firstAsOf.slice(0, 4)) - CHANNEL_LOOKBACK_YEARS;
       const surveysFrom = formatIsoDate(parseIsoDate(firstAsOf) - 28);
-      const districts = await this.seasons.districts();
+      const districts = (await this.seasons.districts()).filter((d) => !opts.districtIds || opts.districtIds.includes(d.id));
       run.districtsTotal = districts.length;
       await runs.update(run.id, { districtsTotal: run.districtsTotal });
       for (const district of districts) {

@@ -74,6 +74,8 @@ const modelScores = z.object({
   brier: rate,
   hitRateInterval: interval,
   falseAlarmRatioInterval: interval,
+  aucInterval: interval,
+  falseAlarmRateInterval: interval,
 });
 export type ModelScoresDto = z.infer<typeof modelScores>;
 export const leadSkillDto = z.object({

@@ -37,6 +37,9 @@ export interface ModelScores {
   brier: number | null;
   hitRateInterval: BootstrapInterval;
   falseAlarmRatioInterval: BootstrapInterval;
+  /** Interval of the ROC area: one that includes 0.5 shows no skill at telling event weeks from quiet ones. */
+  aucInterval: BootstrapInterval;
+  falseAlarmRateInterval: BootstrapInterval;
 }
 
 export interface LeadSkill {
@@ -71,6 +74,8 @@ function scoresOf(weeks: readonly ScoredWeek[], lead: number, threshold: number,
     brier: brierScore(pairs),
     hitRateInterval: bootstrapBySeason(pairs, (p) => hitRate(contingency(p, threshold)), bootstrap),
     falseAlarmRatioInterval: bootstrapBySeason(pairs, (p) => falseAlarmRatio(contingency(p, threshold)), bootstrap),
+    aucInterval: bootstrapBySeason(pairs, rocAuc, bootstrap),
+    falseAlarmRateInterval: bootstrapBySeason(pairs, (p) => falseAlarmRate(contingency(p, threshold)), bootstrap),
   };
 }
 

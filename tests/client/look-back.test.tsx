@@ -15,7 +15,7 @@ const run = (over: Partial<LookBackRunDto> = {}): LookBackRunDto => ({
 const scores = (hit: number | null) => {
   const table = { hits: 3, falseAlarms: 1, misses: 1, correctNegatives: 95 };
   const interval = { estimate: hit, lower: 0.5, upper: 0.9, replicates: 300 };
-  const model = (h: number | null) => ({ table, hitRate: h, falseAlarmRatio: 0.25, falseAlarmRate: 0.01, auc: 0.8, brier: 0.04, hitRateInterval: interval, falseAlarmRatioInterval: interval });
+  const model = (h: number | null) => ({ table, hitRate: h, falseAlarmRatio: 0.25, falseAlarmRate: 0.01, auc: 0.8, brier: 0.04, hitRateInterval: interval, falseAlarmRatioInterval: interval, aucInterval: interval, falseAlarmRateInterval: interval });
   const leads: LeadSkillDto[] = Array.from({ length: 12 }, (_, i) => ({ lead: i + 1, pairs: 100, tier: model(hit), climatology: model(0.33), persistence: model(0.5), channel: model(0.4) }));
   return { runId: RUN_ID, warnAt: 'high', event: { method: 'geometric', line: 'upper' }, groups: [{ level: 'overall', id: null, name: null, districts: 12, leads, leadTimes: [2, 3, 4] }] };
 };
