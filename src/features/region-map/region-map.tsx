@@ -9,6 +9,9 @@ import { useBoundaries } from './api/boundaries.api';
 import { errorText } from '../../lib/error-text';
 
 // ECharts arrives with this chunk only: the Ladder's text and table show before it, and sign-in never loads it.
+/** Up to this many districts the list under the map shows open; beyond it, it folds into a <details>. */
+const LIST_OPEN_UP_TO = 60;
+
 const RegionMapChart = lazy(() => import('./region-map-chart'));
 
 /**
@@ -65,6 +68,10 @@ export function RegionMap({ rows, only }: { rows: LadderRow[]; only?: LadderRow[
             {t('listTitle')}
           </h3>
           <p className="text-xs text-ink-muted">{t('listHint')}</p>
+          {listed.length > LIST_OPEN_UP_TO ? (
+            // At national scale (3,000 districts) the list folds away so the page stays short; the Ladder table has every district too.
+            <details className="mt-1">
+              <summary className="link cursor-pointer text-sm">{t('listTitle')}</summary>
           <ul className="map-district-list" aria-label={t('listTitle')} data-testid="map-district-list">
             {listed.map((d) => {
               const mark = d.row ? words.confidence(d.row.confidence) : null;
@@ -82,6 +89,26 @@ export function RegionMap({ rows, only }: { rows: LadderRow[]; only?: LadderRow[
               );
             })}
           </ul>
+            </details>
+          ) : (
+          <ul className="map-district-list" aria-label={t('listTitle')} data-testid="map-district-list">
+            {listed.map((d) => {
+              const mark = d.row ? words.confidence(d.row.confidence) : null;
+              return (
+                <li key={d.id}>
+                  <Link to={`/districts/${d.id}`} className="map-district-link">
+                    {d.row ? <TierSwatch tier={d.row.tier} /> : <span aria-hidden="true" className="tier-swatch is-empty" />}
+                    <span className="min-w-0 flex-1 truncate">{d.name}</span>
+                    <span className="text-xs text-ink-muted">
+                      {d.row ? words.tier(d.row.tier) : t('noTier')}
+                      {mark ? ` (${mark})` : ''}
+                    </span>
+                  </Link>
+                </li>
+              );
+            })}
+          </ul>
+          )}
           </div>
         </div>
       )}

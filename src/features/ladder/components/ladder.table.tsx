@@ -87,7 +87,15 @@ function ladderColumns(w: LadderWords) {
           <Link to={`/districts/${c.row.original.districtId}`} className="link truncate">
             {c.getValue()}
           </Link>
-          <span className="font-mono text-xs text-ink-muted">{c.row.original.code}</span>
+          <span className="font-mono text-xs text-ink-muted">
+            {c.row.original.code}
+            {c.row.original.isDemo ? (
+              <span className="demo-mark font-sans" title={t('table.demoMarkLabel')}>
+                <span aria-hidden="true">{t('table.demoMark')}</span>
+                <span className="sr-only">{t('table.demoMarkLabel')}</span>
+              </span>
+            ) : null}
+          </span>
         </span>
       ),
     }),

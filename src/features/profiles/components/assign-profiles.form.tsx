@@ -1,7 +1,8 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { useTranslation } from 'react-i18next';
 import { assignProfilesBody } from '../../../../shared/api/profiles.schema';
 import type { DistrictDto } from '../../../../shared/api/districts.schema';
+import { SearchPicker } from '../../../components/search-picker';
 import { CheckboxGroup, FormMessage, TextField } from '../../../components/form';
 import { formErrorText } from '../../../lib/form-errors';
 import { isApiError } from '../../../lib/api-client';
@@ -24,6 +25,7 @@ export function AssignProfilesForm({ districts }: { districts: DistrictDto[] }) 
   const [errors, setErrors] = useState<Errors>({});
   const [message, setMessage] = useState<{ kind: 'error' | 'success'; text: string } | null>(null);
   // Only published profiles are assignable: the season run computes from the shipped library.
+  const districtOptions = useMemo(() => districts.map((d) => ({ value: d.id, label: `${d.code} – ${d.name}` })), [districts]);
   const assignable = (profiles.data ?? []).filter((p) => p.kind === 'published');
 
   const fieldOf = (path: string) => {
@@ -70,9 +72,9 @@ export function AssignProfilesForm({ districts }: { districts: DistrictDto[] }) 
       <h3 id="assign-profiles-title" className="font-bold">{t('assign.title')}</h3>
       <p className="text-sm text-ink-muted">{t('assign.lead')}</p>
       {message ? <FormMessage kind={message.kind}>{message.text}</FormMessage> : null}
-      <CheckboxGroup
+      <SearchPicker
         legend={t('assign.districts')}
-        options={districts.map((d) => ({ value: d.id, label: `${d.code} – ${d.name}` }))}
+        options={districtOptions}
         value={districtIds}
         onChange={setDistrictIds}
         error={errors.districtIds}

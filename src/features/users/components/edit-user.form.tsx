@@ -4,7 +4,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { Trans, useTranslation } from 'react-i18next';
 import { userInviteBody, type UserDto, type UserUpdateBody } from '../../../../shared/api/users.schema';
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
-import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../components/form';
+import { FormMessage, SelectField, TextField } from '../../../components/form';
+import { SearchPicker } from '../../../components/search-picker';
 import { useUpdateUser } from '../api/update-user.api';
 import { RegionChoice } from './region-choice';
 import { useDistrictOptions } from './district-options';
@@ -80,7 +81,7 @@ export function EditUserForm({ user, onClose }: { user: UserDto; onClose: (saved
         control={control}
         name="districtIds"
         render={({ field, fieldState }) => (
-          <CheckboxGroup
+          <SearchPicker
             legend={t('fields.districts')}
             hint={districtHint}
             options={districts.options}

@@ -5,7 +5,8 @@ import { useTranslation } from 'react-i18next';
 import { userInviteBody } from '../../../../shared/api/users.schema';
 import { applyServerFieldErrors, formErrorText } from '../../../lib/form-errors';
 import { errorText } from '../../../lib/error-text';
-import { CheckboxGroup, FormMessage, SelectField, TextField } from '../../../components/form';
+import { FormMessage, SelectField, TextField } from '../../../components/form';
+import { SearchPicker } from '../../../components/search-picker';
 import { useInviteUser } from '../api/invite-user.api';
 import { RegionChoice } from './region-choice';
 import { useDistrictOptions } from './district-options';
@@ -83,7 +84,7 @@ export function InviteUserForm() {
         control={control}
         name="districtIds"
         render={({ field, fieldState }) => (
-          <CheckboxGroup
+          <SearchPicker
             legend={t('fields.districts')}
             hint={districts.error ? t('districtsNotLoaded', { error: errorText(districts.error) }) : districtHint}
             options={districts.options}

@@ -1,5 +1,5 @@
 import { useTranslation } from 'react-i18next';
-import { CheckboxGroup } from '../../../components/form';
+import { SearchPicker } from '../../../components/search-picker';
 import { errorText } from '../../../lib/error-text';
 import { useRegionOptions } from './district-options';
 
@@ -13,7 +13,7 @@ export function RegionChoice({ value, onChange, error }: { value: string[]; onCh
   if (regions.error) return <p className="field-hint">{t('regionsNotLoaded', { error: errorText(regions.error) })}</p>;
   if (regions.options.length === 0 && value.length === 0) return null;
   return (
-    <CheckboxGroup
+    <SearchPicker
       legend={t('fields.regions')}
       hint={t('regionHint')}
       options={regions.options}
