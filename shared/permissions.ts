@@ -89,6 +89,12 @@ export const PERMISSIONS = {
   /** whether a supervisor must approve the week before it is published */
   'field.settings': ['admin'],
 
+  // — the Field log (issue 19) —
+  /** record a piece of field work: team members (community workers) and health officers, as surveys */
+  'fieldRecords.record': ['officer', 'worker'],
+  /** read field records and a district's field-work timeline (district-scoped roles: their districts) */
+  'fieldRecords.read': 'signed-in',
+
   // — every signed-in role —
   /** the ladder, district files, advisories, settings: every signed-in role (workers: their districts) */
   'board.read': 'signed-in',

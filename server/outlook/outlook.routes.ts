@@ -1,5 +1,5 @@
 import { idParams } from '../../shared/api/common.schema';
-import { outlookQuery } from '../../shared/api/outlook.schema';
+import { districtOutlookResponse, outlookQuery } from '../../shared/api/outlook.schema';
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
 import { OutlookService } from './outlook.service';
@@ -9,7 +9,7 @@ export function outlookRoutes(ctx: AppContext) {
   const service = new OutlookService(ctx);
   return [
     defineRoute({
-      method: 'get', path: '/districts/:id/outlook', access: 'signed-in', params: idParams, query: outlookQuery,
+      method: 'get', path: '/districts/:id/outlook', access: 'signed-in', response: districtOutlookResponse, params: idParams, query: outlookQuery,
       handler: ({ principal, params, query }) => service.outlook(principal, params.id, query),
     }),
   ];

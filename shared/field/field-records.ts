@@ -1,13 +1,3 @@
-import type { Role } from '../roles';
-
-/** Permission table of the Field log (docs/product.md § Roles): the routes and the screens read these rows. */
-export const FIELD_RECORD_ACCESS = {
-  /** record a piece of field work: team members (community workers) and health officers, as surveys */
-  record: ['officer', 'worker'],
-  /** read records: everybody signed in, district-scoped roles their own districts only */
-  read: ['admin', 'officer', 'epidemiologist', 'supervisor', 'worker'],
-} as const satisfies Record<string, readonly Role[]>;
-
 /** Units a product amount may be given in (what sprayers and larvicide packets are measured in). */
 export const AMOUNT_UNITS = ['ml', 'l', 'g', 'kg'] as const;
 export type AmountUnit = (typeof AMOUNT_UNITS)[number];
