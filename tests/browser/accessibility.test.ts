@@ -95,7 +95,10 @@ async function axeProblems(page: Page, screen: string): Promise<string[]> {
 async function openLadder(page: Page) {
   await page.goto(server.baseUrl + '/');
   await page.locator('.ladder-table tbody tr[data-district]').first().waitFor();
+  // On a phone the map's code loads only when the reader scrolls towards it (issue 20).
+  await page.locator('[data-tour="region-map"]').scrollIntoViewIfNeeded();
   await page.locator('[data-testid="region-map"] canvas').first().waitFor();
+  await page.evaluate(() => window.scrollTo(0, 0));
 }
 
 /** The District file of the district the Ladder ranks first (the highest tier), with its charts drawn. */

@@ -43,7 +43,7 @@ describe('the Field week in the browser', () => {
 
     const [base] = await server.ds.query(`SELECT name FROM districts WHERE code = 'HV-01'`);
     await page.getByLabel('Team name').fill('Coast team');
-    await page.getByLabel('Base district').selectOption({ label: base.name });
+    await page.getByRole('group', { name: 'Base district' }).getByLabel(`${base.name} · HV-01`).check();
     await page.getByLabel('larviciding').check();
     await page.getByLabel('case investigation').check();
     await page.getByLabel('community clean-up').check();

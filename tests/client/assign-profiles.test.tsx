@@ -45,7 +45,7 @@ describe('the Profiles screen', () => {
   it('when an admin opens Profiles, then each parameter shows its central, low and high values and its source', async () => {
     const withParams = {
       ...profile('aedes-aegypti-dengue', 'Aedes aegypti dengue'),
-      parameters: [{ path: 'development.degreeDaysPerGeneration', value: 135.2, low: 134.8, high: 153.6, unit: 'DD', tag: 'derived',
+      parameters: [{ path: 'development.degreeDaysPerGeneration', value: 135.2, low: 134.8, high: 153.6, unit: 'degree-days', tag: 'derived',
         source: { author: 'Mordecai et al.', year: 2017, title: 'Detecting the impact of temperature on transmission', journal: 'PLoS Negl. Trop. Dis.' }, note: null }],
     };
     fakeApi({
@@ -58,7 +58,7 @@ describe('the Profiles screen', () => {
       if (!r) throw new Error('no parameter row yet');
       return r;
     });
-    expect(row.textContent).toContain('135.2 DD');
+    expect(row.textContent).toContain('135.2 degree-days');
     expect(row.textContent).toContain('134.8');
     expect(row.textContent).toContain('153.6');
     expect(row.textContent).toContain('Mordecai et al. (2017)');

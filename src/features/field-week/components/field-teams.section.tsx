@@ -11,7 +11,7 @@ import { useFieldTeamCandidates } from '../api/field-team-candidates.api';
 import { useFieldTeams } from '../api/field-teams.api';
 import { useRetireFieldTeam } from '../api/retire-field-team.api';
 import { useUpdateFieldTeam } from '../api/update-field-team.api';
-import { SearchPicker } from './search-picker';
+import { SearchPicker } from '../../../components/search-picker';
 
 interface Draft {
   name: string;
@@ -47,12 +47,12 @@ export function FieldTeamsSection() {
   const fieldError = (path: string) => (isApiError(saving.error) ? saving.error.fieldMessage(path) : undefined);
   const set = (patch: Partial<Draft>) => setDraft((d) => ({ ...d, ...patch }));
 
-  const districtItems = useMemo(() => (districts.data ?? []).map((d) => ({ id: d.id, label: d.name, detail: d.code })), [districts.data]);
+  const districtItems = useMemo(() => (districts.data ?? []).map((d) => ({ value: d.id, label: `${d.name} · ${d.code}` })), [districts.data]);
   const peopleItems = useMemo(() => {
-    const list = (people.data ?? []).map((p) => ({ id: p.id, label: p.displayName, detail: tApp(`roles.${p.role}`) }));
+    const list = (people.data ?? []).map((p) => ({ value: p.id, label: `${p.displayName} · ${tApp(`roles.${p.role}`)}` }));
     // Members already on the team being edited stay listed even if the candidates list no longer has them.
     const team = teams.data?.find((x) => x.id === editing);
-    for (const m of team?.members ?? []) if (!list.some((p) => p.id === m.id)) list.push({ id: m.id, label: m.displayName, detail: tApp(`roles.${m.role}`) });
+    for (const m of team?.members ?? []) if (!list.some((p) => p.value === m.id)) list.push({ value: m.id, label: `${m.displayName} · ${tApp(`roles.${m.role}`)}` });
     return list;
   }, [people.data, teams.data, editing, tApp]);
 
@@ -127,10 +127,10 @@ export function FieldTeamsSection() {
       <form onSubmit={onSubmit} className="space-y-3" noValidate aria-labelledby="team-form-title">
         <h3 className="font-bold" id="team-form-title">{editing ? t('teams.editTitle', { name: teams.data?.find((x) => x.id === editing)?.name ?? '' }) : t('teams.add')}</h3>
         <TextField label={t('teams.name')} value={draft.name} onChange={(e) => set({ name: e.currentTarget.value })} error={fieldError('name')} required maxLength={80} />
-        <SearchPicker label={t('teams.base')} hint={t('teams.baseHint')} items={districtItems} value={draft.base} onChange={(base) => set({ base: base.slice(-1) })} error={fieldError('baseDistrictId')} />
+        <SearchPicker legend={t('teams.base')} hint={t('teams.baseHint')} options={districtItems} value={draft.base} onChange={(base) => set({ base: base.slice(-1) })} error={fieldError('baseDistrictId')} />
         <CheckboxGroup legend={t('teams.kinds')} options={WORK_KINDS.map((k) => ({ value: k, label: t(`kinds.${k}`) }))} value={draft.kinds} onChange={(kinds) => set({ kinds })} error={fieldError('kinds')} />
         <TextField label={t('teams.days')} hint={t('teams.daysHint')} type="number" min={1} max={7} step={1} inputMode="numeric" value={draft.days} onChange={(e) => set({ days: e.currentTarget.value })} error={fieldError('daysPerWeek')} />
-        <SearchPicker label={t('teams.people')} hint={t('teams.peopleHint')} items={peopleItems} value={draft.members} onChange={(members) => set({ members })} multiple error={fieldError('memberIds')} />
+        <SearchPicker legend={t('teams.people')} hint={t('teams.peopleHint')} options={peopleItems} value={draft.members} onChange={(members) => set({ members })} error={fieldError('memberIds')} />
         <FormMessage kind="error">{saving.error ? errorText(saving.error) : null}</FormMessage>
         <FormMessage kind="success">{done}</FormMessage>
         <div className="flex flex-wrap gap-3">

@@ -65,8 +65,12 @@ export function searchText(r: LadderRow, words: LadderWords = currentLadderWords
 
 const column = createColumnHelper<LadderFeatures, LadderRow>();
 
-/** The columns, in the interface language (headers, cell words, CSV values). */
-function ladderColumns(w: LadderWords) {
+/**
+ * The columns, in the interface language (headers, cell words, CSV values). `markDemo`: rows of demo districts carry a small mark, but only where the region
+ * mixes demo and real districts; in the all-demo region the page's banner already says it, and the mark
+ * would only make every row taller on a phone.
+ */
+function ladderColumns(w: LadderWords, markDemo: boolean) {
   const { t } = w;
   return column.columns([
     column.accessor('rank', {
@@ -89,7 +93,7 @@ function ladderColumns(w: LadderWords) {
           </Link>
           <span className="font-mono text-xs text-ink-muted">
             {c.row.original.code}
-            {c.row.original.isDemo ? (
+            {markDemo && c.row.original.isDemo ? (
               <span className="demo-mark font-sans" title={t('table.demoMarkLabel')}>
                 <span aria-hidden="true">{t('table.demoMark')}</span>
                 <span className="sr-only">{t('table.demoMarkLabel')}</span>
@@ -280,7 +284,8 @@ export function LadderTable({
   const id = useId();
   const words = useLadderWords();
   const { t } = words;
-  const columns = useMemo(() => ladderColumns(words), [words]);
+  const markDemo = useMemo(() => rows.some((r) => r.isDemo) && rows.some((r) => !r.isDemo), [rows]);
+  const columns = useMemo(() => ladderColumns(words, markDemo), [words, markDemo]);
   // The table caches each row's accessor values until its data changes; the accessors word the values
   // (driver, zone), so a new language must come with a new data array or cells stay in the old language.
   const data = useMemo(() => rows.slice(), [rows, words]);
