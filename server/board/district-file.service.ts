@@ -163,8 +163,7 @@ export class DistrictFileService {
 
   /** The vector clock of a season without stored results, from the district's weather of that year (rows as the stored query gives them). */
   private async computedClock(districtId: string, lat: number, seasonYear: number) {
-    const profiles: { profile_id: string; biofix: string | null }[] = await this.ctx.ds.query(
-      'SELECT profile_id, biofix FROM district_profiles WHERE district_id = $1 ORDER BY profile_id', [districtId]);
+    const profiles = await new ProfilesRepository(this.ctx.ds).biofixes(districtId);
     if (profiles.length === 0) return [];
     const weather = (await new SeasonRepository(this.ctx.ds).weather([districtId], `${seasonYear}-01-01`, `${seasonYear}-12-31`)).get(districtId);
     if (!weather || weather.rows === 0) return [];

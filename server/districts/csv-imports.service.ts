@@ -3,6 +3,7 @@ import { populationBody } from '../../shared/api/districts.schema';
 import type { ImportProblem, ImportReport } from '../../shared/api/imports.schema';
 import { stationCreateBody } from '../../shared/api/weather.schema';
 import type { AppContext } from '../app-context';
+import { DistrictRunStateRepository } from './district-run-state.repository';
 import { recordAudit, recordAudits } from '../audit/audit.repository';
 import type { Principal } from '../auth/principal';
 import { HttpError } from '../http/errors';
@@ -91,7 +92,7 @@ export class CsvImportsService {
       const ids = await this.repo.upsertStations(m, good);
       const touched = await refreshAssignments(m, this.ctx.config.WEATHER_IDW_STATIONS, this.ctx.config.WEATHER_IDW_MAX_KM);
       await recomputeDistrictSeries(m, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
-      if (touched.size) await m.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...touched]]);
+      if (touched.size) await new DistrictRunStateRepository(m).clear([...touched]);
       await recordAudits(m, good.map(({ line: _line, ...g }) => ({
         actorId: actor.userId, action: before.has(g.code) ? 'weather.station-imported-updated' : 'weather.station-imported-created',
         entity: 'weather_station', entityId: ids.get(g.code)!, before: before.get(g.code) ?? null, after: g, reason: reason ?? null,

@@ -8,6 +8,7 @@ import type { Topology } from 'topojson-specification';
 import { DISTRICT_CODE_PATTERN, polygonGeometry, type PolygonGeometry } from '../../shared/api/districts.schema';
 import type { DistrictImportFields, DistrictImportReport, ImportProblem } from '../../shared/api/imports.schema';
 import type { AppContext } from '../app-context';
+import { DistrictRunStateRepository } from './district-run-state.repository';
 import { recordAudit, recordAudits } from '../audit/audit.repository';
 import type { Principal } from '../auth/principal';
 import { HttpError } from '../http/errors';
@@ -254,7 +255,7 @@ export class DistrictImportService {
       stage('stationAssignment');
       await recomputeDistrictSeries(m, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
       stage('series');
-      await m.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...ids.values()]]);
+      await new DistrictRunStateRepository(m).clear([...ids.values()]);
       await recordAudits(m, read.map((r) => ({
         actorId: actor.userId, action: existing.has(r.code) ? 'district.imported-updated' : 'district.imported-created',
         entity: 'district', entityId: ids.get(r.code)!, before: before.get(r.code) ?? null,

@@ -1,6 +1,7 @@
 import type { z } from 'zod';
 import type { boundaryBody, districtCreateBody, districtUpdateBody, PolygonGeometry, PopulationBody } from '../../shared/api/districts.schema';
 import type { AppContext } from '../app-context';
+import { DistrictRunStateRepository } from './district-run-state.repository';
 import { recordAudit } from '../audit/audit.repository';
 import { assertDistrictVisible, type Principal, seesAllDistricts } from '../auth/principal';
 import { conflict, notFound } from '../http/errors';
@@ -111,11 +112,7 @@ export class DistrictsService {
     await this.ctx.ds.transaction(async (manager) => {
       const current = await manager.findOne(DistrictEntity, { where: { id }, select: { id: true, code: true, centroidLat: true, centroidLon: true } });
       if (!current) throw notFound('The district');
-      const others: { code: string; lat: number; lon: number }[] = await manager.query(
-        `SELECT code, centroid_lat AS lat, centroid_lon AS lon FROM districts
-          WHERE id <> $1 AND boundary IS NOT NULL AND centroid_lat IS NOT NULL AND centroid_lon IS NOT NULL`,
-        [id],
-      );
+      const others = await new DistrictRunStateRepository(manager).otherCentroids(id);
       const refs: Reference[] = others.length
         ? others
         : current.centroidLat !== null && current.centroidLon !== null
@@ -126,7 +123,7 @@ export class DistrictsService {
       const touched = await refreshAssignments(manager, this.ctx.config.WEATHER_IDW_STATIONS, this.ctx.config.WEATHER_IDW_MAX_KM);
       touched.add(id);
       await recomputeDistrictSeries(manager, touched, this.ctx.config.WEATHER_FILL_MAX_DAYS);
-      await manager.query('DELETE FROM district_run_state WHERE district_id = ANY($1::uuid[])', [[...touched]]);
+      await new DistrictRunStateRepository(manager).clear([...touched]);
       await recordAudit(manager, {
         actorId: actor.userId, action: 'district.boundary-set', entity: 'district', entityId: id,
         after: { type: geometry.type, centroid: centre, orientationFixed, confirmed: opts.confirm === true, districtsRecomputed: touched.size },

@@ -1,5 +1,6 @@
 import type { AppContext } from '../app-context';
 import { defineRoute } from '../http/route';
+import { HealthRepository } from './health.repository';
 import { healthResponse } from '../../shared/api/common.schema';
 
 export function healthRoutes(ctx: AppContext) {
@@ -10,7 +11,7 @@ export function healthRoutes(ctx: AppContext) {
       access: 'public', response: healthResponse,
       handler: async (_input, _req, res) => {
         try {
-          await ctx.ds.query('SELECT 1');
+          await new HealthRepository(ctx.ds.manager).ping();
           return { status: 'ok', database: 'up' };
         } catch {
           res.status(503).json({ status: 'degraded', database: 'down' });

@@ -1,22 +1,9 @@
 import type { AppContext } from '../app-context';
 import type { Mailer } from '../mail/mailer';
 import { reasonOf } from '../http/problem-reason';
+import { OutboxRepository, type SendOutcome } from './outbox.repository';
 
-export type SendOutcome = 'sent' | 'retry' | 'failed';
-
-interface ClaimedRow {
-  id: string;
-  kind: string;
-  message_id: string;
-  to_address: string;
-  subject: string;
-  text_body: string;
-  html_body: string;
-  headers: Record<string, string>;
-  attempts: number;
-  pdf: Buffer | null;
-  pdf_name: string | null;
-}
+export type { SendOutcome };
 
 /** An error's text as stored in the delivery log: at most 1,000 characters, without NUL bytes (PostgreSQL text refuses them). */
 function errorText(err: unknown): string {
@@ -70,23 +57,8 @@ export class OutboxWorker {
     let claimed: string | null = null;
     try {
       await runner.startTransaction();
-      const [row]: ClaimedRow[] = await runner.query(
-        `SELECT m.id, m.kind, m.message_id, m.to_address, m.subject, m.text_body, m.html_body, m.headers, m.attempts,
-                COALESCE(g.pdf, bt.pdf, b.pdf) AS pdf,
-                CASE WHEN g.id IS NOT NULL THEN g.pdf_name WHEN b.id IS NULL THEN NULL
-                     ELSE 'broodcast-bulletin-' || d.code || '-' || b.epi_year || '-w' || lpad(b.epi_week::text, 2, '0') || '.pdf' END AS pdf_name
-           FROM outbox_messages m
-           -- a person's weekly digest carries its own named PDF
-           LEFT JOIN bulletin_digests g ON g.id = m.digest_id
-           LEFT JOIN bulletins b ON b.id = m.bulletin_id
-           -- the PDF in the language the mail is written in (its Content-Language), else the default one
-           LEFT JOIN bulletin_translations bt ON bt.bulletin_id = b.id AND bt.language = m.headers->>'Content-Language'
-           LEFT JOIN districts d ON d.id = b.district_id
-          WHERE m.status = 'pending' AND m.next_attempt_at <= now()
-          ORDER BY m.next_attempt_at, m.created_at
-          LIMIT 1
-          FOR UPDATE OF m SKIP LOCKED`,
-      );
+      const outbox = new OutboxRepository(runner.manager);
+      const row = await outbox.claimNext();
       if (!row) {
         await runner.commitTransaction();
         return null;
@@ -115,19 +87,7 @@ export class OutboxWorker {
       const attempts = row.attempts + 1;
       const outcome: SendOutcome = error === null ? 'sent' : permanent || attempts >= config.OUTBOX_MAX_ATTEMPTS ? 'failed' : 'retry';
       const backoff = Math.min(config.OUTBOX_BACKOFF_SECONDS * 2 ** (attempts - 1), config.OUTBOX_BACKOFF_MAX_SECONDS);
-      await runner.query(
-        `UPDATE outbox_messages
-            SET attempts = $2, last_error = $3,
-                status = CASE $4 WHEN 'sent' THEN 'sent' WHEN 'failed' THEN 'failed' ELSE 'pending' END,
-                sent_at = CASE WHEN $4 = 'sent' THEN now() ELSE NULL END,
-                next_attempt_at = CASE WHEN $4 = 'retry' THEN now() + make_interval(secs => $5) ELSE next_attempt_at END
-          WHERE id = $1`,
-        [row.id, attempts, error, outcome, backoff],
-      );
-      await runner.query(
-        `INSERT INTO outbox_attempts (message_id, outcome, error, duration_ms) VALUES ($1, $2, $3, $4)`,
-        [row.id, outcome, error, Date.now() - started],
-      );
+      await outbox.recordAttempt(row.id, { attempts, error, outcome, backoffSeconds: backoff, durationMs: Date.now() - started });
       await runner.commitTransaction();
       if (outcome !== 'sent') this.ctx.logger.warn({ message: row.id, kind: row.kind, attempts, err: error }, `mail ${outcome === 'failed' ? 'failed for good' : 'will be retried'}`);
       return outcome;
@@ -146,11 +106,7 @@ export class OutboxWorker {
   /** Mark one message failed after its own outcome could not be recorded, with a code as its error. */
   private async markBroken(id: string, err: unknown) {
     const code = `not_recorded: ${reasonOf(err).code}`;
-    await this.ctx.ds.query(
-      `UPDATE outbox_messages SET attempts = attempts + 1, status = 'failed', last_error = $2 WHERE id = $1 AND status = 'pending'`,
-      [id, code],
-    );
-    await this.ctx.ds.query(`INSERT INTO outbox_attempts (message_id, outcome, error, duration_ms) VALUES ($1, 'failed', $2, 0)`, [id, code]);
+    await new OutboxRepository(this.ctx.ds.manager).markBroken(id, code);
     this.ctx.logger.error({ message: id, err: (err as Error)?.message }, 'mail failed for good: its outcome could not be recorded; the others go on');
   }
 }

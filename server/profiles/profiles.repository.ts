@@ -1,3 +1,5 @@
+import { z } from 'zod';
+import { parseRows } from '../platform/rows';
 import type { DataSource, EntityManager } from 'typeorm';
 import { ProfileVariantEntity } from './profile-variant.entity';
 
@@ -10,6 +12,12 @@ export interface AssignmentRow {
 /** The profile library's stored part (local variants) and the districts' profile assignments. */
 export class ProfilesRepository {
   constructor(private readonly ds: DataSource) {}
+
+  /** A district's assigned profiles with their biofix (month-day or null), by profile id. */
+  async biofixes(districtId: string): Promise<{ profile_id: string; biofix: string | null }[]> {
+    return parseRows(z.object({ profile_id: z.string(), biofix: z.string().nullable() }), await this.ds.query(
+      'SELECT profile_id, biofix FROM district_profiles WHERE district_id = $1 ORDER BY profile_id', [districtId]));
+  }
 
   variants(m: EntityManager = this.ds.manager): Promise<ProfileVariantEntity[]> {
     return m.find(ProfileVariantEntity, { order: { id: 'ASC' } });

@@ -4,6 +4,7 @@ import { computeTier, DEFAULT_TIER_SETTINGS, type DriverResult, type Tier, type 
 import { recordAudit } from '../audit/audit.repository';
 import type { Principal } from '../auth/principal';
 import { TierSettingsVersionEntity } from './tier-settings-version.entity';
+import { TierSettingsRepository } from './tier-settings.repository';
 
 const num = (x: unknown): number | null => (typeof x === 'number' && Number.isFinite(x) ? x : null);
 const bool = (x: unknown): boolean | null => (typeof x === 'boolean' ? x : null);
@@ -39,10 +40,7 @@ export class TierSettingsService {
   }
 
   async history() {
-    const rows: { id: number; settings: TierSettings; changed_by: string | null; name: string | null; reason: string; created_at: Date }[] = await this.ds.query(
-      `SELECT v.id, v.settings, v.changed_by, u.display_name AS name, v.reason, v.created_at
-         FROM tier_settings_versions v LEFT JOIN users u ON u.id = v.changed_by ORDER BY v.id DESC LIMIT 100`,
-    );
+    const rows = await new TierSettingsRepository(this.ds.manager).history();
     return rows.map((r) => ({
       version: r.id, settings: r.settings, changedBy: r.changed_by, changedByName: r.name, reason: r.reason, createdAt: new Date(r.created_at).toISOString(),
     }));
@@ -53,12 +51,7 @@ export class TierSettingsService {
    * the districts whose tier would change. It only reads; the season run applies a saved version.
    */
   async preview(settings: TierSettings): Promise<TierSettingsPreviewResponse> {
-    const rows: { district_id: string; code: string; name: string; epi_year: number; epi_week: number; tier: Tier; score: number; drivers: DriverResult[] }[] = await this.ds.query(
-      `WITH latest AS (SELECT epi_year, epi_week FROM district_tiers ORDER BY epi_year DESC, epi_week DESC LIMIT 1)
-       SELECT t.district_id, d.code, d.name, t.epi_year, t.epi_week, t.tier, t.score, t.drivers
-         FROM district_tiers t JOIN latest USING (epi_year, epi_week) JOIN districts d ON d.id = t.district_id
-        ORDER BY d.code`,
-    );
+    const rows = await new TierSettingsRepository(this.ds.manager).newestWeekTiers();
     const changes: TierSettingsPreviewResponse['changes'] = [];
     for (const r of rows) {
       const next = computeTier(inputsFromDrivers(r.drivers), settings);

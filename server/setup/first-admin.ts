@@ -4,6 +4,8 @@ import { recordAudit } from '../audit/audit.repository';
 import { inviteLink } from '../auth/auth.mails';
 import { issueToken } from '../auth/tokens.repository';
 import { UserEntity } from '../users/user.entity';
+import { transactionLock } from '../platform/locks';
+import { SetupRepository } from './setup.repository';
 
 /** How long the first admin's link stays usable (the same as an invitation's). */
 export const FIRST_ADMIN_TTL_HOURS = 72;
@@ -23,9 +25,9 @@ export async function firstAdminLink(ds: DataSource, opts: { appUrl: string; ema
   const email = parsed.data.toLowerCase();
   return ds.transaction(async (manager) => {
     // One start at a time decides (two starts on one database would otherwise both create the account).
-    await manager.query(`SELECT pg_advisory_xact_lock(hashtext('broodcast.first-admin'))`);
-    const [ready] = await manager.query(`SELECT 1 FROM users WHERE role = 'admin' AND active AND password_hash IS NOT NULL LIMIT 1`);
-    if (ready) return null;
+    await transactionLock(manager, 'first-admin');
+    const setup = new SetupRepository(manager);
+    if (await setup.anAdminCanSignIn()) return null;
     let user = await manager.findOneBy(UserEntity, { email });
     if (!user) {
       user = await manager.save(UserEntity, { email, displayName: 'Administrator', role: 'admin', passwordHash: null, active: true });
@@ -36,8 +38,7 @@ export async function firstAdminLink(ds: DataSource, opts: { appUrl: string; ema
     } else if (user.role !== 'admin' || !user.active) {
       await manager.update(UserEntity, { id: user.id }, { role: 'admin', active: true });
     }
-    await manager.query(
-      `UPDATE one_time_tokens SET used_at = now() WHERE user_id = $1 AND purpose = 'invite' AND used_at IS NULL`, [user.id]);
+    await setup.retireInviteLinks(user.id);
     const token = await issueToken(manager, user.id, 'invite', FIRST_ADMIN_TTL_HOURS);
     return { link: inviteLink(opts.appUrl, token, 'en'), email };
   });

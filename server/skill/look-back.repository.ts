@@ -33,6 +33,11 @@ export interface WeekCases {
 export class LookBackRepository {
   constructor(private readonly ds: DataSource) {}
 
+  /** Any run still marked running died with its process (the caller holds the Look-back lock). */
+  async failInterruptedRuns(): Promise<void> {
+    await this.ds.query(`UPDATE look_back_runs SET status = 'failed', finished_at = now(), error = coalesce(error, 'interrupted') WHERE status = 'running'`);
+  }
+
   /**
    * One district's weather days between two dates. District days carry no load time, so each is taken
    * as known at the end of its own date (`knownAt` null; server/skill/replay.ts): the replay cuts

@@ -9,7 +9,7 @@ import type { LookBackScoresQuery, LookBackScoresResponse, SkillGroupDto, StartL
 import { LOOK_BACK_LEADS } from '../../shared/api/look-back.schema';
 import { skillReport, type DistrictSkillInput, type SeasonCounts } from '../../shared/skill';
 import { tierRank, type Tier } from '../../shared/tier';
-import { withAdvisoryLock } from '../../jobs/advisory-lock';
+import { withAdvisoryLock } from '../platform/locks';
 import type { AppContext } from '../app-context';
 import { CHANNEL_LOOKBACK_YEARS } from '../cases/case-signals';
 import { badRequest, conflict, notFound } from '../http/errors';
@@ -96,7 +96,7 @@ export class LookBackService {
   /** Record the run (the lock is held). Any other run still marked running died with its process. */
   private async begin(opts: LookBackOptions): Promise<LookBackRunEntity> {
     const runs = this.ctx.ds.getRepository(LookBackRunEntity);
-    await this.ctx.ds.query(`UPDATE look_back_runs SET status = 'failed', finished_at = now(), error = coalesce(error, 'interrupted') WHERE status = 'running'`);
+    await new LookBackRepository(this.ctx.ds).failInterruptedRuns();
     return runs.save(runs.create({
       fromYear: opts.fromYear, toYear: opts.toYear, status: 'running', requestedBy: opts.requestedBy, startedAt: new Date(), finishedAt: null,
       districtsTotal: 0, districtsDone: 0, weeksWritten: 0, warnings: [], error: null,
