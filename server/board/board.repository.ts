@@ -33,12 +33,20 @@ export interface BoardRowRecord {
 export class BoardRepository {
   constructor(private readonly ds: DataSource) {}
 
-  /** Changes whenever a run writes tiers, a district is added or moves region, or a region changes: the board cache's key. */
+  /**
+   * The board cache's key: changes whenever a run writes tiers, a district is added, renamed, recoded or
+   * moves region, a district's profile assignment changes (issue 21), or a region changes. The districts
+   * and assignments enter as a sum of row hashes (order-free, no sort), so the query stays one small scan.
+   */
   async version(): Promise<string> {
     const [row] = await this.ds.query(
       `SELECT (SELECT coalesce(max(computed_at)::text, '') FROM district_tiers) || '|' ||
-              (SELECT count(*)::text || ':' || coalesce(max(created_at)::text, '') || ':' || coalesce(sum(hashtext(coalesce(region_id::text, ''))), 0)::text
+              (SELECT count(*)::text || ':' || coalesce(max(created_at)::text, '') || ':' ||
+                      coalesce(sum(hashtext(id::text || code || name || is_demo::text || coalesce(region_id::text, '')))::text, '0')
                  FROM districts) || '|' ||
+              (SELECT count(*)::text || ':' ||
+                      coalesce(sum(hashtext(district_id::text || profile_id || coalesce(biofix::text, '') || coalesce(assigned_at::text, '')))::text, '0')
+                 FROM district_profiles) || '|' ||
               (SELECT md5(coalesce(string_agg(id::text || code || name, ',' ORDER BY id), '')) FROM regions) AS v`,
     );
     return row.v;

@@ -13,7 +13,8 @@ import { digestFooter, languageHeaders, mailFooter } from './bulletin-texts';
 import { bulletinHtml, bulletinPdf, bulletinSubject, bulletinText, withFooter } from './bulletin.render';
 import { BulletinEntity } from './bulletin.entity';
 import { digestData, digestPdfName, renderDigest, type DigestData, type DigestVersion } from './digest.render';
-import { recipientsOf, subscriberLinks, type Recipient } from './subscriptions.service';
+import { subscriberLinks } from './subscriptions.service';
+import { recipientsOf, recipientsOfDistricts, type Recipient } from './recipients.repository';
 
 export const BULLETIN_LOCK = 'bulletin';
 
@@ -78,10 +79,13 @@ export class BulletinsService {
     const lang: Language = language ?? me?.language ?? DEFAULT_LANGUAGE;
     const data = new Map<string, BulletinData>();
     const followed: string[] = [];
-    for (const row of board.rows) {
-      if (row.confidence === 'insufficient') continue;
-      const receives = (await recipientsOf(this.ctx.ds.manager, row.districtId, 'bulletin')).some((r) => r.userId === p.userId);
-      if (!receives) continue;
+    const candidates = board.rows.filter((row) => row.confidence !== 'insufficient');
+    // One query for every district (it was one per district, issue 21): the districts whose bulletin this person receives.
+    const mine = new Set(
+      (await recipientsOfDistricts(this.ctx.ds.manager, candidates.map((row) => row.districtId), 'bulletin', p.userId)).map((r) => r.districtId),
+    );
+    for (const row of candidates) {
+      if (!mine.has(row.districtId)) continue;
       followed.push(row.districtId);
       data.set(row.districtId, (await this.reader.read(row.districtId, board))!);
     }
@@ -147,12 +151,11 @@ export class BulletinsService {
     }
     // 2. One digest per person of every district they follow, in their language (issue 16).
     const followers = new Map<string, { recipient: Recipient; districtIds: string[] }>();
-    for (const districtId of data.keys()) {
-      for (const r of await recipientsOf(this.ctx.ds.manager, districtId, 'bulletin')) {
-        const f = followers.get(r.userId) ?? { recipient: r, districtIds: [] };
-        f.districtIds.push(districtId);
-        followers.set(r.userId, f);
-      }
+    // One query for every district, in the same order as asking district after district.
+    for (const { districtId, ...r } of await recipientsOfDistricts(this.ctx.ds.manager, [...data.keys()], 'bulletin')) {
+      const f = followers.get(r.userId) ?? { recipient: r, districtIds: [] };
+      f.districtIds.push(districtId);
+      followers.set(r.userId, f);
     }
     const sent = new Set<string>(
       (await this.ctx.ds.query(`SELECT user_id FROM bulletin_digests WHERE epi_year = $1 AND epi_week = $2`, [board.epiYear, board.epiWeek]))

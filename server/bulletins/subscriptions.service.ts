@@ -14,46 +14,8 @@ import { SubscriptionEntity } from './subscription.entity';
 const UNSUBSCRIBE_AUDIENCE = 'broodcast-unsubscribe';
 const ALL_KINDS: MailKind[] = ['advisory', 'bulletin'];
 
-export interface Recipient {
-  userId: string;
-  email: string;
-  displayName: string;
-  /** The language their mail is written in (user preference). */
-  language: Language;
-  /** Their role, which sets how their weekly digest is laid out. */
-  role: Role;
-}
-
-/** Whether user `u` is assigned district $1: one of their own districts, or a district of one of their regions (issue 17). */
-const ASSIGNED_SQL = `(EXISTS (SELECT 1 FROM user_districts ud WHERE ud.user_id = u.id AND ud.district_id = $1)
-   OR EXISTS (SELECT 1 FROM user_regions ur JOIN districts rd ON rd.region_id = ur.region_id WHERE ur.user_id = u.id AND rd.id = $1))`;
-
-/**
- * The role defaults of docs/product.md § Roles for a user who has chosen nothing yet: health officers and
- * supervisors receive every district (or, when scoped to regions, the districts of their regions and their
- * own), epidemiologists and community workers their assigned ones (own districts and those of their
- * regions), and admins nothing (they subscribe on the preferences page).
- */
-const DEFAULT_SQL = `((u.role IN ('officer', 'supervisor') AND (NOT EXISTS (SELECT 1 FROM user_regions ur WHERE ur.user_id = u.id) OR ${ASSIGNED_SQL}))
-   OR (u.role IN ('epidemiologist', 'worker') AND ${ASSIGNED_SQL}))`;
-
-/**
- * Who receives `kind` for a district now, in the caller's transaction: active accounts whose invitation
- * was accepted (a password is set) — an address nobody has confirmed gets nothing but its invitation.
- */
-export async function recipientsOf(manager: EntityManager, districtId: string, kind: MailKind): Promise<Recipient[]> {
-  return manager.query(
-    `SELECT u.id AS "userId", u.email, u.display_name AS "displayName", u.language, u.role FROM users u
-      WHERE u.active AND u.password_hash IS NOT NULL
-        AND CASE WHEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id)
-                 THEN EXISTS (SELECT 1 FROM subscriptions s WHERE s.user_id = u.id AND s.district_id = $1 AND s.active AND $2 = ANY (s.kinds))
-                      -- a community worker's rows count only for a district they are (still) assigned to
-                      AND (u.role <> 'worker' OR ${ASSIGNED_SQL})
-                 ELSE ${DEFAULT_SQL} END
-      ORDER BY u.email`,
-    [districtId, kind],
-  );
-}
+// The recipients' SQL lives in the repository; re-exported here for the callers that import it from the service.
+export { recipientsOf, type Recipient } from './recipients.repository';
 
 /**
  * A signed, non-expiring unsubscribe token (HS256 with JWT_SECRET) for one user and either one district
@@ -246,7 +208,7 @@ export class SubscriptionsService {
     return this.describe(token);
   }
 
-  /** The same rule as DEFAULT_SQL; `regional`: the user is scoped to at least one region. */
+  /** The same rule as `defaultSql` in recipients.repository.ts; `regional`: the user is scoped to at least one region. */
   private defaultFor(role: Role, assigned: string[], regional: boolean) {
     return (districtId: string): MailKind[] =>
       ((role === 'officer' || role === 'supervisor') && (!regional || assigned.includes(districtId))) ||

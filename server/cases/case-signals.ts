@@ -124,13 +124,14 @@ export function buildSignals(input: SignalsInput): SignalsResult {
   const bands = histories.map((h) => (h.length >= 2 ? endemicChannel(input.method, h) : null));
 
   // CUSUM of the counts standardised week by week against the same week of the prior seasons:
-  // z_t = (x_t − μ_t) / max(σ_t, sd floor), then the tabular CUSUM with μ = 0 and σ = 1.
+  // z_t = (x_t − μ_t) / max(σ_t, sd floor), then the tabular CUSUM with μ = 0 and σ = 1, restarted
+  // at 0 after each alarm so a falling season leaves the alarm (issue 21).
   const z = filled.map((x, i) => {
     const h = histories[i];
     if (h.length < 2) return 0;
     return (x - mean(h)) / Math.max(sampleSd(h), DEFAULT_SD_FLOOR);
   });
-  const cs = cusum({ series: z, mean: 0, sd: 1, k: input.cusum.k, h: input.cusum.h });
+  const cs = cusum({ series: z, mean: 0, sd: 1, k: input.cusum.k, h: input.cusum.h, restart: true });
   const growth = growthSeries(filled);
 
   let fittedGrowth: SignalsResult['fittedGrowth'] = null;

@@ -51,6 +51,10 @@ export class SeasonRunEntity {
   /** Codes with parameters (shared/api/problems.schema.ts), worded by the Season runs screen. */
   warnings: RunWarning[];
 
+  /** How many warnings the run raised in all; `warnings` keeps at most WARNINGS_KEPT of them. */
+  @Column({ name: 'warnings_total', type: 'integer', default: 0 })
+  warningsTotal: number;
+
   /** Why the run as a whole stopped: a code (`interrupted`, `drill_stopped`, or an error's reason code). */
   @Column({ type: 'text', nullable: true })
   error: string | null;

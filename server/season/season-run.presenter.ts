@@ -17,5 +17,7 @@ export const presentSeasonRun = (r: SeasonRunEntity): SeasonRunDto => ({
   rowsWritten: r.rowsWritten,
   districtsFailed: failedCount(r.warnings ?? []),
   warnings: r.warnings,
+  // Runs stored before the total was kept count their list.
+  warningsNotListed: Math.max(0, (r.warningsTotal ?? 0) - (r.warnings ?? []).length),
   error: r.error,
 });

@@ -35,7 +35,12 @@ export interface RunOptions {
    * results are written ('write'); a throw there is that district's failure, as a fault in its data would be.
    */
   districtHook?: (stage: 'compute' | 'write', districtId: string) => void;
+  /** For tests: keep at most this many warnings instead of WARNINGS_KEPT. */
+  warningCap?: number;
 }
+
+/** At most this many warnings are stored with a run; the rest are counted (`warningsTotal`). */
+export const WARNINGS_KEPT = 1000;
 
 type Computed = { district: DistrictForRun; result: DistrictSeasonResult; before: PreviousTier | undefined };
 
@@ -102,12 +107,13 @@ export class SeasonRunService {
     return runs.save(runs.create({
       kind: opts.kind, full: opts.full ?? false, status: 'running', requestedBy: opts.requestedBy ?? null,
       startedAt: new Date(), finishedAt: null, asOf: opts.asOf ?? todayIn(this.ctx.config.TIMEZONE),
-      districtsTotal: 0, districtsDone: 0, districtsSkipped: 0, rowsWritten: 0, warnings: [], error: null,
+      districtsTotal: 0, districtsDone: 0, districtsSkipped: 0, rowsWritten: 0, warnings: [], warningsTotal: 0, error: null,
     }));
   }
 
   private async execute(run: SeasonRunEntity, opts: RunOptions): Promise<SeasonRunEntity> {
     const runs = this.ctx.ds.getRepository(SeasonRunEntity);
+    const cap = opts.warningCap ?? WARNINGS_KEPT;
     try {
       const { settings } = await this.settings.current();
       const asOf = run.asOf;
@@ -189,7 +195,7 @@ export class SeasonRunService {
           continue;
         }
         inflight = this.writeIsolated(run, { seasonYear, asOf, week, fingerprints }, results, opts).then(async () => {
-          await runs.update(run.id, { districtsDone: run.districtsDone, rowsWritten: run.rowsWritten, warnings: capWarnings(run.warnings) });
+          await runs.update(run.id, { districtsDone: run.districtsDone, rowsWritten: run.rowsWritten, warnings: capWarnings(run.warnings, cap), warningsTotal: run.warnings.length });
         });
         // A failed write is reported by the next await; keep Node from calling it unhandled meanwhile.
         inflight.catch(() => undefined);
@@ -198,8 +204,9 @@ export class SeasonRunService {
       if (stop) throw stop;
       run.status = 'succeeded';
       run.finishedAt = new Date();
-      run.warnings = capWarnings(run.warnings);
-      await runs.update(run.id, { status: run.status, finishedAt: run.finishedAt, warnings: run.warnings });
+      run.warningsTotal = run.warnings.length;
+      run.warnings = capWarnings(run.warnings, cap);
+      await runs.update(run.id, { status: run.status, finishedAt: run.finishedAt, warnings: run.warnings, warningsTotal: run.warningsTotal });
       this.ctx.logger.info({ run: run.id, done: run.districtsDone, failed: failedCount(run.warnings), skipped: run.districtsSkipped, rows: run.rowsWritten }, 'season run finished');
       return run;
     } catch (err) {
@@ -207,10 +214,11 @@ export class SeasonRunService {
       run.finishedAt = new Date();
       // A code the screen words (the English text stays in the log).
       run.error = err instanceof DrillStop ? 'drill_stopped' : reasonOf(err).code;
-      run.warnings = capWarnings(run.warnings);
+      run.warningsTotal = run.warnings.length;
+      run.warnings = capWarnings(run.warnings, cap);
       await runs.update(run.id, {
         status: 'failed', finishedAt: run.finishedAt, error: run.error, districtsDone: run.districtsDone,
-        rowsWritten: run.rowsWritten, warnings: run.warnings,
+        rowsWritten: run.rowsWritten, warnings: run.warnings, warningsTotal: run.warningsTotal,
       }).catch(() => undefined);
       this.ctx.logger.error({ run: run.id, err: (err as Error).message }, 'season run failed');
       return run;
@@ -308,10 +316,13 @@ class DrillStop extends Error {
   }
 }
 
-/** At most 1,000 warnings are kept; failed districts first, so none of them is ever cut. */
-function capWarnings(warnings: RunWarning[]): RunWarning[] {
-  if (warnings.length <= 1000) return warnings;
-  return [...warnings.filter((w) => w.code === 'district_failed'), ...warnings.filter((w) => w.code !== 'district_failed')].slice(0, 1000);
+/**
+ * At most `cap` warnings are kept, failed districts first (so none is cut unless more than `cap`
+ * districts failed). The run keeps the total, and the Season runs screen says how many were not listed.
+ */
+function capWarnings(warnings: RunWarning[], cap: number): RunWarning[] {
+  if (warnings.length <= cap) return warnings;
+  return [...warnings.filter((w) => w.code === 'district_failed'), ...warnings.filter((w) => w.code !== 'district_failed')].slice(0, cap);
 }
 
 export const failedCount = (warnings: RunWarning[]) => warnings.filter((w) => w.code === 'district_failed').length;

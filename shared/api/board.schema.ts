@@ -140,7 +140,10 @@ export const seasonRunDto = z.object({
   rowsWritten: z.number().int(),
   /** Districts left out because their data failed (each named by a `district_failed` warning). */
   districtsFailed: z.number().int(),
+  /** At most 1,000 warnings are listed (failed districts first). */
   warnings: z.array(runWarning),
+  /** How many more warnings the run raised than `warnings` lists (0 when all are listed). */
+  warningsNotListed: z.number().int().nonnegative().default(0),
   /** Why the run as a whole stopped, as a code (`interrupted`, `drill_stopped`, …). */
   error: z.string().nullable(),
 });

@@ -81,6 +81,12 @@ export const cusumInputSchema = z.object({
   k: z.number().nonnegative(),
   /** Decision interval h in SD units (4 to 5 is common practice). */
   h: z.number().positive(),
+  /**
+   * Restart the sum at 0 on the week after an alarm (common practice once a signal has been acted on;
+   * Montgomery, Introduction to Statistical Quality Control, CUSUM chapter [from memory]). Off by
+   * default, which is Page's (1954) plain form; the Case outlook and the season run turn it on.
+   */
+  restart: z.boolean().optional(),
 });
 export type CusumInput = z.infer<typeof cusumInputSchema>;
 

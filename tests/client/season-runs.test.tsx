@@ -72,6 +72,22 @@ describe('season runs', () => {
     }
   });
 
+  it('when a run raised more warnings than it keeps, then the summary counts them all and the list ends with "N more not listed", in English and French', async () => {
+    const done = seasonRun({
+      status: 'succeeded', districtsDone: 12, finishedAt: '2025-06-02T08:05:00.000Z', warningsNotListed: 1234,
+      warnings: [{ code: 'missing_weather', districtId: 'd2', districtName: 'Vell Marsh' }, { code: 'no_position', districtId: 'd3', districtName: 'Tarrow Fen' }],
+    });
+    const { c } = await open({ 'GET /api/season-runs': () => json(200, { runs: [done] }) });
+    await waitFor(() => expect(c.textContent).toContain('1,236 warnings'));
+    expect(c.querySelector('[data-testid="warnings-not-listed"]')?.textContent).toBe('1,234 more warnings not listed (a run keeps at most 2)');
+    try {
+      await i18n.changeLanguage('fr');
+      await waitFor(() => expect(c.querySelector('[data-testid="warnings-not-listed"]')?.textContent).toBe('1\u202f234 autres avertissements non listés (un calcul en conserve au plus 2)'));
+    } finally {
+      await i18n.changeLanguage('en');
+    }
+  });
+
   it('when a run is started, then its progress is polled until it finishes and the board is refreshed', async () => {
     let polls = 0;
     const started = seasonRun({ districtsDone: 0 });

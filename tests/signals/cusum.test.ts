@@ -28,6 +28,30 @@ describe('cusum', () => {
     expect(cusum({ series: [1, 0, 2], mean: 3, sd: 1, k: 0.5, h: 4 }).statistic).toEqual([0, 0, 0]);
   });
 
+  // Restart after an alarm: common practice once a signal has been acted on (Montgomery, Introduction
+  // to Statistical Quality Control, the CUSUM chapter on the tabular CUSUM [from memory, not checked
+  // against the page]). The values below are derived by hand.
+  it('when cases rise then fall and restart is on, then S restarts at 0 after the alarm and the alarm ends as cases fall [derived]', () => {
+    // μ 0, σ 1, k 0.5, h 4; z = 0, 2, 3, 4, 2, 1, 0, 0, −1, 0
+    // with restart: 0; 1.5; 4; 7.5 (alarm, then S := 0); 0 + 2 − 0.5 = 1.5; 1.5 + 1 − 0.5 = 2;
+    //   2 − 0.5 = 1.5; 1.5 − 0.5 = 1; max(0, 1 − 1.5) = 0; 0
+    // without: 0, 1.5, 4, 7.5, 9, 9.5, 9, 8.5, 7, 6.5 — alarm in every week from the fourth on
+    const series = [0, 2, 3, 4, 2, 1, 0, 0, -1, 0];
+    const r = cusum({ series, mean: 0, sd: 1, k: 0.5, h: 4, restart: true });
+    expect(r.statistic).toEqual([0, 1.5, 4, 7.5, 1.5, 2, 1.5, 1, 0, 0]);
+    expect(r.alarm).toEqual([false, false, false, true, false, false, false, false, false, false]);
+    const plain = cusum({ series, mean: 0, sd: 1, k: 0.5, h: 4 });
+    expect(plain.statistic).toEqual([0, 1.5, 4, 7.5, 9, 9.5, 9, 8.5, 7, 6.5]);
+    expect(plain.alarm.filter(Boolean)).toHaveLength(7);
+  });
+
+  it('when restart is on and the excess stays, then the alarm comes again once S passes h anew [derived]', () => {
+    // the first check series with restart: 0, 1.5, 4, 2.5, 6 (alarm, S := 0), 0 + 5 − 0.5 = 4.5 (alarm)
+    const r = cusum({ series: [3, 5, 6, 2, 7, 8], mean: 3, sd: 1, k: 0.5, h: 4, restart: true });
+    expect(r.statistic).toEqual([0, 1.5, 4, 2.5, 6, 4.5]);
+    expect(r.alarm).toEqual([false, false, false, false, true, true]);
+  });
+
   it('when σ is zero or h is not positive, then it throws', () => {
     expect(() => cusum({ series: [1], mean: 3, sd: 0, k: 0.5, h: 4 })).toThrow();
     expect(() => cusum({ series: [1], mean: 3, sd: 1, k: 0.5, h: 0 })).toThrow();

@@ -42,16 +42,18 @@ function buildColumns(t: TFunction, f: Formatters) {
       ),
     }),
     column.accessor('rowsWritten', { header: t('table.rowsWritten'), cell: (c) => <span className="tabular-nums">{f.number(c.getValue())}</span> }),
-    column.accessor((r) => r.warnings.length, {
+    column.accessor((r) => r.warnings.length + (r.warningsNotListed ?? 0), {
       id: 'warnings',
       header: t('table.warnings'),
       cell: (c) => {
         const run = c.row.original;
-        if (run.warnings.length === 0 && !run.error) return <span className="text-ink-muted">{t('table.noWarnings')}</span>;
+        const total = c.getValue();
+        const notListed = run.warningsNotListed ?? 0;
+        if (total === 0 && !run.error) return <span className="text-ink-muted">{t('table.noWarnings')}</span>;
         return (
           <details>
             <summary className="cursor-pointer font-bold">
-              {t('table.warningCount', { count: run.warnings.length, n: f.number(run.warnings.length) })}
+              {t('table.warningCount', { count: total, n: f.number(total) })}
               {run.error ? ` ${t('table.andError')}` : ''}
             </summary>
             <ul className="mt-1 list-disc space-y-0.5 pl-5 text-sm">
@@ -59,6 +61,11 @@ function buildColumns(t: TFunction, f: Formatters) {
               {run.warnings.map((w, i) => (
                 <li key={i} className={w.code === 'district_failed' ? 'font-bold' : undefined}>{warningText(w, t)}</li>
               ))}
+              {notListed > 0 ? (
+                <li className="italic" data-testid="warnings-not-listed">
+                  {t('table.notListed', { count: notListed, n: f.number(notListed), kept: f.number(run.warnings.length) })}
+                </li>
+              ) : null}
             </ul>
           </details>
         );
