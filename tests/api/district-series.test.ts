@@ -77,6 +77,14 @@ describe('district series recomputed by changed days', () => {
     await expectSameAsReference();
   });
 
+  it('when a station is added with its own days, then the districts whose sources changed get their whole series again, equal to the whole recompute', async () => {
+    const s4 = await makeStation(t.ds, { latitude: 40.2, longitude: 121.2 });
+    await expectSameAsReference();
+    const res = await upload(days(s4.code, '2026-01-01', range(2, 20, [9, 10]), 10));
+    expect(res.body).toMatchObject({ status: 'done', rowsRejected: 0 });
+    await expectSameAsReference();
+  });
+
   it('when a day is voided, then the series equal the whole recompute', async () => {
     const res = await officer.post('/api/weather/observations/void').send({ station: codes.s3, date: '2026-01-05', reason: 'Sensor in the sun' });
     expect(res.status).toBe(200);
