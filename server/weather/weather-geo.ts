@@ -45,6 +45,13 @@ export async function refreshAssignments(manager: EntityManager, idwCount: numbe
     );
 
   const byId = new Map(stations.map((s) => [s.id, s]));
+  // Nearest stations by a k-d tree (issue 17: all pairs cost districts × stations turf distances). geokdbush
+  // ranks by its own great-circle distance, so it proposes a few more candidates than needed, a hair beyond
+  // maxKm; turf's distance then filters, orders and weights them exactly as before.
+  const index = new KDBush(stations.length);
+  for (const s of stations) index.add(s.longitude, s.latitude);
+  index.finish();
+  const candidates = idwCount + 4;
   const rows: { districtId: string; stationId: string; method: string; distanceKm: number; weight: number }[] = [];
   for (const d of districts) {
     if (d.centroid_lat === null || d.centroid_lon === null) continue;
@@ -56,7 +63,8 @@ export async function refreshAssignments(manager: EntityManager, idwCount: numbe
         rows.push({ districtId: d.id, stationId: sid, method: 'inside', distanceKm: km(centre, [s.longitude, s.latitude]), weight: 1 / own.length });
       }
     } else if (stations.length) {
-      const nearest = stations
+      const nearest = around(index, centre[0], centre[1], candidates, maxKm * 1.001 + 1)
+        .map((j) => stations[j])
         .map((s) => ({ s, d: km(centre, [s.longitude, s.latitude]) }))
         // Only stations within WEATHER_IDW_MAX_KM feed a district: a district with none that near gets no
         // interpolated series ("not enough data") rather than another climate's weather.
