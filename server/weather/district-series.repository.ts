@@ -80,30 +80,21 @@ export async function recomputeSeriesSpans(manager: EntityManager, spans: Series
                 floor(sum(weight * rain) FILTER (WHERE rain IS NOT NULL) / nullif(sum(weight) FILTER (WHERE rain IS NOT NULL), 0) * 100 + 0.5) / 100 AS rain,
                 count(*)::int AS n
            FROM obs GROUP BY id, date),
-       grid AS (
-         SELECT s.id, g::date AS date
-           FROM (SELECT id, min(date) AS first, max(date) AS last FROM rep GROUP BY id) s
-          CROSS JOIN LATERAL generate_series(s.first, s.last, interval '1 day') AS g),
-       marked AS (
-         SELECT g.id, g.date, r.date AS reported, r.tmin, r.tmax, r.rh, r.rain, r.n,
-                max(r.date) OVER (PARTITION BY g.id ORDER BY g.date) AS prev,
-                min(r.date) OVER (PARTITION BY g.id ORDER BY g.date ROWS BETWEEN CURRENT ROW AND UNBOUNDED FOLLOWING) AS next
-           FROM grid g LEFT JOIN rep r ON r.id = g.id AND r.date = g.date),
-       gaps AS (
-         SELECT m.*, m.next - m.prev - 1 AS gap, (m.date - m.prev)::float8 / (m.next - m.prev)::float8 AS f,
-                p.tmin AS ptmin, p.tmax AS ptmax, p.rh AS prh, q.tmin AS qtmin, q.tmax AS qtmax, q.rh AS qrh
-           FROM marked m
-           LEFT JOIN rep p ON m.reported IS NULL AND p.id = m.id AND p.date = m.prev
-           LEFT JOIN rep q ON m.reported IS NULL AND q.id = m.id AND q.date = m.next)
+       -- Each reported day with the next one (lead): the day itself, then the days of the gap up to the next,
+       -- generated from that one row. No join back to the reported days, so no plan can go quadratic.
+       paired AS (
+         SELECT rep.*, lead(date) OVER w AS ndate, lead(tmin) OVER w AS ntmin, lead(tmax) OVER w AS ntmax, lead(rh) OVER w AS nrh
+           FROM rep WINDOW w AS (PARTITION BY id ORDER BY date))
        INSERT INTO district_weather_days (district_id, date, tmin, tmax, rh, rain, filled, station_count)
-       SELECT id, date,
-              CASE WHEN reported IS NOT NULL THEN tmin WHEN gap <= $4 THEN floor((ptmin + (qtmin - ptmin) * f) * 100 + 0.5) / 100 END,
-              CASE WHEN reported IS NOT NULL THEN tmax WHEN gap <= $4 THEN floor((ptmax + (qtmax - ptmax) * f) * 100 + 0.5) / 100 END,
-              CASE WHEN reported IS NOT NULL THEN rh WHEN gap <= $4 THEN floor((prh + (qrh - prh) * f) * 100 + 0.5) / 100 END,
-              CASE WHEN reported IS NOT NULL THEN rain END,
-              reported IS NULL AND gap <= $4,
-              coalesce(n, 0)
-         FROM gaps`,
+       SELECT id, date, tmin, tmax, rh, rain, false, n FROM paired
+       UNION ALL
+       SELECT p.id, p.date + g.k,
+              CASE WHEN p.ndate - p.date - 1 <= $4 THEN floor((p.tmin + (p.ntmin - p.tmin) * (g.k::float8 / (p.ndate - p.date)::float8)) * 100 + 0.5) / 100 END,
+              CASE WHEN p.ndate - p.date - 1 <= $4 THEN floor((p.tmax + (p.ntmax - p.tmax) * (g.k::float8 / (p.ndate - p.date)::float8)) * 100 + 0.5) / 100 END,
+              CASE WHEN p.ndate - p.date - 1 <= $4 THEN floor((p.rh + (p.nrh - p.rh) * (g.k::float8 / (p.ndate - p.date)::float8)) * 100 + 0.5) / 100 END,
+              NULL, p.ndate - p.date - 1 <= $4, 0
+         FROM paired p CROSS JOIN LATERAL generate_series(1, p.ndate - p.date - 1) AS g(k)
+        WHERE p.ndate - p.date > 1`,
       [...args, maxFillDays],
     );
   }
