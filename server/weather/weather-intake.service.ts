@@ -375,8 +375,9 @@ export class WeatherIntakeService {
     await insertConflicts(manager, conflicts, upload.id);
     stage('write');
 
-    // Districts whose sources changed get their whole series again; the others only the changed days.
-    const touched = await refreshAssignments(manager, config.WEATHER_IDW_STATIONS, config.WEATHER_IDW_MAX_KM);
+    // Districts whose sources changed get their whole series again; the others only the changed days. An
+    // intake moves no station and no boundary, so the stations stay where they are placed.
+    const touched = await refreshAssignments(manager, config.WEATHER_IDW_STATIONS, config.WEATHER_IDW_MAX_KM, { placeStations: false });
     stage('assignments');
     await recomputeSeriesSpans(manager, [
       ...[...touched].map((districtId) => ({ districtId, from: SERIES_EVER.from, to: SERIES_EVER.to })),
