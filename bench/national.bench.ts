@@ -243,12 +243,39 @@ try {
   const first = await upload(officer, `station,date,tmin,tmax,rh,rain\n${year.join('\n')}\n`, 'year.csv');
   console.log(`weather upload: ${year.length.toLocaleString('en')} rows in ${first.seconds.toFixed(1)} s (${first.state.status}, accepted ${first.state.rowsAccepted})`);
   if (intakeStages) console.log(`  server stages (ms): ${Object.entries(intakeStages).map(([k, v]) => `${k} ${v}`).join(', ')}`);
+  const firstStages = intakeStages;
   const seriesDays = Number((await db.query('SELECT count(*) FROM district_weather_days')).rows[0].count);
   const again = year.slice(0, 3000);
   intakeStages = null;
   const second = await upload(officer, `station,date,tmin,tmax,rh,rain\n${again.join('\n')}\n`, 'again.csv');
   console.log(`re-upload of ${again.length.toLocaleString('en')} unchanged rows into ${ids.length} districts: ${second.seconds.toFixed(2)} s (${second.state.status})`);
   if (intakeStages) console.log(`  server stages (ms): ${Object.entries(intakeStages).map(([k, v]) => `${k} ${v}`).join(', ')}`);
+  // The re-upload's bare peer, in the same run: a plain node:http server that reads the same multipart body,
+  // answers 201 and then one poll with "done" — the wire and client floor under the intake's own work.
+  let bareReupload: number;
+  {
+    const peer = http.createServer((req, res) => {
+      req.resume();
+      req.on('end', () => {
+        res.writeHead(req.method === 'POST' ? 201 : 200, { 'content-type': 'application/json' });
+        res.end(JSON.stringify(req.method === 'POST' ? { id: 'bare' } : { status: 'done', rowsAccepted: again.length }));
+      });
+    });
+    await new Promise<void>((r) => peer.listen(0, '127.0.0.1', () => r()));
+    const peerBase = `http://127.0.0.1:${(peer.address() as { port: number }).port}`;
+    const form = new FormData();
+    form.set('tempUnit', 'C');
+    form.set('rainUnit', 'mm');
+    form.set('file', new Blob([`station,date,tmin,tmax,rh,rain\n${again.join('\n')}\n`], { type: 'text/csv' }), 'again.csv');
+    const t0 = performance.now();
+    await (await fetch(`${peerBase}/api/weather/uploads`, { method: 'POST', body: form })).json();
+    await new Promise((r) => setTimeout(r, 50)); // the same first poll wait as upload()
+    await (await fetch(`${peerBase}/api/weather/uploads/bare`)).json();
+    bareReupload = seconds(t0);
+    peer.close();
+    console.log(`  bare peer (node:http reading the same body, one poll): ${bareReupload.toFixed(3)} s`);
+  }
+  Object.assign(figures, { bareReuploadSeconds: bareReupload, reuploadStages: intakeStages, weatherStages: firstStages });
   Object.assign(figures, { stations: stations.length, weatherRows: year.length, weatherSeconds: first.seconds, weatherStatus: first.state.status, seriesDays, reuploadRows: again.length, reuploadSeconds: second.seconds, reuploadStatus: second.state.status });
 
   // 3. the region map's answer

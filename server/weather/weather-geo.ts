@@ -15,14 +15,29 @@ const km = (a: [number, number], b: [number, number]) => distance(point(a), poin
  * each district's weather sources: its own stations with equal weights, or — for a district with none —
  * the `idwCount` nearest stations to its centroid with inverse-distance weights. Returns the districts
  * whose sources changed (their series must be recomputed).
+ *
+ * `placeStations: false` keeps each station in the district it is stored in and only rewrites the sources
+ * (so a changed WEATHER_IDW_* setting still takes effect): for a weather intake, which moves no station and
+ * no boundary — every writer of stations and districts places them in its own transaction — and so need not
+ * read and test every boundary (issue 17: at 5,000 districts that was most of an unchanged re-upload).
  */
-export async function refreshAssignments(manager: EntityManager, idwCount: number, maxKm = Number.POSITIVE_INFINITY): Promise<Set<string>> {
-  const stations: StationPos[] = await manager.query('SELECT id, latitude, longitude, elevation FROM weather_stations');
-  const districts: DistrictGeo[] = await manager.query('SELECT id, boundary, centroid_lat, centroid_lon FROM districts');
+export async function refreshAssignments(
+  manager: EntityManager, idwCount: number, maxKm = Number.POSITIVE_INFINITY, opts: { placeStations?: boolean } = {},
+): Promise<Set<string>> {
+  const placeStations = opts.placeStations ?? true;
+  const stations: (StationPos & { district_id: string | null })[] = await manager.query('SELECT id, latitude, longitude, elevation, district_id FROM weather_stations');
+  const districts: DistrictGeo[] = await manager.query(
+    `SELECT id, ${placeStations ? 'boundary' : 'NULL AS boundary'}, centroid_lat, centroid_lon FROM districts`,
+  );
   const inside = new Map<string, string[]>();
   const assignment = new Map<string, string | null>();
   const withBoxes = districts.filter((d) => d.boundary).map((d) => ({ d, box: bbox(d.boundary as never) }));
   for (const s of stations) {
+    if (!placeStations) {
+      assignment.set(s.id, s.district_id);
+      if (s.district_id) inside.set(s.district_id, [...(inside.get(s.district_id) ?? []), s.id]);
+      continue;
+    }
     const p = point([s.longitude, s.latitude]);
     let found: string | null = null;
     for (const { d, box } of withBoxes) {
@@ -36,8 +51,7 @@ export async function refreshAssignments(manager: EntityManager, idwCount: numbe
     if (found) inside.set(found, [...(inside.get(found) ?? []), s.id]);
   }
   // Station → district, only where it changed.
-  const current: { id: string; district_id: string | null }[] = await manager.query('SELECT id, district_id FROM weather_stations');
-  const changed = current.filter((c) => (assignment.get(c.id) ?? null) !== c.district_id);
+  const changed = stations.filter((c) => (assignment.get(c.id) ?? null) !== c.district_id);
   if (changed.length)
     await manager.query(
       `UPDATE weather_stations s SET district_id = v.did FROM unnest($1::uuid[], $2::uuid[]) AS v(sid, did) WHERE s.id = v.sid`,
@@ -45,6 +59,13 @@ export async function refreshAssignments(manager: EntityManager, idwCount: numbe
     );
 
   const byId = new Map(stations.map((s) => [s.id, s]));
+  // Nearest stations by a k-d tree (issue 17: all pairs cost districts × stations turf distances). geokdbush
+  // ranks by its own great-circle distance, so it proposes a few more candidates than needed, a hair beyond
+  // maxKm; turf's distance then filters, orders and weights them exactly as before.
+  const index = new KDBush(stations.length);
+  for (const s of stations) index.add(s.longitude, s.latitude);
+  index.finish();
+  const candidates = idwCount + 4;
   const rows: { districtId: string; stationId: string; method: string; distanceKm: number; weight: number }[] = [];
   for (const d of districts) {
     if (d.centroid_lat === null || d.centroid_lon === null) continue;
@@ -56,7 +77,8 @@ export async function refreshAssignments(manager: EntityManager, idwCount: numbe
         rows.push({ districtId: d.id, stationId: sid, method: 'inside', distanceKm: km(centre, [s.longitude, s.latitude]), weight: 1 / own.length });
       }
     } else if (stations.length) {
-      const nearest = stations
+      const nearest = around(index, centre[0], centre[1], candidates, maxKm * 1.001 + 1)
+        .map((j) => stations[j])
         .map((s) => ({ s, d: km(centre, [s.longitude, s.latitude]) }))
         // Only stations within WEATHER_IDW_MAX_KM feed a district: a district with none that near gets no
         // interpolated series ("not enough data") rather than another climate's weather.

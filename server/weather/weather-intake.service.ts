@@ -7,7 +7,7 @@ import { LIMITS } from '../../shared/limits';
 import type { AppContext } from '../app-context';
 import { capText } from '../http/limits';
 import { recordAudit } from '../audit/audit.repository';
-import { districtsUsingStations, recomputeDistrictSeries } from './district-series.repository';
+import { recomputeSeriesSpans, SERIES_EVER, spansForStationDays } from './district-series.repository';
 import {
   emptyStationYear, FLAG_BITS, flagNames, readStationYears, type StationYear, stationYearCopy, stationYearKey, storedStationYearKeys, uploadIndex,
   writeStationYearFlags, writeStationYears,
@@ -274,6 +274,15 @@ export class WeatherIntakeService {
     // unchanged[i] = 1: the intake brings the values already stored, so a day's held state stays as it is
     // (a day a person confirmed is not held again by the next pull of the same values).
     const merged: { y: StationYear; rows: Int32Array; unchanged?: Uint8Array }[] = [];
+    // The station-days whose value or held state this intake changes (first and last day per station): only
+    // the district series days they feed are recomputed (issue 17), so an unchanged re-upload recomputes nothing.
+    const changedDays = new Map<string, { first: number; last: number }>();
+    const changedDay = (stationId: string, day: number) => {
+      const had = changedDays.get(stationId);
+      if (!had) changedDays.set(stationId, { first: day, last: day });
+      else if (day < had.first) had.first = day;
+      else if (day > had.last) had.last = day;
+    };
     for (const inc of incoming.values()) {
       const key = stationYearKey(inc.y.stationId, inc.y.year);
       const stored = years.get(key);
@@ -281,6 +290,7 @@ export class WeatherIntakeService {
         const y = adopt(inc, upload.id);
         years.set(key, y);
         if (!written.has(inc) || dirty.has(inc)) rewrite.add(y);
+        for (let i = 0; i < inc.row.length; i++) if (inc.row[i] !== 0) changedDay(y.stationId, y.start + i);
         merged.push({ y, rows: inc.row });
         continue;
       }
@@ -312,6 +322,7 @@ export class WeatherIntakeService {
         y.rain[i] = v.rain[i];
         y.uploadIx[i] = ix;
         rewrite.add(y);
+        changedDay(y.stationId, y.start + i);
       }
       merged.push({ y, rows: inc.row, unchanged });
     }
@@ -349,6 +360,7 @@ export class WeatherIntakeService {
         const held = heldNow[k][i] ? FLAG_BITS.held : 0;
         const bits = newBits[k][i] | held;
         if (bits !== y.flags[i]) {
+          if ((bits ^ y.flags[i]) & FLAG_BITS.held) changedDay(y.stationId, y.start + i);
           y.flags[i] = bits;
           if (!rewrite.has(y)) reflag.add(y);
         }
@@ -363,9 +375,14 @@ export class WeatherIntakeService {
     await insertConflicts(manager, conflicts, upload.id);
     stage('write');
 
-    const touched = await refreshAssignments(manager, config.WEATHER_IDW_STATIONS, config.WEATHER_IDW_MAX_KM);
-    for (const d of await districtsUsingStations(manager, [...seenStations])) touched.add(d);
-    await recomputeDistrictSeries(manager, touched, config.WEATHER_FILL_MAX_DAYS);
+    // Districts whose sources changed get their whole series again; the others only the changed days. An
+    // intake moves no station and no boundary, so the stations stay where they are placed.
+    const touched = await refreshAssignments(manager, config.WEATHER_IDW_STATIONS, config.WEATHER_IDW_MAX_KM, { placeStations: false });
+    stage('assignments');
+    await recomputeSeriesSpans(manager, [
+      ...[...touched].map((districtId) => ({ districtId, from: SERIES_EVER.from, to: SERIES_EVER.to })),
+      ...(await spansForStationDays(manager, changedDays)),
+    ], config.WEATHER_FILL_MAX_DAYS);
     stage('series');
 
     const codeOf = new Map(ids.map((id, k) => [id, codes[k]]));

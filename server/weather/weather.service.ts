@@ -11,7 +11,7 @@ import { recordAudit } from '../audit/audit.repository';
 import { assertDistrictVisible, type Principal, seesAllDistricts } from '../auth/principal';
 import { DistrictEntity } from '../districts/district.entity';
 import { badRequest, conflict, forbidden, notFound, unprocessable } from '../http/errors';
-import { recomputeDistrictSeries } from './district-series.repository';
+import { recomputeDistrictSeries, recomputeSeriesSpans } from './district-series.repository';
 import {
   FLAG_BITS, flagNames, readStationYears, stationYearKey, uploadIndex, writeStationYearFlags, writeStationYears, yearStartDay,
 } from './station-years.repository';
@@ -238,13 +238,12 @@ export class WeatherService {
       y.flags[i] = 0;
       y.uploadIx[i] = 0;
       await writeStationYears(manager, [y]);
-      const fed: { district_id: string }[] = await manager.query('SELECT DISTINCT district_id FROM district_weather_sources WHERE station_id = $1', [stationId]);
-      await recomputeDistrictSeries(manager, fed.map((r) => r.district_id), this.ctx.config.WEATHER_FILL_MAX_DAYS);
+      const fed = await this.recomputeFedBy(manager, stationId, body.date);
       await recordAudit(manager, {
         actorId: actor.userId, action: 'weather-day.voided', entity: 'weather_station', entityId: stationId,
-        before: { date: body.date, ...old, uploadId: previousUploadId }, after: { voided: true, districtsRecomputed: fed.length }, reason: body.reason,
+        before: { date: body.date, ...old, uploadId: previousUploadId }, after: { voided: true, districtsRecomputed: fed }, reason: body.reason,
       });
-      return { stationId: stationId, date: body.date, voided: { ...old, reason: body.reason }, districtsRecomputed: fed.length };
+      return { stationId: stationId, date: body.date, voided: { ...old, reason: body.reason }, districtsRecomputed: fed };
     });
   }
 
@@ -271,7 +270,7 @@ export class WeatherService {
         throw badRequest('not_held', 'This station-day is not held.', [{ path: 'date', message: 'is not held at this station' }]);
       y.flags[i] &= ~FLAG_BITS.held;
       await writeStationYearFlags(manager, [y]);
-      const districts = await this.recomputeFedBy(manager, stationId);
+      const districts = await this.recomputeFedBy(manager, stationId, body.date);
       await recordAudit(manager, {
         actorId: actor.userId, action: 'weather-day.confirmed', entity: 'weather_station', entityId: stationId,
         before: { date: body.date, held: true, tmin: y.tmin[i], tmax: y.tmax[i], rh: nanToNull(y.rh[i]), rain: nanToNull(y.rain[i]) },
@@ -326,7 +325,7 @@ export class WeatherService {
         y.flags[i] = 0;
         y.uploadIx[i] = uploadIndex(y, c.upload_id);
         await writeStationYears(manager, [y]);
-        districts = await this.recomputeFedBy(manager, stationId);
+        districts = await this.recomputeFedBy(manager, stationId, c.date);
       }
       await manager.query(
         `UPDATE weather_observation_conflicts SET resolved_at = now(), resolved_by = $2, choice = $3, reason = $4 WHERE id = $1`,
@@ -355,10 +354,10 @@ export class WeatherService {
     return { stationId, y, i };
   }
 
-  /** Recompute the series of every district this station feeds; how many. */
-  private async recomputeFedBy(manager: EntityManager, stationId: string): Promise<number> {
+  /** Recompute the series of every district this station feeds, around the one day that changed; how many. */
+  private async recomputeFedBy(manager: EntityManager, stationId: string, date: string): Promise<number> {
     const fed: { district_id: string }[] = await manager.query('SELECT DISTINCT district_id FROM district_weather_sources WHERE station_id = $1', [stationId]);
-    await recomputeDistrictSeries(manager, fed.map((r) => r.district_id), this.ctx.config.WEATHER_FILL_MAX_DAYS);
+    await recomputeSeriesSpans(manager, fed.map((r) => ({ districtId: r.district_id, from: date, to: date })), this.ctx.config.WEATHER_FILL_MAX_DAYS);
     return fed.length;
   }
 
