@@ -7,7 +7,7 @@ import { isUnauthorized } from '../lib/api-client';
 import { useMe } from '../features/auth/api/me.api';
 import { useSignOut } from '../features/auth/api/sign-out.api';
 import { PreferencesProvider } from '../features/settings/preferences-provider';
-import { navItemsFor, type NavItem } from './navigation';
+import { MainNav } from './main-nav';
 import { SessionProvider, signInPath } from './session';
 import { LoadingScreen, RouteErrorPage } from './route-error.page';
 
@@ -41,14 +41,11 @@ export function AppLayout() {
 }
 
 function AppHeader({ displayName, role }: { displayName: string; role: Role }) {
-  const { t, i18n } = useTranslation('app');
+  const { t } = useTranslation('app');
   const roleLabel = useRoleLabel();
   const navigate = useNavigate();
   const signOut = useSignOut({ leave: () => navigate('/sign-in', { replace: true }) });
-  const items = navItemsFor(role);
   const onSignOut = () => signOut.mutate();
-  // A menu item added without its own `app:nav.<id>` key still shows, in its English label.
-  const navLabel = (item: NavItem) => (i18n.exists(`nav.${item.id}`, { ns: 'app' }) ? t(`nav.${item.id}`) : item.label);
 
   return (
     <header className="app-header">
@@ -68,17 +65,7 @@ function AppHeader({ displayName, role }: { displayName: string; role: Role }) {
           </button>
         </div>
       </div>
-      <nav aria-label={t('layout.mainNav')} className="app-nav">
-        <ul className="mx-auto flex w-full max-w-6xl gap-1 overflow-x-auto px-2 sm:px-4">
-          {items.map((item) => (
-            <li key={item.id} className="shrink-0">
-              <NavLink to={item.to} end={item.to === '/'} className="nav-link">
-                {navLabel(item)}
-              </NavLink>
-            </li>
-          ))}
-        </ul>
-      </nav>
+      <MainNav role={role} />
     </header>
   );
 }

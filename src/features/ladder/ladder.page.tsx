@@ -5,7 +5,7 @@ import { PageHeading } from '../../components/page-heading';
 import { FormMessage } from '../../components/form';
 import { may } from '../../../shared/permissions';
 import { useSession } from '../../app/session';
-import { CautionsPanel } from '../cautions/cautions-panel';
+import { CautionsDisclosure } from '../cautions/cautions-disclosure';
 import { DemoDataLabel } from '../districts/components/demo-data-label';
 import { FirstRunTour, TourButton, useFirstRunTour } from '../help/first-run-tour';
 import { useBoard } from './api/board.api';
@@ -88,7 +88,7 @@ export function LadderPage() {
         <WorkerHome rows={rows} />
       ) : (
         <div data-tour="cautions">
-          <CautionsPanel className="mb-6" />
+          <CautionsDisclosure className="mb-6" />
         </div>
       )}
       {board.isPending ? (

@@ -1,4 +1,4 @@
-import { useMemo } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { useTranslation } from 'react-i18next';
 import type { LadderRow } from '../../../shared/api/board.schema';
@@ -9,6 +9,7 @@ import { TIER_COLOURS, TIER_TEXT } from '../ladder/tier-scale';
 import { useLadderWords } from '../ladder/ladder-format';
 import type { MapSeriesOption } from 'echarts/charts';
 import type { BoundariesResponse } from './api/boundaries.api';
+import { cellLabel, cellSizes } from './cell-labels';
 
 export const REGION_MAP_NAME = 'broodcast-region';
 
@@ -31,8 +32,25 @@ export default function RegionMapChart({ boundaries, rows }: { boundaries: Bound
     return boundaries.features.map((f) => f.id).join(',');
   }, [boundaries]);
 
+  // The chart's width, so each district's label is sized to its cell (cell-labels.ts); 0 until measured.
+  const frame = useRef<HTMLDivElement>(null);
+  const [width, setWidth] = useState(0);
+  useEffect(() => {
+    const el = frame.current;
+    if (!el) return;
+    const measure = () => setWidth(Math.round(el.clientWidth));
+    measure();
+    if (typeof ResizeObserver === 'undefined') return;
+    const observer = new ResizeObserver(measure);
+    observer.observe(el);
+    return () => observer.disconnect();
+  }, []);
+
   const option = useMemo<ChartOption>(() => {
     const few = boundaries.features.length <= 40;
+    // The map's drawing box: 24rem less the series' top (8) and bottom (44), across the measured width.
+    const cells = width > 0 ? cellSizes(boundaries.features, width, 384 - 8 - 44) : null;
+    const labelOf = (id: string, code: string, tier: string) => (cells ? cellLabel(cells.get(id) ?? { w: 0, h: 0 }, code, tier) : ({ show: true, fontSize: 10, lines: 'codeAndTier' } as const));
     return {
       tooltip: {
         trigger: 'item',
@@ -71,27 +89,37 @@ export default function RegionMapChart({ boundaries, rows }: { boundaries: Bound
           bottom: 44,
           selectedMode: false,
           itemStyle: { borderColor: '#1d2026', borderWidth: 0.8, areaColor: '#e9e7e2' },
-          emphasis: { itemStyle: { borderWidth: 2.5, borderColor: '#1d2026' }, label: { show: few } },
+          emphasis: { itemStyle: { borderWidth: 2.5, borderColor: '#1d2026' } },
+          // A backstop: labels that still meet each other are hidden rather than drawn on top of each other.
+          labelLayout: { hideOverlap: true },
           label: {
             show: few,
             fontSize: 10,
             fontFamily: 'Lato, sans-serif',
             formatter: (p: any) => {
               const r = byId.get(p.name);
-              return r ? `${r.code}\n${words.tier(r.tier)}` : '';
+              if (!r) return '';
+              const fit = labelOf(p.name, r.code, words.tier(r.tier));
+              return !fit.show ? '' : fit.lines === 'code' ? r.code : `${r.code}\n${words.tier(r.tier)}`;
             },
           },
           data: boundaries.features.map((f) => {
             const r = byId.get(f.id);
+            const fit = r ? labelOf(f.id, r.code, words.tier(r.tier)) : null;
             return r
-              ? { name: f.id, value: tierRank(r.tier), label: { color: TIER_TEXT[r.tier] }, itemStyle: { areaColor: TIER_COLOURS[r.tier] } }
+              ? {
+                  name: f.id,
+                  value: tierRank(r.tier),
+                  label: fit?.show ? { color: TIER_TEXT[r.tier], fontSize: fit.fontSize } : { show: false },
+                  itemStyle: { areaColor: TIER_COLOURS[r.tier] },
+                }
               : { name: f.id, value: Number.NaN };
           }) as MapSeriesOption['data'],
         },
       ],
     };
     // mapKey: a new registration of the GeoJSON must redraw.
-  }, [boundaries, byId, mapKey, t, words]);
+  }, [boundaries, byId, mapKey, t, words, width]);
 
   const onEvents = useMemo(
     () => ({
@@ -102,5 +130,9 @@ export default function RegionMapChart({ boundaries, rows }: { boundaries: Bound
     [navigate],
   );
 
-  return <EChart option={option} height="24rem" onEvents={onEvents} />;
+  return (
+    <div ref={frame}>
+      <EChart option={option} height="24rem" onEvents={onEvents} />
+    </div>
+  );
 }

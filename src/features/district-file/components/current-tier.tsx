@@ -1,8 +1,10 @@
+import type { ReactNode } from 'react';
 import type { DistrictFileResponse } from '../../../../shared/api/board.schema';
 import { tierRank, type DriverId } from '../../../../shared/tier';
 import { HelpButton, type HelpTopic } from '../../help/help-button';
 import { TierBadge } from '../../ladder/components/tier-badge';
 import { useLadderWords, type LadderWords } from '../../ladder/ladder-format';
+import { PHONE_QUERY, useMediaQuery } from '../../../lib/use-media-query';
 import { detailLabel, detailValue, fixed, tierNotes } from '../district-file-format';
 
 type TierWeek = DistrictFileResponse['tiers'][number];
@@ -21,6 +23,10 @@ export function CurrentTier({ current, previous, help = true }: { current: TierW
   const range = current.tierLow === current.tierHigh ? null : t('district-file:tier.rangeText', { low: w.tier(current.tierLow), high: w.tier(current.tierHigh) });
   const mark = w.confidence(current.confidence);
   const Help = ({ topic }: { topic: HelpTopic }) => (help ? <HelpButton topic={topic} /> : null);
+  // On a phone a five-column table made each driver a row some 230 px tall: there the drivers stack, one
+  // card each with its figures as term–value rows (the printed page keeps the table).
+  const phone = useMediaQuery(PHONE_QUERY);
+  const stacked = phone && help;
   return (
     <section aria-labelledby="current-tier-title" className="card space-y-4">
       <div>
@@ -54,6 +60,9 @@ export function CurrentTier({ current, previous, help = true }: { current: TierW
         ) : null}
       </div>
 
+      {stacked ? (
+        <DriversStacked drivers={current.drivers} w={w} Help={Help} />
+      ) : (
       <div className="table-wrap">
         <table className="data-table">
           <caption className="table-caption">{t('district-file:drivers.caption')}</caption>
@@ -108,6 +117,7 @@ export function CurrentTier({ current, previous, help = true }: { current: TierW
           </tbody>
         </table>
       </div>
+      )}
 
       <WhatChanged current={current} previous={previous} w={w} help={help} />
 
@@ -116,6 +126,55 @@ export function CurrentTier({ current, previous, help = true }: { current: TierW
         <NotesList tier={current} w={w} />
       </div>
     </section>
+  );
+}
+
+/** The drivers on a phone: one card each, the driver as its heading, score, weight, contribution and data as rows. */
+function DriversStacked({ drivers, w, Help }: { drivers: TierWeek['drivers']; w: LadderWords; Help: (p: { topic: HelpTopic }) => ReactNode }) {
+  const { t } = w;
+  return (
+    <div data-testid="drivers-stacked">
+      <h3 className="text-base font-bold">{t('district-file:drivers.caption')}</h3>
+      <ul className="mt-2 space-y-3">
+        {drivers.map((d) => (
+          <li key={d.id} data-driver={d.id} className="driver-card rounded-lg border border-line p-3">
+            <h4 className="th-with-help font-bold">
+              <span>{w.driver(d.id)}</span>
+              <Help topic={DRIVER_HELP[d.id]} />
+            </h4>
+            <dl className="driver-figures mt-1 text-sm">
+              <div>
+                <dt className="th-with-help">
+                  {t('district-file:drivers.score')}
+                  <Help topic="driverScore" />
+                </dt>
+                <dd className="tabular-nums">{d.score === null ? t('district-file:noData') : w.score(d.score)}</dd>
+              </div>
+              <div>
+                <dt className="th-with-help">
+                  {t('district-file:drivers.weight')}
+                  <Help topic="weight" />
+                </dt>
+                <dd className="tabular-nums">{w.score(d.weight)}</dd>
+              </div>
+              <div>
+                <dt className="th-with-help">
+                  {t('district-file:drivers.contribution')}
+                  <Help topic="contribution" />
+                </dt>
+                <dd className="tabular-nums">{w.score(d.contribution)}</dd>
+              </div>
+              {Object.entries(d.detail).map(([k, v]) => (
+                <div key={k}>
+                  <dt>{detailLabel(w, k)}</dt>
+                  <dd>{detailValue(w, k, v)}</dd>
+                </div>
+              ))}
+            </dl>
+          </li>
+        ))}
+      </ul>
+    </div>
   );
 }
 
