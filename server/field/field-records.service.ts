@@ -78,6 +78,8 @@ export class FieldRecordsService {
     const rows = await repo.list({ districtIds: [districtId], limit: 100 });
     const { WINDOW_DAYS, MIN_SURVEYS_PER_SIDE } = BEFORE_AFTER_RULE;
     const pool = (surveys: Awaited<ReturnType<FieldRecordsRepository['surveys']>>) => {
+      // No survey on a side: nothing to pool (aggregateLarvalIndices refuses an empty list), so no index.
+      if (surveys.length === 0) return { surveys: 0, indices: { house: null, container: null, breteau: null, pupa: null } };
       const { house, container, breteau, pupa } = aggregateLarvalIndices(surveys.map(surveyCounts));
       return { surveys: surveys.length, indices: { house, container, breteau, pupa } };
     };

@@ -24,6 +24,7 @@ export const NAV_ITEMS = [
   { id: 'tier-settings', label: 'Tier settings', to: '/admin/tier-settings', roles: rolesWith('tierSettings.manage') },
   { id: 'case-ledger', label: 'Case ledger', to: '/cases', roles: rolesWith('cases.ledger') },
   { id: 'surveys', label: 'Surveys', to: '/surveys', roles: rolesWith('surveys.record') },
+  { id: 'field-log', label: 'Field log', to: '/field-log', roles: rolesWith('fieldRecords.record') },
   { id: 'field-week', label: 'Field week', to: '/field-week', roles: rolesWith('field.seeWeek') },
   { id: 'season-runs', label: 'Season runs', to: '/season-runs', roles: rolesWith('seasonRuns.start') },
   { id: 'look-back', label: 'Look-back', to: '/look-back', roles: rolesWith('lookBack.read') },

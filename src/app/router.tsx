@@ -210,6 +210,12 @@ export const routes: RouteObject[] = [
             })),
           },
           {
+            path: 'field-log',
+            lazy: screen('features/field-log/field-log.page', () => import('../features/field-log/field-log.page'), ({ FieldLogPage }) => ({
+              element: guarded(rolesFor('field-log'), <FieldLogPage />),
+            })),
+          },
+          {
             path: 'field-week',
             lazy: screen('features/field-week/field-week.page', () => import('../features/field-week/field-week.page'), ({ FieldWeekPage }) => ({
               element: guarded(rolesFor('field-week'), <FieldWeekPage />),

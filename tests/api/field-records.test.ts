@@ -163,4 +163,17 @@ describe('field records', () => {
     expect(again.body.records[0].comparable).toBe(true);
     expect((await worker.get(`/api/districts/${d.id}/field-work`)).status).toBe(403);
   });
+
+  it('when a piece of work has no survey on a side, then that side has no indices (not an error) and it is not compared', async () => {
+    // Found by the Field log's browser test: the pooling refused an empty side and the District file got a 500.
+    const d = await makeDistrict(t.ds);
+    await survey(d.id, '2026-05-20', 30);
+    expect((await officer.post('/api/field-records').send(record({ districtId: d.id, date: '2026-05-28' }))).status).toBe(201);
+    const res = await officer.get(`/api/districts/${d.id}/field-work`);
+    expect(res.status).toBe(200);
+    const [r] = res.body.records;
+    expect(r.before.surveys).toBe(1);
+    expect(r.after).toEqual({ surveys: 0, indices: { house: null, container: null, breteau: null, pupa: null } });
+    expect(r.comparable).toBe(false);
+  });
 });

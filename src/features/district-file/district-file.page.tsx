@@ -15,6 +15,7 @@ import { DegreeDaysChart, EipChart, RvcChart } from './charts/vector-clock.chart
 import { WeatherChart } from './charts/weather.chart';
 import { CurrentTier } from './components/current-tier';
 import { KeyNumbers } from './components/key-numbers';
+import { FieldWorkPanel } from './components/field-work.panel';
 import { ProfileAssignment } from '../profiles/components/profile-assignment';
 import { profileLabel, weatherSourceText } from './district-file-format';
 import { useLadderWords } from '../ladder/ladder-format';
@@ -251,6 +252,8 @@ function DistrictFileView({
           </h2>
           <TierHistoryChart tiers={tiers} />
         </section>
+
+        <FieldWorkPanel districtId={district.id} />
       </div>
     </section>
   );

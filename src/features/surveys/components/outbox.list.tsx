@@ -1,10 +1,30 @@
 import { useTranslation } from 'react-i18next';
+import type { TFunction } from 'i18next';
 import { useFormat } from '../../../i18n/format';
 import type { OutboxItem } from '../offline-queue';
 import { FIELD_LABEL_KEYS, surveyMessage } from '../survey-format';
 
-/** Why a kept survey has not reached the server yet, in the interface language. */
-function problemText(t: ReturnType<typeof useTranslation<'surveys'>>['t'], problem: OutboxItem['problem']): string {
+/**
+ * How an outbox's items are worded: the namespace holding its `outbox.*` texts (title, empty, sending,
+ * offline, signIn, serverProblem, refused, discard, sendNow), the label key of each field the server may
+ * name, and how a field's problem reads as a sentence. Surveys are the default.
+ */
+export type OutboxWords = {
+  namespace: 'surveys' | 'field-log';
+  labelKeys: Record<string, string>;
+  message: (t: TFunction, label: string, message: string | undefined) => string | undefined;
+  testId: string;
+};
+
+const SURVEY_WORDS: OutboxWords = {
+  namespace: 'surveys',
+  labelKeys: FIELD_LABEL_KEYS,
+  message: (t, label, message) => surveyMessage(t as TFunction<'surveys'>, label, message),
+  testId: 'survey-outbox',
+};
+
+/** Why a kept item has not reached the server yet, in the interface language. */
+function problemText(t: TFunction, problem: OutboxItem['problem']): string {
   if (!problem) return t('outbox.sending');
   if (problem.kind === 'refused') return t('outbox.refused', { message: problem.message });
   if (problem.code === 'no-connection') return t('outbox.offline');
@@ -13,13 +33,23 @@ function problemText(t: ReturnType<typeof useTranslation<'surveys'>>['t'], probl
   return problem.message; // kept by an earlier version of the outbox
 }
 
-/** The surveys kept on this device and not yet accepted by the server. */
-export function OutboxList({ items, onRetry, onDiscard }: { items: OutboxItem[]; onRetry: () => void; onDiscard: (id: string) => void }) {
-  const { t } = useTranslation('surveys');
+/** What is kept on this device and not yet accepted by the server (surveys, or field records with `words`). */
+export function OutboxList<B extends { id: string; locality: string; date: string }>({
+  items,
+  onRetry,
+  onDiscard,
+  words = SURVEY_WORDS,
+}: {
+  items: OutboxItem<B>[];
+  onRetry: () => void;
+  onDiscard: (id: string) => void;
+  words?: OutboxWords;
+}) {
+  const { t } = useTranslation(words.namespace) as unknown as { t: TFunction };
   const { date } = useFormat();
   return (
-    <section aria-labelledby="outbox-title" className="space-y-2" data-testid="survey-outbox">
-      <h2 id="outbox-title" className="section-title">
+    <section aria-labelledby={`${words.testId}-title`} className="space-y-2" data-testid={words.testId}>
+      <h2 id={`${words.testId}-title`} className="section-title">
         {t('outbox.title')}
       </h2>
       {items.length === 0 ? (
@@ -37,11 +67,11 @@ export function OutboxList({ items, onRetry, onDiscard }: { items: OutboxItem[];
                   <ul className="mt-1 list-disc pl-5">
                     {item.problem.fields.map((f) => {
                       const field = f.path.replace(/^body\./, '').split('.')[0];
-                      const labelKey = FIELD_LABEL_KEYS[field];
+                      const labelKey = words.labelKeys[field];
                       return (
                         <li key={f.path}>
                           {labelKey ? (
-                            surveyMessage(t, t(labelKey), f.message)
+                            words.message(t, t(labelKey), f.message)
                           ) : (
                             <>
                               <code className="font-mono">{f.path}</code>: {f.message}
