@@ -66,9 +66,10 @@ describe('the Case outlook panel on the District file', () => {
 
     const rows = [...c.querySelectorAll('[data-testid="outlook-skill"] tbody tr')];
     expect(rows.map((r) => r.getAttribute('data-fan'))).toEqual(['yes', 'yes', 'no', 'no', 'no', 'no', 'no', 'no']);
-    expect(rows[0]!.textContent).toContain('1.20 / 1.60'); // CRPS: outlook / usual
-    expect(rows[0]!.textContent).toContain('+20% closer than the usual');
-    expect(rows[0]!.textContent).toContain('82%'); // 80 % coverage
+    const cells = (r: Element) => [...r.querySelectorAll('th,td')].map((x) => x.textContent);
+    // Week ahead, CRPS outlook / usual, closer by, log score outlook / usual, gain, 80 % coverage, scored, fan.
+    expect(cells(rows[0]!)).toEqual(['1 week', '1.20 / 1.60', '+20%', '-1.90 / -2.00', '+0.15', '82%', '120', 'Yes']);
+    expect(cells(rows[2]!)[2]).toBe('-5%');
     expect(rows[2]!.textContent).toContain('No: not better than the usual');
     // Week 5 ahead beat the null, but week 3 did not: the fan never skips a week.
     expect(rows[4]!.textContent).toContain('No: an earlier week ahead was not better');
@@ -93,6 +94,15 @@ describe('the Case outlook panel on the District file', () => {
     const { c } = await show({ ...withFan, fanHorizons: 0 });
     await settled(c);
     expect(c.querySelector('[data-testid="echart-stub"]')).toBeNull();
+  });
+
+  it('when next week is all on one count (an off-season week of nothing), then the summary names that count, not a range "between 0 and 0"', async () => {
+    const answer = outlook(1, (h) => h === 1);
+    answer.forecast = [{ ...answer.forecast[0]!, q10: 0, q25: 0, q50: 0, q75: 0, q90: 0, mean: 0.1 }];
+    const { c } = await show(answer);
+    await settled(c);
+    expect(text(c)).toContain('0 cases, 8 chances in 10 or more');
+    expect(text(c)).not.toContain('between 0 and 0');
   });
 
   it('when the district has too little data, then it says so in words, with no fan and no skill table', async () => {

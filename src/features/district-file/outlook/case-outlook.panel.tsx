@@ -91,7 +91,7 @@ function OutlookBody({ w, data }: { w: LadderWords; data: DistrictOutlookRespons
               .join(' ')
           : t('district-file:outlook.noSkill', { disease })}
       </p>
-      <div className="grid gap-6 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+      <div className="space-y-6">
         {fan ? (
           <div className="min-w-0" data-testid="outlook-fan">
             <OutlookFanChart outlook={shown} />
@@ -113,8 +113,11 @@ function OutlookBody({ w, data }: { w: LadderWords; data: DistrictOutlookRespons
   );
 }
 
-/** Signed share, e.g. "+12 %" / "−3 %", for a skill against the null. */
-const signedPercent = (w: LadderWords, x: number | null) => (x === null ? w.f.percent(null) : `${x > 0 ? '+' : ''}${w.f.percent(x)}`);
+/** A signed number for a gain over the null ("+12 %", "−0,03"); a value that rounds to 0 is shown unsigned. */
+function signed(shown: string, x: number | null, digits: number): string {
+  if (x === null || Math.round(Math.abs(x) * 10 ** digits) === 0) return shown;
+  return x > 0 ? `+${shown}` : shown;
+}
 
 function SkillTable({ w, data, horizons }: { w: LadderWords; data: DistrictOutlookResponse; horizons: OutlookHorizonSkillDto[] }) {
   const { t, f } = w;
@@ -124,42 +127,35 @@ function SkillTable({ w, data, horizons }: { w: LadderWords; data: DistrictOutlo
     if (!h.beatsNull) return t('district-file:outlook.skill.notBetter');
     return t('district-file:outlook.skill.afterGap');
   };
+  const columns = ['ahead', 'crps', 'closer', 'logScore', 'gain', 'coverage80', 'scored', 'fan'] as const;
   return (
     <div className="min-w-0 space-y-2">
       <h3 className="section-title">{t('district-file:outlook.skill.title')}</h3>
       <p className="text-sm text-ink-muted">{t('district-file:outlook.skill.help')}</p>
+      <p className="text-sm text-ink-muted">{t('district-file:outlook.skill.rule')}</p>
       <div className="table-wrap">
-        <table className="data-table" data-testid="outlook-skill">
+        <table className="data-table outlook-skill" data-testid="outlook-skill">
           <caption className="sr-only">{t('district-file:outlook.skill.caption')}</caption>
           <thead>
             <tr>
-              <th scope="col">{t('district-file:outlook.skill.ahead')}</th>
-              <th scope="col">{t('district-file:outlook.skill.crps')}</th>
-              <th scope="col">{t('district-file:outlook.skill.logScore')}</th>
-              <th scope="col">{t('district-file:outlook.skill.coverage80')}</th>
-              <th scope="col">{t('district-file:outlook.skill.fan')}</th>
+              {columns.map((c) => (
+                <th key={c} scope="col">
+                  {t(`district-file:outlook.skill.${c}`)}
+                </th>
+              ))}
             </tr>
           </thead>
           <tbody>
             {horizons.map((h) => (
               <tr key={h.horizon} data-horizon={h.horizon} data-fan={h.horizon <= data.fanHorizons ? 'yes' : 'no'}>
                 <th scope="row">{t('district-file:outlook.skill.weeksAhead', { count: h.horizon })}</th>
-                <td>
-                  {t('district-file:outlook.skill.versus', { ours: f.number(h.crps, 2, true), usual: f.number(h.nullCrps, 2, true) })}
-                  <br />
-                  <span className="text-ink-muted">{t('district-file:outlook.skill.closer', { skill: signedPercent(w, h.crpsSkill) })}</span>
-                </td>
-                <td>
-                  {t('district-file:outlook.skill.versus', { ours: f.number(h.logScore, 2, true), usual: f.number(h.nullLogScore, 2, true) })}
-                  <br />
-                  <span className="text-ink-muted">{t('district-file:outlook.skill.gain', { gain: h.logScoreGain === null ? f.number(null) : `${h.logScoreGain > 0 ? '+' : ''}${f.number(h.logScoreGain, 2, true)}` })}</span>
-                </td>
-                <td>
-                  {f.percent(h.coverage80)}
-                  <br />
-                  <span className="text-ink-muted">{t('district-file:outlook.skill.scored', { count: h.scored, forecasts: f.number(h.scored) })}</span>
-                </td>
-                <td>{verdict(h)}</td>
+                <td>{t('district-file:outlook.skill.versus', { ours: f.number(h.crps, 2, true), usual: f.number(h.nullCrps, 2, true) })}</td>
+                <td>{signed(f.percent(h.crpsSkill), h.crpsSkill, 2)}</td>
+                <td>{t('district-file:outlook.skill.versus', { ours: f.number(h.logScore, 2, true), usual: f.number(h.nullLogScore, 2, true) })}</td>
+                <td>{signed(f.number(h.logScoreGain, 2, true), h.logScoreGain, 2)}</td>
+                <td>{f.percent(h.coverage80)}</td>
+                <td>{f.number(h.scored)}</td>
+                <td className="outlook-verdict">{verdict(h)}</td>
               </tr>
             ))}
           </tbody>

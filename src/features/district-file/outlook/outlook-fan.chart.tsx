@@ -52,8 +52,11 @@ export function OutlookFanChart({ outlook }: { outlook: DistrictOutlookResponse 
       weeks: f.number(forecast.length),
       origin: f.date(origin?.weekEnd ?? null),
     }),
-    t('district-file:outlook.nextWeek', { day: f.date(first.weekStart), median: f.number(first.q50), low: f.number(first.q10), high: f.number(first.q90) }),
-    forecast.length > 1
+    // All of the 10–90 % range on one count (an off-season week of nothing): said as that count, not "between 0 and 0".
+    first.q10 === first.q90
+      ? t('district-file:outlook.nextWeekExact', { day: f.date(first.weekStart), median: f.number(first.q50) })
+      : t('district-file:outlook.nextWeek', { day: f.date(first.weekStart), median: f.number(first.q50), low: f.number(first.q10), high: f.number(first.q90) }),
+    forecast.length > 1 && lastAhead.q10 !== lastAhead.q90
       ? t('district-file:outlook.lastWeekAhead', { count: lastAhead.horizon, day: f.date(lastAhead.weekStart), median: f.number(lastAhead.q50), low: f.number(lastAhead.q10), high: f.number(lastAhead.q90) })
       : '',
   ]
@@ -67,7 +70,11 @@ export function OutlookFanChart({ outlook }: { outlook: DistrictOutlookResponse 
       height="18rem"
       option={{
         grid: baseGrid,
-        legend: { ...legend, data: [names.observed, names.median, names.band50, names.band80] },
+        legend: {
+          ...legend,
+          // The bands' own lines are hidden; their legend marks are filled squares of the band colours.
+          data: [names.observed, names.median, { name: names.band50, icon: 'rect' }, { name: names.band80, icon: 'rect' }],
+        },
         tooltip: {
           ...axisTooltip,
           formatter: (params: any) => {
