@@ -128,6 +128,8 @@ function SkillTable({ w, data, horizons }: { w: LadderWords; data: DistrictOutlo
     return t('district-file:outlook.skill.afterGap');
   };
   const columns = ['ahead', 'crps', 'closer', 'logScore', 'gain', 'coverage80', 'scored', 'fan'] as const;
+  // On a phone each row becomes a small card and each cell names its column (district-file.css).
+  const label = (c: (typeof columns)[number]) => t(`district-file:outlook.skill.${c}`);
   return (
     <div className="min-w-0 space-y-2">
       <h3 className="section-title">{t('district-file:outlook.skill.title')}</h3>
@@ -140,7 +142,7 @@ function SkillTable({ w, data, horizons }: { w: LadderWords; data: DistrictOutlo
             <tr>
               {columns.map((c) => (
                 <th key={c} scope="col">
-                  {t(`district-file:outlook.skill.${c}`)}
+                  {label(c)}
                 </th>
               ))}
             </tr>
@@ -149,13 +151,13 @@ function SkillTable({ w, data, horizons }: { w: LadderWords; data: DistrictOutlo
             {horizons.map((h) => (
               <tr key={h.horizon} data-horizon={h.horizon} data-fan={h.horizon <= data.fanHorizons ? 'yes' : 'no'}>
                 <th scope="row">{t('district-file:outlook.skill.weeksAhead', { count: h.horizon })}</th>
-                <td>{t('district-file:outlook.skill.versus', { ours: f.number(h.crps, 2, true), usual: f.number(h.nullCrps, 2, true) })}</td>
-                <td>{signed(f.percent(h.crpsSkill), h.crpsSkill, 2)}</td>
-                <td>{t('district-file:outlook.skill.versus', { ours: f.number(h.logScore, 2, true), usual: f.number(h.nullLogScore, 2, true) })}</td>
-                <td>{signed(f.number(h.logScoreGain, 2, true), h.logScoreGain, 2)}</td>
-                <td>{f.percent(h.coverage80)}</td>
-                <td>{f.number(h.scored)}</td>
-                <td className="outlook-verdict">{verdict(h)}</td>
+                <td data-label={label('crps')}><span className="whitespace-nowrap">{t('district-file:outlook.skill.versus', { ours: f.number(h.crps, 2, true), usual: f.number(h.nullCrps, 2, true) })}</span></td>
+                <td data-label={label('closer')}><span className="whitespace-nowrap">{signed(f.percent(h.crpsSkill), h.crpsSkill, 2)}</span></td>
+                <td data-label={label('logScore')}><span className="whitespace-nowrap">{t('district-file:outlook.skill.versus', { ours: f.number(h.logScore, 2, true), usual: f.number(h.nullLogScore, 2, true) })}</span></td>
+                <td data-label={label('gain')}><span className="whitespace-nowrap">{signed(f.number(h.logScoreGain, 2, true), h.logScoreGain, 2)}</span></td>
+                <td data-label={label('coverage80')}><span className="whitespace-nowrap">{f.percent(h.coverage80)}</span></td>
+                <td data-label={label('scored')}><span className="whitespace-nowrap">{f.number(h.scored)}</span></td>
+                <td className="outlook-verdict" data-label={label('fan')}>{verdict(h)}</td>
               </tr>
             ))}
           </tbody>
