@@ -79,6 +79,18 @@ describe('the Case outlook panel on the District file', () => {
     expect(new URL(String(fetch.mock.calls[0]![0]), 'http://localhost').search).toBe('');
   });
 
+  it('when a skill rounds to zero, then it reads 0%, never -0%', async () => {
+    const answer = outlook(0, () => false);
+    answer.skill!.horizons[0]!.crpsSkill = -0.004;
+    answer.skill!.horizons[0]!.logScoreGain = -0.001;
+    const { c } = await show(answer);
+    await settled(c);
+    const first = c.querySelector('[data-testid="outlook-skill"] tbody tr')!;
+    const cells = [...first.querySelectorAll('td')].map((x) => x.textContent);
+    expect(cells[1]).toBe('0%');
+    expect(cells[3]).toBe('0.00');
+  });
+
   it('when fanHorizons is 0, then no fan is drawn and the panel says the outlook was not better than the seasonal usual', async () => {
     const { c } = await show(outlook(0, () => false));
     await settled(c);

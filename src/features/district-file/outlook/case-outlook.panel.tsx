@@ -30,7 +30,7 @@ export function CaseOutlookPanel({ districtId }: { districtId: string }) {
           {t('district-file:outlook.title')}
         </h2>
         {data && data.diseases.length > 1 ? (
-          <div className="field w-56">
+          <div className="field w-80 max-w-full">
             <label htmlFor={`${id}-disease`} className="field-label">
               {t('district-file:outlook.disease')}
             </label>
@@ -113,10 +113,14 @@ function OutlookBody({ w, data }: { w: LadderWords; data: DistrictOutlookRespons
   );
 }
 
-/** A signed number for a gain over the null ("+12 %", "−0,03"); a value that rounds to 0 is shown unsigned. */
-function signed(shown: string, x: number | null, digits: number): string {
-  if (x === null || Math.round(Math.abs(x) * 10 ** digits) === 0) return shown;
-  return x > 0 ? `+${shown}` : shown;
+/**
+ * A signed number for a gain over the null ("+12 %", "-3 %"); a value that rounds to 0 at the shown
+ * precision is shown as a plain 0 (never "-0 %").
+ */
+function signed(format: (x: number) => string, x: number | null, digits: number, none: string): string {
+  if (x === null) return none;
+  if (Math.round(Math.abs(x) * 10 ** digits) === 0) return format(0);
+  return x > 0 ? `+${format(x)}` : format(x);
 }
 
 function SkillTable({ w, data, horizons }: { w: LadderWords; data: DistrictOutlookResponse; horizons: OutlookHorizonSkillDto[] }) {
@@ -152,9 +156,9 @@ function SkillTable({ w, data, horizons }: { w: LadderWords; data: DistrictOutlo
               <tr key={h.horizon} data-horizon={h.horizon} data-fan={h.horizon <= data.fanHorizons ? 'yes' : 'no'}>
                 <th scope="row">{t('district-file:outlook.skill.weeksAhead', { count: h.horizon })}</th>
                 <td data-label={label('crps')}><span className="whitespace-nowrap">{t('district-file:outlook.skill.versus', { ours: f.number(h.crps, 2, true), usual: f.number(h.nullCrps, 2, true) })}</span></td>
-                <td data-label={label('closer')}><span className="whitespace-nowrap">{signed(f.percent(h.crpsSkill), h.crpsSkill, 2)}</span></td>
+                <td data-label={label('closer')}><span className="whitespace-nowrap">{signed((x) => f.percent(x), h.crpsSkill, 2, f.percent(null))}</span></td>
                 <td data-label={label('logScore')}><span className="whitespace-nowrap">{t('district-file:outlook.skill.versus', { ours: f.number(h.logScore, 2, true), usual: f.number(h.nullLogScore, 2, true) })}</span></td>
-                <td data-label={label('gain')}><span className="whitespace-nowrap">{signed(f.number(h.logScoreGain, 2, true), h.logScoreGain, 2)}</span></td>
+                <td data-label={label('gain')}><span className="whitespace-nowrap">{signed((x) => f.number(x, 2, true), h.logScoreGain, 2, f.number(null))}</span></td>
                 <td data-label={label('coverage80')}><span className="whitespace-nowrap">{f.percent(h.coverage80)}</span></td>
                 <td data-label={label('scored')}><span className="whitespace-nowrap">{f.number(h.scored)}</span></td>
                 <td className="outlook-verdict" data-label={label('fan')}>{verdict(h)}</td>
