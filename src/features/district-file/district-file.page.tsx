@@ -13,6 +13,7 @@ import { LarvalChart } from './charts/larval.chart';
 import { TierHistoryChart } from './charts/tier-history.chart';
 import { DegreeDaysChart, EipChart, RvcChart } from './charts/vector-clock.charts';
 import { WeatherChart } from './charts/weather.chart';
+import { CaseOutlookPanel } from './outlook/case-outlook.panel';
 import { CurrentTier } from './components/current-tier';
 import { KeyNumbers } from './components/key-numbers';
 import { FieldWorkPanel } from './components/field-work.panel';
@@ -29,7 +30,8 @@ const byWeek = (a: { epiYear: number; epiWeek: number }, b: { epiYear: number; e
 /**
  * Everything about one district for one season: its tier and drivers, what changed, notes on the inputs,
  * and the charts (weather, heat accumulation, the Vector clock, cases against the channel, larval indices,
- * tier history), each with a text summary and a table. Loaded lazily with ECharts.
+ * tier history), each with a text summary and a table, and the Case outlook (fetched when it comes near
+ * the viewport). Loaded lazily with ECharts.
  */
 export function DistrictFilePage() {
   const { t } = useTranslation('district-file');
@@ -245,6 +247,8 @@ function DistrictFileView({
           ))}
           <LarvalChart larval={data.larval} />
         </section>
+
+        <CaseOutlookPanel districtId={district.id} />
 
         <section aria-labelledby={`${id}-tiers`} className="card space-y-4">
           <h2 id={`${id}-tiers`} className="text-xl font-bold">
