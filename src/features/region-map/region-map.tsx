@@ -39,6 +39,26 @@ export function RegionMap({ rows, only }: { rows: LadderRow[]; only?: LadderRow[
     [boundaries.data, byId, i18n.language],
   );
 
+  const districtList = (
+    <ul className="map-district-list" aria-label={t('listTitle')} data-testid="map-district-list">
+      {listed.map((d) => {
+        const mark = d.row ? words.confidence(d.row.confidence) : null;
+        return (
+          <li key={d.id}>
+            <Link to={`/districts/${d.id}`} className="map-district-link">
+              {d.row ? <TierSwatch tier={d.row.tier} /> : <span aria-hidden="true" className="tier-swatch is-empty" />}
+              <span className="min-w-0 flex-1 truncate">{d.name}</span>
+              <span className="text-xs text-ink-muted">
+                {d.row ? words.tier(d.row.tier) : t('noTier')}
+                {mark ? ` (${mark})` : ''}
+              </span>
+            </Link>
+          </li>
+        );
+      })}
+    </ul>
+  );
+
   return (
     <section aria-labelledby={`${id}-title`} className="card region-map">
       <h2 id={`${id}-title`} className="section-title">
@@ -72,42 +92,10 @@ export function RegionMap({ rows, only }: { rows: LadderRow[]; only?: LadderRow[
             // At national scale (3,000 districts) the list folds away so the page stays short; the Ladder table has every district too.
             <details className="mt-1">
               <summary className="link cursor-pointer text-sm">{t('listTitle')}</summary>
-          <ul className="map-district-list" aria-label={t('listTitle')} data-testid="map-district-list">
-            {listed.map((d) => {
-              const mark = d.row ? words.confidence(d.row.confidence) : null;
-              return (
-                <li key={d.id}>
-                  <Link to={`/districts/${d.id}`} className="map-district-link">
-                    {d.row ? <TierSwatch tier={d.row.tier} /> : <span aria-hidden="true" className="tier-swatch is-empty" />}
-                    <span className="min-w-0 flex-1 truncate">{d.name}</span>
-                    <span className="text-xs text-ink-muted">
-                      {d.row ? words.tier(d.row.tier) : t('noTier')}
-                      {mark ? ` (${mark})` : ''}
-                    </span>
-                  </Link>
-                </li>
-              );
-            })}
-          </ul>
+              {districtList}
             </details>
           ) : (
-          <ul className="map-district-list" aria-label={t('listTitle')} data-testid="map-district-list">
-            {listed.map((d) => {
-              const mark = d.row ? words.confidence(d.row.confidence) : null;
-              return (
-                <li key={d.id}>
-                  <Link to={`/districts/${d.id}`} className="map-district-link">
-                    {d.row ? <TierSwatch tier={d.row.tier} /> : <span aria-hidden="true" className="tier-swatch is-empty" />}
-                    <span className="min-w-0 flex-1 truncate">{d.name}</span>
-                    <span className="text-xs text-ink-muted">
-                      {d.row ? words.tier(d.row.tier) : t('noTier')}
-                      {mark ? ` (${mark})` : ''}
-                    </span>
-                  </Link>
-                </li>
-              );
-            })}
-          </ul>
+            districtList
           )}
           </div>
         </div>
