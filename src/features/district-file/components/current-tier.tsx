@@ -104,12 +104,7 @@ export function CurrentTier({ current, previous, help = true }: { current: TierW
                 <td className="tabular-nums">{w.score(d.contribution)}</td>
                 <td>
                   <dl className="detail-list">
-                    {Object.entries(d.detail).map(([k, v]) => (
-                      <div key={k}>
-                        <dt>{detailLabel(w, k)}</dt>
-                        <dd>{detailValue(w, k, v)}</dd>
-                      </div>
-                    ))}
+                    <DetailRows detail={d.detail} w={w} />
                   </dl>
                 </td>
               </tr>
@@ -127,6 +122,16 @@ export function CurrentTier({ current, previous, help = true }: { current: TierW
       </div>
     </section>
   );
+}
+
+/** A driver's data as term–value rows, in the table's cell and in the phone's card alike. */
+function DetailRows({ detail, w }: { detail: TierWeek['drivers'][number]['detail']; w: LadderWords }) {
+  return Object.entries(detail).map(([k, v]) => (
+    <div key={k}>
+      <dt>{detailLabel(w, k)}</dt>
+      <dd>{detailValue(w, k, v)}</dd>
+    </div>
+  ));
 }
 
 /** The drivers on a phone: one card each, the driver as its heading, score, weight, contribution and data as rows. */
@@ -164,12 +169,7 @@ function DriversStacked({ drivers, w, Help }: { drivers: TierWeek['drivers']; w:
                 </dt>
                 <dd className="tabular-nums">{w.score(d.contribution)}</dd>
               </div>
-              {Object.entries(d.detail).map(([k, v]) => (
-                <div key={k}>
-                  <dt>{detailLabel(w, k)}</dt>
-                  <dd>{detailValue(w, k, v)}</dd>
-                </div>
-              ))}
+              <DetailRows detail={d.detail} w={w} />
             </dl>
           </li>
         ))}
